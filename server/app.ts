@@ -1,0 +1,93 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { createPassport } from './auth/passport';
+import { SqliteSessionStore } from './auth/session-store';
+import type { AppDeps } from './deps';
+import { AppError } from './errors';
+import { createCsrf } from './middleware/csrf';
+import { errorHandler } from './middleware/error-handler';
+import { authRoutes } from './routes/auth';
+import { outboxRoutes } from './routes/outbox';
+import { peopleRoutes } from './routes/people';
+import { profileRoutes } from './routes/profile';
+
+export interface AppOptions {
+  /** Folder of the built client (vite build); served with an SPA fallback when present. */
+  clientDir?: string;
+}
+
+export const SESSION_COOKIE = 'ft.sid';
+
+/** Builds the Express app without listening, so tests drive it with supertest. */
+export function createApp(deps: AppDeps, options: AppOptions = {}) {
+  const { config } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // React and the plot library set element styles at run time
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: config.production ? [] : null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+      strictTransportSecurity: config.production,
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+
+  const store = new SqliteSessionStore(deps.db);
+  app.locals.sessionStore = store;
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: config.sessionSecret,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.production, maxAge: 7 * 24 * 60 * 60 * 1000 },
+    }),
+  );
+  const passport = createPassport(deps);
+  app.use(passport.initialize());
+  app.use(passport.session());
+
+  const csrf = createCsrf(config.sessionSecret, config.production);
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+  app.use('/api', csrf.protect);
+  app.use('/api/auth', authRoutes(deps, passport, csrf.tokenFor));
+  app.use('/api/profile', profileRoutes(deps));
+  app.use('/api/admin/people', peopleRoutes(deps));
+  app.use('/api/dev/outbox', outboxRoutes(deps));
+  app.use('/api', (req, _res, next) => next(new AppError('not_found', `No API route ${req.method} ${req.path}`)));
+
+  const clientDir = options.clientDir;
+  if (clientDir && existsSync(path.join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.sendFile(path.join(clientDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } });
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,31 @@
+import type { Db } from '../database';
+
+export const getSession = (db: Db, sid: string, nowMs: number) =>
+  db.selectFrom('sessions').select('data').where('sid', '=', sid).where('expires_at', '>', nowMs).executeTakeFirst();
+
+export async function upsertSession(db: Db, sid: string, data: string, userId: number | null, expiresAtMs: number) {
+  await db
+    .insertInto('sessions')
+    .values({ sid, data, user_id: userId, expires_at: expiresAtMs })
+    .onConflict((oc) => oc.column('sid').doUpdateSet({ data, user_id: userId, expires_at: expiresAtMs }))
+    .execute();
+}
+
+export async function touchSession(db: Db, sid: string, expiresAtMs: number) {
+  await db.updateTable('sessions').set({ expires_at: expiresAtMs }).where('sid', '=', sid).execute();
+}
+
+export async function deleteSession(db: Db, sid: string) {
+  await db.deleteFrom('sessions').where('sid', '=', sid).execute();
+}
+
+/** Ends every session of a user, except optionally the one making the request. */
+export async function deleteUserSessions(db: Db, userId: number, exceptSid?: string) {
+  let q = db.deleteFrom('sessions').where('user_id', '=', userId);
+  if (exceptSid) q = q.where('sid', '!=', exceptSid);
+  await q.execute();
+}
+
+export async function deleteExpiredSessions(db: Db, nowMs: number) {
+  await db.deleteFrom('sessions').where('expires_at', '<=', nowMs).execute();
+}

@@ -1,0 +1,93 @@
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { createPassport } from '../auth/passport';
+import {
+  acceptInvitationSchema,
+  loginSchema,
+  resetConfirmSchema,
+  resetRequestSchema,
+  tokenSchema,
+  type User,
+} from '../../shared/schemas/auth';
+import type { AppDeps } from '../deps';
+import { AppError } from '../errors';
+import { parseInput } from '../middleware/validate';
+import { acceptInvitation, confirmPasswordReset, describeInvitation, requestPasswordReset } from '../services/auth';
+
+const tooMany = (message: string) => (_req: Request, _res: Response, next: NextFunction) =>
+  next(new AppError('rate_limited', message));
+
+export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPassport>, csrfToken: (req: Request, res: Response) => string) {
+  const r = Router();
+
+  // Failed sign-ins per address and client; successes do not count.
+  const loginLimiter = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: 8,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    handler: tooMany('Too many failed sign-ins. Wait 15 minutes, or reset your password.'),
+  });
+  const mailLimiter = rateLimit({
+    windowMs: 60 * 60 * 1000,
+    limit: 10,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: tooMany('Too many requests for mails from here. Try again in an hour.'),
+  });
+
+  r.get('/csrf', (req, res) => {
+    res.json({ csrfToken: csrfToken(req, res) });
+  });
+
+  r.get('/me', (req, res) => {
+    res.json({ user: req.user ?? null });
+  });
+
+  r.post('/login', loginLimiter, (req, res, next) => {
+    parseInput(loginSchema, req.body, 'The sign-in');
+    passport.authenticate('local', (err: unknown, user: User | false) => {
+      if (err) return next(err);
+      if (!user) return next(new AppError('unauthenticated', 'Wrong e-mail or password, or the account is deactivated'));
+      // passport >= 0.6 regenerates the session id here, which defeats session fixation
+      req.login(user, (loginErr) => (loginErr ? next(loginErr) : res.json({ user })));
+    })(req, res, next);
+  });
+
+  r.post('/logout', (req, res, next) => {
+    req.logout((err) => {
+      if (err) return next(err);
+      req.session.destroy((destroyErr) => {
+        if (destroyErr) return next(destroyErr);
+        res.clearCookie('ft.sid', { path: '/' });
+        res.json({ ok: true });
+      });
+    });
+  });
+
+  r.get('/invitations/:token', async (req, res) => {
+    const token = parseInput(tokenSchema, req.params.token, 'The link');
+    res.json({ invitation: await describeInvitation(deps, token) });
+  });
+
+  r.post('/invitations/accept', async (req, res, next) => {
+    const input = parseInput(acceptInvitationSchema, req.body, 'The invitation');
+    const user = await acceptInvitation(deps, input);
+    req.login(user, (err) => (err ? next(err) : res.status(201).json({ user })));
+  });
+
+  r.post('/password-reset', mailLimiter, async (req, res) => {
+    const { email } = parseInput(resetRequestSchema, req.body, 'The reset request');
+    await requestPasswordReset(deps, email);
+    res.status(202).json({ ok: true, message: 'If that address has an account, a reset link is on its way.' });
+  });
+
+  r.post('/password-reset/confirm', async (req, res) => {
+    await confirmPasswordReset(deps, parseInput(resetConfirmSchema, req.body, 'The new password'));
+    res.json({ ok: true });
+  });
+
+  return r;
+}

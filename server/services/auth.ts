@@ -1,0 +1,103 @@
+import type { AcceptInvitationInput, ChangePasswordInput, ResetConfirmInput, User } from '../../shared/schemas/auth';
+import { dummyPasswordHash, hashPassword, verifyPassword } from '../auth/password';
+import { hashLinkToken, newLinkToken } from '../auth/tokens';
+import { consumeAuthToken, findAuthToken, insertAuthToken } from '../db/repositories/auth-tokens';
+import { deleteUserSessions } from '../db/repositories/sessions';
+import { findUserByEmail, findUserById, insertUser, updateUser } from '../db/repositories/users';
+import type { AppDeps } from '../deps';
+import { AppError, invalid } from '../errors';
+import { passwordResetMail } from '../mail/templates';
+import { toUser } from './users';
+
+export const RESET_TTL_MS = 60 * 60 * 1000;
+
+/** The signed-in user for valid credentials of an active account, else null (same time either way). */
+export async function authenticate({ db }: AppDeps, email: string, password: string): Promise<User | null> {
+  const row = await findUserByEmail(db, email);
+  const ok = await verifyPassword(password, row?.password_hash ?? (await dummyPasswordHash()));
+  if (!row || !ok || row.active !== 1) return null;
+  return toUser(row);
+}
+
+/** The user behind a session, or null when the account is gone or deactivated. */
+export async function activeUser({ db }: AppDeps, id: number): Promise<User | null> {
+  const row = await findUserById(db, id);
+  return row && row.active === 1 ? toUser(row) : null;
+}
+
+async function usableToken(deps: AppDeps, kind: 'invitation' | 'password_reset', token: string) {
+  const row = await findAuthToken(deps.db, kind, hashLinkToken(token));
+  if (!row) throw new AppError('not_found', 'This link is not valid. Ask for a new one.');
+  if (row.used_at) throw new AppError('gone', 'This link was already used. Ask for a new one.');
+  if (new Date(row.expires_at).getTime() <= Date.now()) throw new AppError('gone', 'This link has expired. Ask for a new one.');
+  return row;
+}
+
+export async function describeInvitation(deps: AppDeps, token: string) {
+  const row = await usableToken(deps, 'invitation', token);
+  return { email: row.email, role: row.role ?? 'engineer' };
+}
+
+export async function acceptInvitation(deps: AppDeps, input: AcceptInvitationInput): Promise<User> {
+  const row = await usableToken(deps, 'invitation', input.token);
+  const passwordHash = await hashPassword(input.password);
+  const now = new Date().toISOString();
+  return deps.db.transaction().execute(async (trx) => {
+    if (!(await consumeAuthToken(trx, row.id, now))) throw new AppError('gone', 'This link was already used. Ask for a new one.');
+    const existing = await findUserByEmail(trx, row.email);
+    if (existing && existing.password_hash) throw new AppError('conflict', 'An account with this e-mail already exists. Sign in instead.');
+    const user = existing
+      ? await updateUser(trx, existing.id, { name: input.name, password_hash: passwordHash, active: 1, updated_at: now })
+      : await insertUser(trx, {
+          email: row.email,
+          name: input.name,
+          role: row.role ?? 'engineer',
+          password_hash: passwordHash,
+          created_at: now,
+          updated_at: now,
+        });
+    return toUser(user!);
+  });
+}
+
+/** Mails a reset link when the address belongs to an active account; the caller answers the same either way. */
+export async function requestPasswordReset(deps: AppDeps, email: string): Promise<void> {
+  const user = await findUserByEmail(deps.db, email);
+  if (!user || user.active !== 1) return;
+  const { token, tokenHash } = newLinkToken();
+  const now = Date.now();
+  await insertAuthToken(deps.db, {
+    kind: 'password_reset',
+    token_hash: tokenHash,
+    email: user.email,
+    user_id: user.id,
+    expires_at: new Date(now + RESET_TTL_MS).toISOString(),
+    created_at: new Date(now).toISOString(),
+  });
+  await deps.mailer.send(passwordResetMail(user.email, `${deps.config.publicUrl}/reset-password/${token}`));
+}
+
+export async function confirmPasswordReset(deps: AppDeps, input: ResetConfirmInput): Promise<void> {
+  const row = await usableToken(deps, 'password_reset', input.token);
+  const passwordHash = await hashPassword(input.password);
+  const now = new Date().toISOString();
+  await deps.db.transaction().execute(async (trx) => {
+    if (!(await consumeAuthToken(trx, row.id, now))) throw new AppError('gone', 'This link was already used. Ask for a new one.');
+    await updateUser(trx, row.user_id!, { password_hash: passwordHash, updated_at: now });
+    await deleteUserSessions(trx, row.user_id!);
+  });
+}
+
+export async function changePassword(deps: AppDeps, userId: number, input: ChangePasswordInput, keepSid: string) {
+  const row = await findUserById(deps.db, userId);
+  if (!row || !(await verifyPassword(input.currentPassword, row.password_hash))) {
+    throw invalid('Your current password is not right', [{ path: 'currentPassword', message: 'Not your current password' }]);
+  }
+  await updateUser(deps.db, userId, { password_hash: await hashPassword(input.newPassword), updated_at: new Date().toISOString() });
+  await deleteUserSessions(deps.db, userId, keepSid);
+}
+
+export async function renameUser(deps: AppDeps, userId: number, name: string): Promise<User> {
+  const row = await updateUser(deps.db, userId, { name, updated_at: new Date().toISOString() });
+  return toUser(row!);
+}

@@ -1,0 +1,19 @@
+import { hasRole, type Role } from '../../shared/auth/roles';
+
+export interface NavItem {
+  to: string;
+  label: string;
+  role?: Role;
+}
+
+export const NAV_ITEMS: NavItem[] = [
+  { to: '/', label: 'Bench' },
+  { to: '/cases', label: 'Cases' },
+  { to: '/diagnose', label: 'Diagnose' },
+  { to: '/lessons', label: 'Lessons' },
+  { to: '/review', label: 'Review desk', role: 'moderator' },
+  { to: '/admin/people', label: 'People', role: 'admin' },
+  { to: '/dev/outbox', label: 'Outbox', role: 'admin' },
+];
+
+export const navFor = (role: Role) => NAV_ITEMS.filter((i) => !i.role || hasRole({ role }, i.role));

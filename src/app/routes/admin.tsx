@@ -1,0 +1,10 @@
+import { useMe } from '../../features/auth/api/get-me';
+import { OutboxPage } from '../../features/outbox/components/OutboxPage';
+import { PeoplePage } from '../../features/people/components/PeoplePage';
+
+export function PeopleRoute() {
+  const { user } = useMe();
+  return user ? <PeoplePage selfId={user.id} /> : null;
+}
+
+export const OutboxRoute = OutboxPage;

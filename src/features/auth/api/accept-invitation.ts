@@ -1,0 +1,18 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { AcceptInvitationInput, User } from '../../../../shared/schemas/auth';
+import { api, resetCsrfToken } from '../../../lib/api-client';
+import { authKeys } from './get-me';
+
+export const acceptInvitation = (input: AcceptInvitationInput) =>
+  api<{ user: User }>('/api/auth/invitations/accept', { method: 'POST', body: input });
+
+export function useAcceptInvitation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: acceptInvitation,
+    onSuccess: ({ user }) => {
+      resetCsrfToken();
+      qc.setQueryData(authKeys.me(), { user });
+    },
+  });
+}

@@ -1,0 +1,18 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { LoginInput, User } from '../../../../shared/schemas/auth';
+import { api, resetCsrfToken } from '../../../lib/api-client';
+import { authKeys } from './get-me';
+
+export const login = (input: LoginInput) => api<{ user: User }>('/api/auth/login', { method: 'POST', body: input, quiet401: true });
+
+export function useLogin() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: login,
+    onSuccess: ({ user }) => {
+      resetCsrfToken();
+      qc.clear();
+      qc.setQueryData(authKeys.me(), { user });
+    },
+  });
+}

@@ -1,0 +1,11 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { OutboxMessage } from '../../../../shared/schemas/auth';
+import { api } from '../../../lib/api-client';
+
+export const outboxKeys = { all: ['outbox'] as const };
+
+export const getOutbox = () => api<{ messages: OutboxMessage[] }>('/api/dev/outbox');
+
+export const outboxQueryOptions = () => queryOptions({ queryKey: outboxKeys.all, queryFn: getOutbox, staleTime: 0 });
+
+export const useOutbox = () => useQuery(outboxQueryOptions());

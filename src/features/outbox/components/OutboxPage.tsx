@@ -1,0 +1,62 @@
+import { Fragment } from 'react';
+import { Alert } from '../../../components/ui/Alert';
+import { Button } from '../../../components/ui/Button';
+import { Loading, PageHeader, Panel } from '../../../components/ui/Panel';
+import { useOutbox } from '../api/get-outbox';
+
+/** Plain text with its URLs made clickable; the HTML part is never rendered here. */
+function LinkedText({ text }: { text: string }) {
+  const parts = text.split(/(https?:\/\/[^\s]+)/g);
+  return (
+    <pre className="whitespace-pre-wrap break-words font-sans text-sm">
+      {parts.map((p, i) =>
+        /^https?:\/\//.test(p) ? (
+          <a key={i} href={p} className="break-all text-agree underline underline-offset-2">
+            {p}
+          </a>
+        ) : (
+          <Fragment key={i}>{p}</Fragment>
+        ),
+      )}
+    </pre>
+  );
+}
+
+export function OutboxPage() {
+  const outbox = useOutbox();
+  return (
+    <>
+      <PageHeader
+        title="Outbox"
+        lead="Every mail the app sent while the built-in local mail fake is in use (SMTP_URL unset). Nothing here left this machine."
+        actions={
+          <Button variant="secondary" onClick={() => outbox.refetch()} busy={outbox.isFetching}>
+            Refresh
+          </Button>
+        }
+      />
+      {outbox.isPending && <Loading what="Loading mails" />}
+      {outbox.isError && <Alert tone="caution">{outbox.error.message}</Alert>}
+      {outbox.data?.messages.length === 0 && <Panel>No mail has been sent yet.</Panel>}
+      <ol className="flex flex-col gap-4">
+        {outbox.data?.messages.map((m, i) => (
+          <li key={`${m.createdAt}-${i}`}>
+            <Panel>
+              <details open={i === 0}>
+                <summary className="cursor-pointer">
+                  <span className="font-serif text-lg">{m.subject}</span>
+                  <span className="ml-2 text-sm text-muted">
+                    to <span className="font-mono">{m.to}</span> · {new Date(m.createdAt).toLocaleString()}
+                  </span>
+                </summary>
+                <div className="mt-3 border-t border-rule pt-3">
+                  <LinkedText text={m.text} />
+                </div>
+              </details>
+            </Panel>
+          </li>
+        ))}
+      </ol>
+    </>
+  );
+}

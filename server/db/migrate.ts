@@ -1,13 +1,28 @@
-import { promises as fs } from 'node:fs';
+import { readdirSync } from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { FileMigrationProvider, Migrator } from 'kysely';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { Migrator, type Migration, type MigrationProvider } from 'kysely';
 import type { Db } from './database';
 
 const migrationFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../migrations');
 
+/**
+ * Reads migrations/<timestamp>_<what>.ts. Our own import() rather than Kysely's
+ * FileMigrationProvider, so the loader that runs this file (tsx, vitest) also loads them.
+ */
+class MigrationFolderProvider implements MigrationProvider {
+  async getMigrations(): Promise<Record<string, Migration>> {
+    const migrations: Record<string, Migration> = {};
+    for (const file of readdirSync(migrationFolder).filter((f) => /^\d.*\.ts$/.test(f) && !f.endsWith('.d.ts')).sort()) {
+      const mod = (await import(pathToFileURL(path.join(migrationFolder, file)).href)) as Migration;
+      migrations[file.replace(/\.ts$/, '')] = mod;
+    }
+    return migrations;
+  }
+}
+
 export function createMigrator(db: Db): Migrator {
-  return new Migrator({ db, provider: new FileMigrationProvider({ fs, path, migrationFolder }) });
+  return new Migrator({ db, provider: new MigrationFolderProvider() });
 }
 
 /** Brings the schema to the newest migration; throws with the failing migration's name. */

@@ -1,0 +1,86 @@
+import request from 'supertest';
+import type { Role } from '../../../shared/auth/roles';
+import { createApp } from '../../../server/app';
+import type { Config } from '../../../server/config';
+import { openDatabase, type Db } from '../../../server/db/database';
+import { migrateToLatest } from '../../../server/db/migrate';
+import { listOutboxMessages } from '../../../server/db/repositories/outbox';
+import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
+import { createMailer, type Mailer } from '../../../server/mail/mailer';
+import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
+
+export const DEMO_PASSWORD = 'demo-probe-2026';
+export const demoEmail = (role: Role) => DEMO_ACCOUNTS.find((a) => a.role === role)!.email;
+
+export interface TestContext {
+  app: ReturnType<typeof createApp>;
+  db: Db;
+  mailer: Mailer;
+  fake: LocalSmtpFake;
+  config: Config;
+  close(): Promise<void>;
+}
+
+/** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
+export async function createTestContext(): Promise<TestContext> {
+  const db = openDatabase(':memory:');
+  await migrateToLatest(db);
+  await seedDemoUsers(db, DEMO_PASSWORD);
+  const fake = await startLocalSmtpFake(db);
+  const mailer = createMailer(`smtp://127.0.0.1:${fake.port}?ignoreTLS=true`, true);
+  const config: Config = {
+    port: 0,
+    dataDir: '/nonexistent',
+    publicUrl: 'http://falsetrace.local',
+    sessionSecret: 'test-secret-test-secret-test-secret',
+    seedDemo: false,
+    demoPassword: DEMO_PASSWORD,
+    production: false,
+  };
+  const app = createApp({ db, mailer, config });
+  return {
+    app,
+    db,
+    mailer,
+    fake,
+    config,
+    async close() {
+      (app.locals.sessionStore as { close(): void }).close();
+      mailer.close();
+      await fake.close();
+      await db.destroy();
+    },
+  };
+}
+
+/** A cookie-keeping client that sends the CSRF header on every state-changing call. */
+export async function client(ctx: TestContext) {
+  const agent = request.agent(ctx.app);
+  const token: string = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
+  return {
+    agent,
+    token,
+    get: (url: string) => agent.get(url),
+    post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', token).send(body),
+    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', token).send(body),
+    login: (email: string, password = DEMO_PASSWORD) =>
+      agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password }),
+  };
+}
+
+export async function signedIn(ctx: TestContext, role: Role) {
+  const c = await client(ctx);
+  await c.login(demoEmail(role)).expect(200);
+  return c;
+}
+
+export async function mailsTo(ctx: TestContext, email: string) {
+  return (await listOutboxMessages(ctx.db)).filter((m) => m.to_addr.toLowerCase().includes(email.toLowerCase()));
+}
+
+/** The path of the first link to this app in a mail's text part. */
+export function linkPath(text: string, publicUrl: string): string {
+  const m = text.match(new RegExp(`${publicUrl.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(/[^\\s]+)`));
+  if (!m) throw new Error(`no link in mail: ${text}`);
+  return m[1];
+}

@@ -1,0 +1,120 @@
+import type { Candidate, ModelContext } from './types';
+import { eng, factor } from './wording';
+
+/**
+ * Amplitude the scope displays when the channel multiplies by one ratio and the probe
+ * divides by another: shown = true × setting ÷ actual.
+ * source: definition of probe attenuation; common practice.
+ *
+ * @param trueAmplitudeV amplitude at the probe tip, V
+ * @param channelSetting ratio the channel assumes (10 for "10x")
+ * @param probeAttenuation ratio the probe actually divides by
+ * @returns displayed amplitude, V
+ */
+export function shownAmplitudeV(
+  trueAmplitudeV: number,
+  channelSetting: number,
+  probeAttenuation: number,
+): number {
+  return (trueAmplitudeV * channelSetting) / probeAttenuation;
+}
+
+/**
+ * Inverse: the probe ratio implied by an observation, actual = setting × expected ÷ observed.
+ *
+ * @param expectedAmplitudeV amplitude the circuit should have, V
+ * @param observedAmplitudeV amplitude the scope displayed, V
+ * @param channelSetting ratio the channel assumed
+ */
+export function impliedProbeAttenuation(
+  expectedAmplitudeV: number,
+  observedAmplitudeV: number,
+  channelSetting: number,
+): number {
+  return (channelSetting * expectedAmplitudeV) / observedAmplitudeV;
+}
+
+/** Within ±15 % of a power of ten counts as a "round factor" (common practice, our threshold). */
+const ROUND_FACTOR_TOLERANCE = Math.log10(1.15);
+/** How often an unrecorded switch or menu position explains a round-factor error (our estimate). */
+const HIDDEN_SWITCH_PRIOR = 0.35;
+
+const ratioTag = (actual: number, setting: number) => `${factor(actual)}x-at-${factor(setting)}x`;
+
+/** Attenuation-mismatch candidates: the setup as recorded, and a hidden switch position. */
+export function assessAttenuation({ setup, observed }: ModelContext): Candidate[] {
+  const { channelSetting: setting, probeAttenuation: actual, expectedAmplitudeV: expected } = setup;
+  const scale = setting / actual;
+  const estimates: Record<string, number | string> = { shownToTrueRatio: scale };
+  if (expected !== undefined && observed.amplitudeV !== undefined) {
+    estimates.impliedProbeAttenuation = impliedProbeAttenuation(expected, observed.amplitudeV, setting);
+  }
+  const candidates: Candidate[] = [recorded(setting, actual, expected, estimates)];
+  const hidden = hiddenSwitch(setting, actual, expected, observed.amplitudeV, estimates);
+  if (hidden) candidates.push(hidden);
+  return candidates;
+}
+
+function recorded(
+  setting: number,
+  actual: number,
+  expected: number | undefined,
+  estimates: Record<string, number | string>,
+): Candidate {
+  const scale = setting / actual;
+  const amplitudeV = expected === undefined ? undefined : shownAmplitudeV(expected, setting, actual);
+  if (setting === actual) {
+    return {
+      cause: 'attenuation-mismatch',
+      basis: 'recorded',
+      deviation: 0,
+      predicted: { amplitudeV },
+      explanation: `The channel setting (${factor(setting)}x) matches the probe (${factor(actual)}x), so the vertical scale is right as recorded.`,
+      fix: `Nothing to change; on a switchable probe, confirm the switch really is at ${factor(actual)}x.`,
+      estimates,
+      detailTags: [],
+    };
+  }
+  const direction =
+    scale < 1 ? `1/${factor(1 / scale)} of the true signal` : `${factor(scale)} times the true signal`;
+  const numbers = expected === undefined ? '' : `: ${eng(amplitudeV as number, 'V')} instead of ${eng(expected, 'V')}`;
+  return {
+    cause: 'attenuation-mismatch',
+    basis: 'recorded',
+    deviation: Math.abs(Math.log(scale)),
+    predicted: { amplitudeV },
+    explanation: `The channel assumes ${factor(setting)}x but the probe divides by ${factor(actual)}, so the scope shows ${direction}${numbers}.`,
+    fix: `Set the channel attenuation to ${factor(actual)}x to match the probe (most scopes cannot sense a switchable probe's position), or move the probe switch to ${factor(setting)}x.`,
+    estimates,
+    detailTags: [ratioTag(actual, setting)],
+  };
+}
+
+function hiddenSwitch(
+  setting: number,
+  actual: number,
+  expected: number | undefined,
+  observedV: number | undefined,
+  estimates: Record<string, number | string>,
+): Candidate | undefined {
+  if (setting !== actual || expected === undefined || observedV === undefined) return undefined;
+  const decades = Math.log10(expected / observedV);
+  const k = Math.round(decades);
+  if (k === 0 || Math.abs(decades - k) > ROUND_FACTOR_TOLERANCE) return undefined;
+  const impliedActual = setting * 10 ** k;
+  const [probeAt, channelAt] =
+    impliedActual >= 1 ? [impliedActual, setting] : [1, setting / impliedActual];
+  const scale = 10 ** -k;
+  const size = k > 0 ? `${factor(10 ** k)} times smaller` : `${factor(10 ** -k)} times larger`;
+  return {
+    cause: 'attenuation-mismatch',
+    basis: 'fitted',
+    hiddenPrior: HIDDEN_SWITCH_PRIOR,
+    deviation: Math.abs(Math.log(scale)),
+    predicted: { amplitudeV: expected * scale },
+    explanation: `The trace is ${size} than expected (${eng(observedV, 'V')} against ${eng(expected, 'V')}), a round factor: the mark of a probe switch or channel menu that is not where the record says. It fits a ${factor(probeAt)}x probe read as ${factor(channelAt)}x.`,
+    fix: "Look at the probe's switch and the channel's attenuation menu, make them agree, and read the amplitude again.",
+    estimates,
+    detailTags: [ratioTag(probeAt, channelAt)],
+  };
+}

@@ -1,0 +1,23 @@
+import { formatEngineering } from '../units/engineering';
+
+/** Engineering notation for explanations: `eng(15e-12, 'F')` → "15 pF". */
+export const eng = (value: number, unit: string): string => formatEngineering(value, unit);
+
+/**
+ * A ratio written for people: "10", "2.5", "180,001". Large ratios keep every digit because
+ * the exact figure is what a reader checks against the data sheet.
+ */
+export function factor(ratio: number): string {
+  if (!Number.isFinite(ratio)) return String(ratio);
+  if (Math.abs(ratio) >= 1000) {
+    return Math.round(ratio)
+      .toString()
+      .replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+  }
+  return String(Number(ratio.toPrecision(3)));
+}
+
+/** A percentage with sensible precision: "16.3 %", "0.5 %", "120 %". */
+export function percent(pct: number): string {
+  return `${Number(pct.toPrecision(3))} %`;
+}

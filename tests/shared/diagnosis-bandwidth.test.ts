@@ -1,0 +1,120 @@
+import { describe, expect, it } from 'vitest';
+import {
+  RISE_TIME_BANDWIDTH_PRODUCT,
+  bandwidthFromRiseTimeHz,
+  cascadeRiseTimeS,
+  riseTimeFromBandwidthS,
+  riseTimeFromTimeConstantS,
+  singlePoleMagnitude,
+  squareWaveAmplitudeRatio,
+} from '../../shared/diagnosis/single-pole';
+import { shownRiseTimeS, systemRiseTimeS } from '../../shared/diagnosis/bandwidth';
+import { resolveSetup } from '../../shared/diagnosis/defaults';
+import { diagnose } from '../../shared/diagnosis/ranker';
+
+/** Time at which 1 − e^(−t/τ) reaches a level, by bisection (no closed form used). */
+function crossing(level: number, tauS: number): number {
+  let low = 0;
+  let high = 100 * tauS;
+  for (let i = 0; i < 200; i++) {
+    const mid = (low + high) / 2;
+    if (1 - Math.exp(-mid / tauS) < level) low = mid;
+    else high = mid;
+  }
+  return (low + high) / 2;
+}
+
+describe('single-pole rules', () => {
+  it('should use ln 9 / 2π ≈ 0.3497 as the rise-time–bandwidth product', () => {
+    // source: single-pole step response; the "0.35" rule of thumb
+    expect(RISE_TIME_BANDWIDTH_PRODUCT).toBeCloseTo(0.3497, 4);
+    expect(riseTimeFromBandwidthS(100e6)).toBeCloseTo(3.497e-9, 12);
+    expect(bandwidthFromRiseTimeHz(3.497e-9)).toBeCloseTo(100e6, -3);
+  });
+
+  it('should give a 10–90 % rise of τ·ln 9 for a single pole', () => {
+    // source: step response 1 − e^(−t/τ), solved numerically for the 10 % and 90 % points
+    const tau = 1e-6;
+    expect(crossing(0.9, tau) - crossing(0.1, tau)).toBeCloseTo(riseTimeFromTimeConstantS(tau), 12);
+    expect(riseTimeFromTimeConstantS(1)).toBeCloseTo(2.1972, 4);
+  });
+
+  it('should add stage rise times in quadrature', () => {
+    // source: root-sum-square rise-time rule; a 3-4-5 triangle as the check
+    expect(cascadeRiseTimeS([3e-9, 4e-9])).toBeCloseTo(5e-9, 18);
+    expect(cascadeRiseTimeS([])).toBe(0);
+  });
+
+  it('should pass 1/√2 at the corner and 1/√(1+(f/fc)²) elsewhere', () => {
+    // source: first-order low-pass |H| = 1/√(1 + (f/fc)²); −3 dB at fc
+    expect(singlePoleMagnitude(10e6, 10e6)).toBeCloseTo(Math.SQRT1_2, 15);
+    expect(singlePoleMagnitude(30e6, 10e6)).toBeCloseTo(1 / Math.sqrt(10), 15);
+  });
+
+  it('should match a square wave iterated through the RC to steady state', () => {
+    // independent check: apply v ← target + (v − target)·e^(−T/2τ) each half period
+    const tau = 1e-6;
+    for (const f of [50e3, 200e3, 1e6]) {
+      const decay = Math.exp(-1 / (2 * f * tau));
+      let v = 0;
+      let high = 0;
+      let low = 0;
+      for (let half = 0; half < 2000; half++) {
+        const target = half % 2 === 0 ? 1 : 0;
+        v = target + (v - target) * decay;
+        if (target === 1) high = v;
+        else low = v;
+      }
+      expect(squareWaveAmplitudeRatio(tau, f)).toBeCloseTo(high - low, 10);
+    }
+  });
+});
+
+describe('bandwidth model', () => {
+  it('should combine probe, scope and limit filter into one rise time', () => {
+    const { setup } = resolveSetup({
+      probe: { attenuation: 10, bandwidthHz: 200e6 },
+      scope: { bandwidthHz: 200e6, bandwidthLimitHz: 20e6 },
+      signal: { riseTimeS: 5e-9 },
+    });
+    const t = (bw: number) => 0.3497 / bw;
+    const system = Math.sqrt(t(200e6) ** 2 + t(200e6) ** 2 + t(20e6) ** 2);
+    expect(systemRiseTimeS(setup)).toBeCloseTo(system, 12);
+    expect(shownRiseTimeS(setup)).toBeCloseTo(Math.sqrt(system ** 2 + 25e-18), 12);
+  });
+
+  it('should assume a 1x probe reaches about 6 MHz', () => {
+    // common practice: 1x passive probes have a few MHz of bandwidth
+    const { setup, assumptions } = resolveSetup({ probe: { attenuation: 1 } });
+    expect(setup.probeBandwidthHz).toBe(6e6);
+    expect(assumptions.find((a) => a.field === 'probe.bandwidthHz')?.value).toBe(6e6);
+  });
+
+  it('should read the effective bandwidth off a slow edge', () => {
+    const result = diagnose({
+      probe: { attenuation: 10, bandwidthHz: 200e6 },
+      scope: { bandwidthHz: 200e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, riseTimeS: 1e-9 },
+      observed: { amplitudeV: 1, riseTimeS: 17.5e-9 },
+    });
+    const top = result.hypotheses[0];
+    expect(top.cause).toBe('bandwidth');
+    expect(top.estimates?.effectiveBandwidthHz).toBeCloseTo(0.3497 / Math.sqrt(17.5e-9 ** 2 - 1e-18), -3);
+    expect(top.explanation).toMatch(/bandwidth-limit filter/);
+  });
+
+  it('should blame a 1x probe for a 20 MHz sine shown small', () => {
+    const result = diagnose({
+      probe: { attenuation: 1 },
+      scope: { attenuationSetting: 1, bandwidthHz: 200e6 },
+      circuit: { sourceResistanceOhm: 0 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 20e6, kind: 'sine' },
+      observed: { amplitudeV: 0.29 },
+    });
+    const top = result.hypotheses[0];
+    expect(top.cause).toBe('bandwidth');
+    // product of the two poles' magnitudes at 20 MHz
+    expect(top.predicted.amplitudeV).toBeCloseTo(singlePoleMagnitude(20e6, 6e6) * singlePoleMagnitude(20e6, 200e6), 12);
+    expect(result.tags).toContain('1x-probe-bandwidth');
+  });
+});

@@ -10,10 +10,19 @@ import type { AppDeps } from './deps';
 import { AppError } from './errors';
 import { createCsrf } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
+import { attachmentRoutes } from './routes/attachments';
 import { authRoutes } from './routes/auth';
+import { captureRoutes } from './routes/captures';
+import { caseRoutes } from './routes/cases';
+import { commentRoutes } from './routes/comments';
+import { diagnosisRoutes } from './routes/diagnosis';
+import { lessonRoutes } from './routes/lessons';
+import { notificationRoutes } from './routes/notifications';
 import { outboxRoutes } from './routes/outbox';
 import { peopleRoutes } from './routes/people';
 import { profileRoutes } from './routes/profile';
+import { reviewRoutes } from './routes/review';
+import { tagRoutes } from './routes/tags';
 
 export interface AppOptions {
   /** Folder of the built client (vite build); served with an SPA fallback when present. */
@@ -76,8 +85,17 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.use('/api', csrf.protect);
   app.use('/api/auth', authRoutes(deps, passport, csrf.tokenFor));
   app.use('/api/profile', profileRoutes(deps));
+  app.use('/api/profile', notificationRoutes(deps));
   app.use('/api/admin/people', peopleRoutes(deps));
   app.use('/api/dev/outbox', outboxRoutes(deps));
+  app.use('/api/cases', caseRoutes(deps));
+  app.use('/api/comments', commentRoutes(deps));
+  app.use('/api/attachments', attachmentRoutes(deps));
+  app.use('/api/diagnosis', diagnosisRoutes());
+  app.use('/api/captures', captureRoutes(deps));
+  app.use('/api/review', reviewRoutes(deps));
+  app.use('/api/lessons', lessonRoutes(deps));
+  app.use('/api/tags', tagRoutes(deps));
   app.use('/api', (req, _res, next) => next(new AppError('not_found', `No API route ${req.method} ${req.path}`)));
 
   const clientDir = options.clientDir;

@@ -1,10 +1,13 @@
 import type { Config } from './config';
 import type { Db } from './db/database';
+import type { MailQueue } from './mail/mail-queue';
 import type { Mailer } from './mail/mailer';
 
 /** What services need from the outside world; tests build it with an in-memory database. */
 export interface AppDeps {
   db: Db;
+  /** The SMTP transport; send through `mail` so nothing is lost while SMTP is down. */
   mailer: Mailer;
+  mail: MailQueue;
   config: Config;
 }

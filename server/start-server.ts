@@ -7,8 +7,10 @@ import { openDatabase } from './db/database';
 import { migrateToLatest } from './db/migrate';
 import { countUsers } from './db/repositories/users';
 import { startLocalSmtpFake } from './mail/local-smtp-fake';
+import { createMailQueue } from './mail/mail-queue';
 import { createMailer } from './mail/mailer';
 import { seedDemoUsers } from './seed/demo-users';
+import { runDailyDigestIfDue } from './services/digest';
 
 export const CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
@@ -25,7 +27,16 @@ export async function startServer(config: Config) {
     console.log('[falsetrace] empty database: demo accounts created');
   }
 
-  const app = createApp({ db, mailer, config }, { clientDir: CLIENT_DIR });
+  const mail = createMailQueue(db, mailer);
+  mail.start();
+  void mail.retryDue();
+  const app = createApp({ db, mailer, mail, config }, { clientDir: CLIENT_DIR });
+  const digestTimer = setInterval(
+    () => void runDailyDigestIfDue({ db, mailer, mail, config }).catch((e) => console.error('[falsetrace] digest failed:', e)),
+    60 * 60 * 1000,
+  );
+  digestTimer.unref();
+
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(config.port, () => resolve(s));
   });
@@ -34,6 +45,8 @@ export async function startServer(config: Config) {
     await new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeAllConnections();
     (app.locals.sessionStore as { close(): void }).close();
+    clearInterval(digestTimer);
+    mail.stop();
     mailer.close();
     await fake?.close();
     await db.destroy();

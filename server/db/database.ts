@@ -1,6 +1,7 @@
 import SQLite from 'better-sqlite3';
 import { Kysely, SqliteDialect, type Generated } from 'kysely';
 import type { Role } from '../../shared/auth/roles';
+import type { CaseStatus } from '../../shared/schemas/case';
 
 export interface UsersTable {
   id: Generated<number>;
@@ -45,7 +46,173 @@ export interface OutboxMessagesTable {
   created_at: string;
 }
 
+export interface CasesTable {
+  id: Generated<number>;
+  author_id: number;
+  title: string;
+  summary: string;
+  narrative: Generated<string>;
+  /** JSON of CaseSetup (SI numbers) */
+  setup: Generated<string>;
+  stated_cause: string | null;
+  stated_cause_other: string | null;
+  fix: string | null;
+  lesson_summary: string | null;
+  lesson_detail: string | null;
+  status: Generated<CaseStatus>;
+  /** JSON of DiagnosisResult */
+  diagnosis: string | null;
+  engine_cause: string | null;
+  cause: string | null;
+  disagrees: Generated<number>;
+  review_note: string | null;
+  duplicate_of: number | null;
+  retired_reason: string | null;
+  created_at: string;
+  updated_at: string;
+  submitted_at: string | null;
+  verified_at: string | null;
+}
+
+export interface CaseTagsTable {
+  case_id: number;
+  tag: string;
+  source: Generated<'author' | 'engine'>;
+}
+
+export interface AttachmentsTable {
+  id: Generated<number>;
+  case_id: number;
+  uploaded_by: number | null;
+  kind: 'screenshot' | 'capture';
+  storage_name: string;
+  thumbnail_name: string | null;
+  original_name: string;
+  content_type: string;
+  size_bytes: number;
+  width: number | null;
+  height: number | null;
+  /** JSON of the capture analysis */
+  analysis: string | null;
+  created_at: string;
+}
+
+export interface CaseRevisionsTable {
+  id: Generated<number>;
+  case_id: number;
+  number: number;
+  author_id: number | null;
+  snapshot: string;
+  created_at: string;
+}
+
+export interface CommentsTable {
+  id: Generated<number>;
+  case_id: number;
+  author_id: number;
+  body: string;
+  hidden: Generated<number>;
+  hidden_by: number | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface AuditLogTable {
+  id: Generated<number>;
+  case_id: number | null;
+  actor_id: number | null;
+  action: string;
+  before: string | null;
+  after: string | null;
+  note: string | null;
+  created_at: string;
+}
+
+export interface MailQueueTable {
+  id: Generated<number>;
+  to_addr: string;
+  subject: string;
+  text: string;
+  html: string;
+  attempts: Generated<number>;
+  next_attempt_at: string;
+  last_error: string | null;
+  sent_at: string | null;
+  created_at: string;
+}
+
+export interface WatchesTable {
+  id: Generated<number>;
+  user_id: number;
+  case_id: number | null;
+  tag: string | null;
+  created_at: string;
+}
+
+export type NotificationMode = 'instant' | 'digest' | 'off';
+
+export interface NotificationPrefsTable {
+  user_id: number;
+  kind: string;
+  mode: NotificationMode;
+}
+
+export interface DigestItemsTable {
+  id: Generated<number>;
+  user_id: number;
+  kind: string;
+  case_id: number | null;
+  line: string;
+  sent_at: string | null;
+  created_at: string;
+}
+
+export interface LessonDeliveriesTable {
+  user_id: number;
+  case_id: number;
+  sent_at: string;
+}
+
+export interface TagsTable {
+  tag: string;
+  description: string | null;
+  retired: Generated<number>;
+  created_at: string;
+}
+
+export interface TagSynonymsTable {
+  synonym: string;
+  tag: string;
+}
+
+export interface PinnedLessonsTable {
+  case_id: number;
+  position: number;
+  pinned_by: number | null;
+  created_at: string;
+}
+
+export interface AppStateTable {
+  key: string;
+  value: string;
+}
+
 export interface Database {
+  app_state: AppStateTable;
+  audit_log: AuditLogTable;
+  mail_queue: MailQueueTable;
+  watches: WatchesTable;
+  notification_prefs: NotificationPrefsTable;
+  digest_items: DigestItemsTable;
+  lesson_deliveries: LessonDeliveriesTable;
+  tags: TagsTable;
+  tag_synonyms: TagSynonymsTable;
+  pinned_lessons: PinnedLessonsTable;
+  cases: CasesTable;
+  case_tags: CaseTagsTable;
+  attachments: AttachmentsTable;
+  case_revisions: CaseRevisionsTable;
+  comments: CommentsTable;
   users: UsersTable;
   sessions: SessionsTable;
   auth_tokens: AuthTokensTable;

@@ -4,7 +4,7 @@ const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** Wraps paragraphs and one call-to-action link into a plain-text and an HTML part. */
-function compose(to: string, subject: string, paragraphs: string[], link: { label: string; url: string }): MailMessage {
+export function compose(to: string, subject: string, paragraphs: string[], link: { label: string; url: string }): MailMessage {
   const text = [...paragraphs, `${link.label}: ${link.url}`, '', '— Falsetrace, the team casebook of measurements that lied'].join('\n\n');
   const html = `<!doctype html><html><body style="font-family:Georgia,serif;color:#1d2a44;background:#f7f3ea;padding:24px">
 ${paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join('\n')}

@@ -74,7 +74,7 @@ export async function requestPasswordReset(deps: AppDeps, email: string): Promis
     expires_at: new Date(now + RESET_TTL_MS).toISOString(),
     created_at: new Date(now).toISOString(),
   });
-  await deps.mailer.send(passwordResetMail(user.email, `${deps.config.publicUrl}/reset-password/${token}`));
+  await deps.mail.send(passwordResetMail(user.email, `${deps.config.publicUrl}/reset-password/${token}`));
 }
 
 export async function confirmPasswordReset(deps: AppDeps, input: ResetConfirmInput): Promise<void> {

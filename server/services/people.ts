@@ -37,7 +37,7 @@ export async function invitePerson(deps: AppDeps, inviter: User, input: InviteIn
     expires_at: expiresAt,
     created_at: new Date(now).toISOString(),
   });
-  await deps.mailer.send(invitationMail(input.email, inviter.name, input.role, `${deps.config.publicUrl}/accept-invitation/${token}`));
+  await deps.mail.send(invitationMail(input.email, inviter.name, input.role, `${deps.config.publicUrl}/accept-invitation/${token}`));
   return { email: input.email, expiresAt };
 }
 

@@ -54,7 +54,7 @@ describe('role matrix over the People and Outbox routes', () => {
   it('should hide the outbox when a real SMTP server is configured', async () => {
     const real = { ...ctx.mailer, usesLocalFake: false };
     const { createApp } = await import('../../server/app');
-    const app = createApp({ db: ctx.db, mailer: real, config: ctx.config });
+    const app = createApp({ db: ctx.db, mailer: real, mail: ctx.mail, config: ctx.config });
     const agent = request.agent(app);
     const token = (await agent.get('/api/auth/csrf')).body.csrfToken;
     await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: 'admin@falsetrace.test', password: 'demo-probe-2026' }).expect(200);

@@ -1,3 +1,6 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import type { Role } from '../../../shared/auth/roles';
 import { createApp } from '../../../server/app';
@@ -6,6 +9,7 @@ import { openDatabase, type Db } from '../../../server/db/database';
 import { migrateToLatest } from '../../../server/db/migrate';
 import { listOutboxMessages } from '../../../server/db/repositories/outbox';
 import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
+import { createMailQueue, type MailQueue } from '../../../server/mail/mail-queue';
 import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
 
@@ -16,6 +20,7 @@ export interface TestContext {
   app: ReturnType<typeof createApp>;
   db: Db;
   mailer: Mailer;
+  mail: MailQueue;
   fake: LocalSmtpFake;
   config: Config;
   close(): Promise<void>;
@@ -30,18 +35,20 @@ export async function createTestContext(): Promise<TestContext> {
   const mailer = createMailer(`smtp://127.0.0.1:${fake.port}?ignoreTLS=true`, true);
   const config: Config = {
     port: 0,
-    dataDir: '/nonexistent',
+    dataDir: mkdtempSync(path.join(tmpdir(), 'falsetrace-test-')),
     publicUrl: 'http://falsetrace.local',
     sessionSecret: 'test-secret-test-secret-test-secret',
     seedDemo: false,
     demoPassword: DEMO_PASSWORD,
     production: false,
   };
-  const app = createApp({ db, mailer, config });
+  const mail = createMailQueue(db, mailer);
+  const app = createApp({ db, mailer, mail, config });
   return {
     app,
     db,
     mailer,
+    mail,
     fake,
     config,
     async close() {
@@ -49,6 +56,7 @@ export async function createTestContext(): Promise<TestContext> {
       mailer.close();
       await fake.close();
       await db.destroy();
+      rmSync(config.dataDir, { recursive: true, force: true });
     },
   };
 }
@@ -63,6 +71,10 @@ export async function client(ctx: TestContext) {
     get: (url: string) => agent.get(url),
     post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', token).send(body),
     patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', token).send(body),
+    put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', token).send(body),
+    del: (url: string) => agent.delete(url).set('x-csrf-token', token),
+    upload: (url: string, bytes: Buffer, filename: string, contentType = 'application/octet-stream') =>
+      agent.post(url).set('x-csrf-token', token).attach('file', bytes, { filename, contentType }),
     login: (email: string, password = DEMO_PASSWORD) =>
       agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password }),
   };

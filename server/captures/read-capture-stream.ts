@@ -1,0 +1,109 @@
+import { isAscii } from 'node:buffer';
+import type { Readable } from 'node:stream';
+import { CaptureParser } from '../../shared/capture/parse';
+import type { CaptureParseOptions, ParseResult } from '../../shared/capture/types';
+
+type Encoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'latin1';
+
+const SNIFF_BYTES = 4;
+
+/**
+ * Turns the bytes of an upload into text a chunk at a time. The encoding comes from a byte
+ * order mark (UTF-8, UTF-16 LE/BE), else UTF-8 is assumed; a file that breaks UTF-8 before any
+ * non-ASCII byte has been read is taken as Latin-1 (older bench software writes "µs" as the
+ * single byte 0xB5), one that breaks it later is refused, since its earlier text was already
+ * read as UTF-8. NUL bytes outside UTF-16 mean a binary file.
+ */
+class ChunkDecoder {
+  private encoding: Encoding | null = null;
+  private decoder: TextDecoder | null = null;
+  private head: Buffer | null = null;
+  private offset = 0;
+  private sawNonAscii = false;
+  error: string | null = null;
+  note: string | null = null;
+
+  write(bytes: Buffer): string {
+    if (this.encoding === null) {
+      this.head = this.head === null ? bytes : Buffer.concat([this.head, bytes]);
+      if (this.head.length < SNIFF_BYTES) return '';
+      bytes = this.head;
+      this.head = null;
+      this.choose(bytes);
+    }
+    return this.decode(bytes, true);
+  }
+
+  end(): string {
+    if (this.encoding === null) {
+      const bytes = this.head ?? Buffer.alloc(0);
+      this.head = null;
+      this.choose(bytes);
+      return this.decode(bytes, false);
+    }
+    return this.decode(Buffer.alloc(0), false);
+  }
+
+  private choose(bytes: Buffer): void {
+    if (bytes[0] === 0xff && bytes[1] === 0xfe) this.encoding = 'utf-16le';
+    else if (bytes[0] === 0xfe && bytes[1] === 0xff) this.encoding = 'utf-16be';
+    else this.encoding = 'utf-8';
+    if (this.encoding !== 'utf-8') this.note = `read as ${this.encoding.toUpperCase()} (byte order mark)`;
+    this.decoder = new TextDecoder(this.encoding, { fatal: true });
+  }
+
+  private decode(bytes: Buffer, more: boolean): string {
+    if (this.error !== null) return '';
+    const start = this.offset;
+    this.offset += bytes.length;
+    if (this.encoding !== 'utf-16le' && this.encoding !== 'utf-16be') {
+      const nul = bytes.indexOf(0);
+      if (nul >= 0) {
+        this.error = `binary content (a NUL byte at byte ${start + nul}); a capture must be a CSV text file`;
+        return '';
+      }
+    }
+    if (this.encoding === 'latin1') return bytes.toString('latin1');
+    try {
+      const text = this.decoder!.decode(bytes, { stream: more });
+      if (!this.sawNonAscii && !isAscii(bytes)) this.sawNonAscii = true;
+      return text;
+    } catch {
+      if (!more && bytes.length === 0) return ''; // a character cut off at the very end: the last line is dropped anyway
+      if (this.encoding === 'utf-8' && !this.sawNonAscii) {
+        this.encoding = 'latin1';
+        this.note = 'read as Latin-1: the file is not UTF-8';
+        return bytes.toString('latin1');
+      }
+      this.error = `invalid ${this.encoding} text in bytes ${start}–${start + bytes.length}; save the capture as UTF-8 CSV`;
+      return '';
+    }
+  }
+}
+
+/**
+ * Reads a CSV capture from a byte stream (an upload on disk, a socket) into samples, passing
+ * it to the shared `CaptureParser` chunk by chunk so a 50 MB file never sits in memory as text.
+ * Stops reading as soon as the file is known to be unreadable. Never rejects: read errors,
+ * binary content and bad text come back as `{ ok: false, error }`.
+ */
+export async function readCaptureStream(
+  stream: NodeJS.ReadableStream | Readable,
+  options?: CaptureParseOptions,
+): Promise<ParseResult> {
+  const parser = new CaptureParser(options);
+  const decoder = new ChunkDecoder();
+  try {
+    for await (const chunk of stream as AsyncIterable<Buffer | string>) {
+      parser.push(typeof chunk === 'string' ? chunk : decoder.write(chunk));
+      if (decoder.error !== null || parser.failed) break;
+    }
+    if (decoder.error === null && !parser.failed) parser.push(decoder.end());
+  } catch (cause) {
+    return { ok: false, error: { message: `the file could not be read (${cause instanceof Error ? cause.message : String(cause)})` } };
+  }
+  if (decoder.error !== null) return { ok: false, error: { message: decoder.error, expected: 'text' } };
+  const result = parser.finish();
+  if (result.ok && decoder.note !== null) result.notes.push(decoder.note);
+  return result;
+}

@@ -1,0 +1,66 @@
+import type { Db } from '../db/database';
+import { dueMails, findQueuedMail, insertQueuedMail, markMailFailed, markMailSent } from '../db/repositories/mail-queue';
+import type { MailMessage, Mailer } from './mailer';
+
+/** Backoff after the n-th failed attempt: 30 s, 1 min, 2 min … capped at 1 h. */
+export const retryDelayMs = (attempts: number) => Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 60 * 60 * 1000);
+
+export interface MailQueue {
+  /** Stores the mail, then tries to deliver it at once; a failure leaves it queued for retry. */
+  send(message: MailMessage): Promise<void>;
+  /** Stores the mail (inside the caller's transaction when given) for the next sweep. */
+  enqueue(message: MailMessage, trx?: Db): Promise<void>;
+  /** Tries every mail whose retry time has come; returns how many went out. */
+  retryDue(now?: Date): Promise<number>;
+  start(intervalMs?: number): void;
+  stop(): void;
+}
+
+export function createMailQueue(db: Db, mailer: Mailer): MailQueue {
+  let timer: NodeJS.Timeout | undefined;
+  let running: Promise<number> | undefined;
+
+  async function attempt(id: number, now: Date): Promise<boolean> {
+    const row = await findQueuedMail(db, id);
+    if (!row || row.sent_at) return false;
+    try {
+      await mailer.send({ to: row.to_addr, subject: row.subject, text: row.text, html: row.html });
+      await markMailSent(db, id, new Date().toISOString());
+      return true;
+    } catch (err) {
+      const attempts = row.attempts + 1;
+      await markMailFailed(db, id, attempts, new Date(now.getTime() + retryDelayMs(attempts)).toISOString(), String((err as Error).message ?? err));
+      return false;
+    }
+  }
+
+  async function retryDue(now = new Date()): Promise<number> {
+    // one sweep at a time, so a slow SMTP server never gets the same mail twice
+    running ??= (async () => {
+      let sent = 0;
+      for (const row of await dueMails(db, now.toISOString())) if (await attempt(row.id, now)) sent++;
+      return sent;
+    })().finally(() => (running = undefined));
+    return running;
+  }
+
+  return {
+    async send(message) {
+      const now = new Date();
+      const { id } = await insertQueuedMail(db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now.toISOString(), created_at: now.toISOString() });
+      await attempt(id, now);
+    },
+    async enqueue(message, trx) {
+      const now = new Date().toISOString();
+      await insertQueuedMail(trx ?? db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now, created_at: now });
+    },
+    retryDue,
+    start(intervalMs = 15_000) {
+      timer = setInterval(() => void retryDue().catch((e) => console.error('[falsetrace] mail retry failed:', e)), intervalMs);
+      timer.unref();
+    },
+    stop() {
+      if (timer) clearInterval(timer);
+    },
+  };
+}

@@ -1,0 +1,34 @@
+import { diagnosisInputFromSetup } from '../../shared/diagnosis/from-case-setup';
+import { diagnose } from '../../shared/diagnosis/ranker';
+import type { CaseSetup, StatedCause } from '../../shared/schemas/case';
+import { CAUSES, type Cause, type DiagnosisResult } from '../../shared/schemas/diagnosis';
+
+export interface StoredDiagnosis {
+  diagnosis: DiagnosisResult | null;
+  engineCause: Cause | null;
+  /** The stated cause, else the engine's top cause. */
+  cause: string | null;
+  disagrees: boolean;
+  engineTags: string[];
+}
+
+/** The server's own recomputation on every save, so a stored diagnosis never trusts the client. */
+export function recomputeDiagnosis(setup: CaseSetup, statedCause: StatedCause | null | undefined): StoredDiagnosis {
+  let diagnosis: DiagnosisResult | null = null;
+  try {
+    diagnosis = diagnose(diagnosisInputFromSetup(setup));
+  } catch (err) {
+    // a model bug must not lose the author's save; the case shows no diagnosis instead
+    console.error('[falsetrace] diagnosis failed:', err);
+  }
+  const top = diagnosis?.hypotheses[0];
+  const engineCause = top && top.likelihood > 0 ? top.cause : null;
+  const disagrees = Boolean(statedCause && (CAUSES as readonly string[]).includes(statedCause) && engineCause && engineCause !== statedCause);
+  return {
+    diagnosis,
+    engineCause,
+    cause: statedCause ?? engineCause,
+    disagrees,
+    engineTags: diagnosis?.tags ?? [],
+  };
+}

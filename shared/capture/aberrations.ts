@@ -1,0 +1,53 @@
+import type { Transition } from './transitions';
+
+/** Post-transition aberrations of one transition, in percent of the amplitude. */
+export interface Aberrations {
+  /** How far the waveform goes past the state it enters, %. */
+  overshootPct: number;
+  /** How far it then swings back short of that state, %. */
+  undershootPct: number;
+}
+
+/**
+ * Post-transition overshoot and undershoot (IEEE Std 181-2011 aberration definitions):
+ * overshoot = 100·(extreme beyond the final state level − that level)/amplitude, taken over the
+ * post-transition region; undershoot = 100·(the level − the extreme on the near side)/amplitude
+ * over the same region once the waveform has reached the level (before that, the samples on the
+ * near side are the end of the transition itself, not an aberration). Both are reported as
+ * zero rather than negative, so an overdamped edge reads 0 % overshoot.
+ *
+ * The region runs from the end of the transition to the start of the next one (or the end of
+ * the record), which for a clock is the whole settled half-period.
+ *
+ * @param volts samples, V
+ * @param transition the transition, from `findTransitions`
+ * @param stopIndex last sample of the post-transition region
+ * @param baseV low state level, V
+ * @param topV high state level, V
+ */
+export function postTransitionAberrations(
+  volts: Float64Array,
+  transition: Transition,
+  stopIndex: number,
+  baseV: number,
+  topV: number,
+): Aberrations {
+  const amplitudeV = topV - baseV;
+  const rising = transition.kind === 'rise';
+  const finalV = rising ? topV : baseV;
+  // Work in the direction of the transition so one loop serves both kinds.
+  const sign = rising ? 1 : -1;
+  let beyondV = Number.NEGATIVE_INFINITY;
+  let shortV = Number.POSITIVE_INFINITY;
+  let reached = false;
+  for (let i = transition.endIndex; i <= stopIndex; i++) {
+    const excessV = sign * (volts[i] - finalV);
+    if (excessV > beyondV) beyondV = excessV;
+    if (excessV >= 0) reached = true;
+    if (reached && excessV < shortV) shortV = excessV;
+  }
+  return {
+    overshootPct: Math.max(0, (100 * beyondV) / amplitudeV),
+    undershootPct: reached ? Math.max(0, (-100 * shortV) / amplitudeV) : 0,
+  };
+}

@@ -1,0 +1,193 @@
+/** The two state levels of a two-level waveform and what the histogram says about them. */
+export interface StateLevels {
+  /** Low state level (base), V. */
+  baseV: number;
+  /** High state level (top), V. */
+  topV: number;
+  /** False when the histogram shows one state only (a flat line, noise): then baseV = topV = the mean. */
+  twoStates: boolean;
+  /** Spread of the samples about the state levels (from the width of the histogram peaks), V. */
+  noiseV: number;
+  minV: number;
+  maxV: number;
+}
+
+/** Reference levels at 10 %, 50 % and 90 % of the amplitude above the base. */
+export interface ReferenceLevels {
+  lowV: number;
+  midV: number;
+  highV: number;
+}
+
+// A mode this many times the average count of its half is a peak; below it the half is a
+// ramp or a plateau-free slope (a triangle), and its extreme value is the better state level.
+const PEAK_FACTOR = 3;
+// An extreme bin holding this share of its half's average count is a plateau's edge (a
+// triangle's turning point), where a noise hump's tail holds next to nothing.
+const EXTREME_FACTOR = 0.5;
+const FINE_BINS = 64;
+// Two modes closer than this share of the full range are one state seen through noise.
+const MIN_AMPLITUDE_SHARE = 0.2;
+const FWHM_PER_SIGMA = 2 * Math.sqrt(2 * Math.LN2);
+
+/**
+ * Bins for the histogram: about 2·√n, even, from 32 to 4096. Enough resolution that the mode
+ * lands within 0.05 % of the range on a million samples, few enough that a thousand-sample
+ * capture still has populated bins.
+ */
+function binCountFor(sampleCount: number): number {
+  const bins = Math.round(Math.sqrt(sampleCount)) * 2;
+  return Math.min(4096, Math.max(32, bins));
+}
+
+/**
+ * State levels by the histogram method (IEEE Std 181-2011, 5.2.1): the samples are binned
+ * between their minimum and maximum, the histogram is split into a lower and an upper half at
+ * the middle of that range, and the mode of each half is a state level (base and top).
+ *
+ * Refinements beyond the bare mode, so that a level does not snap to a bin centre: the level
+ * is the mean of the samples in the bins about the mode that hold at least half its count (the
+ * peak's full width at half maximum), first on the coarse histogram and then on a fine one of
+ * the samples near it. A half without a clear peak but with a populated extreme bin (a
+ * triangle wave) takes its extreme sample, as the min/max method would; a half with neither
+ * (one flank of a single noise hump), or two levels closer than 20 % of the range, means one
+ * state only. Three passes over the samples; no sort.
+ *
+ * @param volts the samples, V
+ */
+export function stateLevels(volts: Float64Array): StateLevels {
+  const n = volts.length;
+  let minV = Number.POSITIVE_INFINITY;
+  let maxV = Number.NEGATIVE_INFINITY;
+  let sumV = 0;
+  for (let i = 0; i < n; i++) {
+    const v = volts[i];
+    if (v < minV) minV = v;
+    if (v > maxV) maxV = v;
+    sumV += v;
+  }
+  const meanV = n > 0 ? sumV / n : Number.NaN;
+  const rangeV = maxV - minV;
+  const flat: StateLevels = { baseV: meanV, topV: meanV, twoStates: false, noiseV: 0, minV, maxV };
+  if (n < 2 || !(rangeV > 0) || rangeV <= Math.abs(meanV) * 1e-12) return flat;
+
+  const bins = binCountFor(n);
+  const binWidthV = rangeV / bins;
+  const counts = new Uint32Array(bins);
+  const sums = new Float64Array(bins);
+  for (let i = 0; i < n; i++) {
+    const v = volts[i];
+    let bin = Math.floor((v - minV) / binWidthV);
+    if (bin >= bins) bin = bins - 1;
+    counts[bin]++;
+    sums[bin] += v;
+  }
+  const half = bins / 2;
+  const lowerCoarse = halfLevel(counts, sums, 0, half, binWidthV, 0, minV);
+  const upperCoarse = halfLevel(counts, sums, half, bins, binWidthV, bins - 1, maxV);
+  if (lowerCoarse === null || upperCoarse === null) return flat;
+  if (upperCoarse.levelV - lowerCoarse.levelV < MIN_AMPLITUDE_SHARE * rangeV) return flat;
+  const [lower, upper] = refine(volts, lowerCoarse, upperCoarse, binWidthV);
+  const noiseV = Math.max(lower.widthV, upper.widthV) / FWHM_PER_SIGMA;
+  return { baseV: lower.levelV, topV: upper.levelV, twoStates: true, noiseV, minV, maxV };
+}
+
+interface HalfLevel {
+  levelV: number;
+  widthV: number;
+}
+
+/**
+ * The state level of one half of the histogram, or null when the half has neither a peak nor
+ * populated extreme bins (one side of a single noise hump, which is no state at all).
+ */
+function halfLevel(
+  counts: Uint32Array,
+  sums: Float64Array,
+  from: number,
+  to: number,
+  binWidthV: number,
+  extremeBin: number,
+  extremeV: number,
+): HalfLevel | null {
+  let mode = from;
+  let total = 0;
+  for (let bin = from; bin < to; bin++) {
+    total += counts[bin];
+    if (counts[bin] > counts[mode]) mode = bin;
+  }
+  const averageCount = total / (to - from);
+  if (counts[mode] >= PEAK_FACTOR * averageCount) return peakAround(counts, sums, from, to, mode, binWidthV);
+  // widthV 0 marks a level taken from an extreme, which `refine` leaves alone
+  if (counts[extremeBin] >= EXTREME_FACTOR * averageCount) return { levelV: extremeV, widthV: 0 };
+  return null;
+}
+
+/** Mean of the samples in the bins about `mode` holding at least half its count (the FWHM). */
+function peakAround(
+  counts: Uint32Array,
+  sums: Float64Array,
+  from: number,
+  to: number,
+  mode: number,
+  binWidthV: number,
+): HalfLevel {
+  const peak = counts[mode];
+  let first = mode;
+  let last = mode;
+  while (first > from && 2 * counts[first - 1] >= peak) first--;
+  while (last < to - 1 && 2 * counts[last + 1] >= peak) last++;
+  let count = 0;
+  let sum = 0;
+  for (let bin = first; bin <= last; bin++) {
+    count += counts[bin];
+    sum += sums[bin];
+  }
+  return { levelV: sum / count, widthV: (last - first + 1) * binWidthV };
+}
+
+/**
+ * Second look at a coarse level: a histogram of only the samples within two coarse bins of
+ * it, `FINE_BINS` bins wide, and the FWHM mean of its peak. This takes the level from within
+ * a coarse bin (0.05–3 % of the range) to within a fine one, so that an exponential tail
+ * sharing the top bin with the settled samples does not pull the top level down.
+ */
+function refine(volts: Float64Array, lower: HalfLevel, upper: HalfLevel, coarseBinWidthV: number): HalfLevel[] {
+  const windowV = 2 * coarseBinWidthV;
+  const fineWidthV = (2 * windowV) / FINE_BINS;
+  const lowerCounts = new Uint32Array(FINE_BINS);
+  const lowerSums = new Float64Array(FINE_BINS);
+  const upperCounts = new Uint32Array(FINE_BINS);
+  const upperSums = new Float64Array(FINE_BINS);
+  const lowerFromV = lower.levelV - windowV;
+  const upperFromV = upper.levelV - windowV;
+  for (let i = 0; i < volts.length; i++) {
+    const v = volts[i];
+    const lowerBin = Math.floor((v - lowerFromV) / fineWidthV);
+    if (lowerBin >= 0 && lowerBin < FINE_BINS) {
+      lowerCounts[lowerBin]++;
+      lowerSums[lowerBin] += v;
+    }
+    const upperBin = Math.floor((v - upperFromV) / fineWidthV);
+    if (upperBin >= 0 && upperBin < FINE_BINS) {
+      upperCounts[upperBin]++;
+      upperSums[upperBin] += v;
+    }
+  }
+  const fine = (level: HalfLevel, counts: Uint32Array, sums: Float64Array): HalfLevel => {
+    if (level.widthV === 0) return level;
+    let mode = 0;
+    for (let bin = 1; bin < FINE_BINS; bin++) if (counts[bin] > counts[mode]) mode = bin;
+    return peakAround(counts, sums, 0, FINE_BINS, mode, fineWidthV);
+  };
+  return [fine(lower, lowerCounts, lowerSums), fine(upper, upperCounts, upperSums)];
+}
+
+/**
+ * Reference levels (IEEE Std 181-2011, 5.3.2): y(x %) = base + (x / 100)·(top − base), at the
+ * 10 %, 50 % and 90 % points the transition duration and the mid crossings are measured at.
+ */
+export function referenceLevels(baseV: number, topV: number): ReferenceLevels {
+  const amplitudeV = topV - baseV;
+  return { lowV: baseV + 0.1 * amplitudeV, midV: baseV + 0.5 * amplitudeV, highV: baseV + 0.9 * amplitudeV };
+}

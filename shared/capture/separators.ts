@@ -1,0 +1,38 @@
+import type { CaptureSeparator } from './types';
+
+/**
+ * The separator a line uses: a tab if it has one, else a semicolon, else a comma. That order
+ * lets a semicolon file keep commas as decimal marks ("0,5;1,25") and a tab file either mark.
+ */
+export function detectSeparator(line: string): CaptureSeparator | null {
+  if (line.includes('\t')) return '\t';
+  if (line.includes(';')) return ';';
+  if (line.includes(',')) return ',';
+  return null;
+}
+
+/**
+ * Splits a preamble or header line into cells, keeping separators inside double quotes
+ * ("Time, s") and dropping the quotes. Data rows do not come through here: they are read in
+ * place by the parser, since quoting numbers is rare and splitting allocates.
+ */
+export function splitCells(line: string, separator: CaptureSeparator): string[] {
+  if (!line.includes('"')) return line.split(separator).map((cell) => cell.trim());
+  const cells: string[] = [];
+  let cell = '';
+  let quoted = false;
+  for (let i = 0; i < line.length; i++) {
+    const char = line[i];
+    if (char === '"') {
+      if (quoted && line[i + 1] === '"') {
+        cell += '"';
+        i++;
+      } else quoted = !quoted;
+    } else if (char === separator && !quoted) {
+      cells.push(cell.trim());
+      cell = '';
+    } else cell += char;
+  }
+  cells.push(cell.trim());
+  return cells;
+}

@@ -60,7 +60,7 @@ const RINGING_EDGE_SHARE = 0.25;
  * time, overshoot and undershoot are means over the transitions; the ringing frequency is the
  * median over the transitions that ring. An edge faster than the sampling reads as about 0.8
  * sample intervals: rise times near `sampleIntervalS` are limited by the capture, not the signal.
- * A few linear passes over the samples; nothing is sorted.
+ * A few linear passes over the samples; the samples are never sorted.
  *
  * @param samples time (s, strictly increasing) and voltage (V), as `CaptureParser` returns them
  */
@@ -91,7 +91,7 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
   const { baseV, topV } = levels;
   const amplitudeV = topV - baseV;
   const reference = referenceLevels(baseV, topV);
-  const transitions = findTransitions(timesS, volts.subarray(0, points), reference);
+  const transitions = findTransitions(timesS, volts.subarray(0, points), reference, levels.noiseV);
   const edges: CaptureEdge[] = transitions.map((transition, index) => {
     const stopIndex = index + 1 < transitions.length ? transitions[index + 1].startIndex : points - 1;
     const finalV = transition.kind === 'rise' ? topV : baseV;

@@ -69,7 +69,9 @@ export function stateLevels(volts: Float64Array): StateLevels {
   const meanV = n > 0 ? sumV / n : Number.NaN;
   const rangeV = maxV - minV;
   const flat: StateLevels = { baseV: meanV, topV: meanV, twoStates: false, noiseV: 0, minV, maxV };
-  if (n < 2 || !(rangeV > 0) || rangeV <= Math.abs(meanV) * 1e-12) return flat;
+  if (n < 2) return flat;
+  if (!(rangeV > 0)) return { ...flat, baseV: minV, topV: minV };
+  if (rangeV <= Math.abs(meanV) * 1e-12) return flat;
 
   const bins = binCountFor(n);
   const binWidthV = rangeV / bins;
@@ -147,40 +149,44 @@ function peakAround(
 }
 
 /**
- * Second look at a coarse level: a histogram of only the samples within two coarse bins of
- * it, `FINE_BINS` bins wide, and the FWHM mean of its peak. This takes the level from within
- * a coarse bin (0.05–3 % of the range) to within a fine one, so that an exponential tail
- * sharing the top bin with the settled samples does not pull the top level down.
+ * Second look at a coarse level: a histogram of only the samples within the coarse peak's
+ * full width (at least two coarse bins) either side of it, `FINE_BINS` bins wide, and the FWHM
+ * mean of its peak. This takes the level from within a coarse bin (0.05–3 % of the range) to
+ * within a fine one, so that an exponential tail sharing the top bin with the settled samples
+ * does not pull the top level down, and measures the width of a noise peak that the coarse
+ * bins resolve only roughly.
  */
 function refine(volts: Float64Array, lower: HalfLevel, upper: HalfLevel, coarseBinWidthV: number): HalfLevel[] {
-  const windowV = 2 * coarseBinWidthV;
-  const fineWidthV = (2 * windowV) / FINE_BINS;
+  const lowerHalfV = Math.max(2 * coarseBinWidthV, lower.widthV);
+  const upperHalfV = Math.max(2 * coarseBinWidthV, upper.widthV);
+  const lowerFineV = (2 * lowerHalfV) / FINE_BINS;
+  const upperFineV = (2 * upperHalfV) / FINE_BINS;
   const lowerCounts = new Uint32Array(FINE_BINS);
   const lowerSums = new Float64Array(FINE_BINS);
   const upperCounts = new Uint32Array(FINE_BINS);
   const upperSums = new Float64Array(FINE_BINS);
-  const lowerFromV = lower.levelV - windowV;
-  const upperFromV = upper.levelV - windowV;
+  const lowerFromV = lower.levelV - lowerHalfV;
+  const upperFromV = upper.levelV - upperHalfV;
   for (let i = 0; i < volts.length; i++) {
     const v = volts[i];
-    const lowerBin = Math.floor((v - lowerFromV) / fineWidthV);
+    const lowerBin = Math.floor((v - lowerFromV) / lowerFineV);
     if (lowerBin >= 0 && lowerBin < FINE_BINS) {
       lowerCounts[lowerBin]++;
       lowerSums[lowerBin] += v;
     }
-    const upperBin = Math.floor((v - upperFromV) / fineWidthV);
+    const upperBin = Math.floor((v - upperFromV) / upperFineV);
     if (upperBin >= 0 && upperBin < FINE_BINS) {
       upperCounts[upperBin]++;
       upperSums[upperBin] += v;
     }
   }
-  const fine = (level: HalfLevel, counts: Uint32Array, sums: Float64Array): HalfLevel => {
+  const fine = (level: HalfLevel, counts: Uint32Array, sums: Float64Array, binWidthV: number): HalfLevel => {
     if (level.widthV === 0) return level;
     let mode = 0;
     for (let bin = 1; bin < FINE_BINS; bin++) if (counts[bin] > counts[mode]) mode = bin;
-    return peakAround(counts, sums, 0, FINE_BINS, mode, fineWidthV);
+    return peakAround(counts, sums, 0, FINE_BINS, mode, binWidthV);
   };
-  return [fine(lower, lowerCounts, lowerSums), fine(upper, upperCounts, upperSums)];
+  return [fine(lower, lowerCounts, lowerSums, lowerFineV), fine(upper, upperCounts, upperSums, upperFineV)];
 }
 
 /**

@@ -1,19 +1,13 @@
-import { checkColumnOptions, chooseLayout, type DataLayout } from './data-layout';
-import { isUnitOnly } from './header-units';
+import { checkColumnOptions, type DataLayout } from './data-layout';
 import { describeRowProblem, quoteCell } from './parse-messages';
+import { COMMENT, Preamble } from './preamble';
 import { readNumber } from './read-number';
 import { SampleBuffer } from './sample-buffer';
-import { detectSeparator, splitCells } from './separators';
 import type { CaptureParseError, CaptureParseOptions, ParseResult } from './types';
 
 const MAX_LINE_CHARS = 1 << 20;
-const MAX_PREAMBLE_LINES = 10_000;
-// A run this long of lone numbers is a one-column file, not a preamble: stop reading early.
-const SINGLE_NUMBER_LINES_TO_GIVE_UP = 64;
 // C0 controls other than tab, LF, VT, FF, CR and the DOS end-of-file mark never occur in text.
 const CONTROL = /[\u0000-\u0008\u000e-\u0019\u001b-\u001f]/u;
-const COMMENT = /^\s*(?:#|\/\/|%|'|;)/u;
-const SPACED_NUMBERS = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?\s+[-+]?\.?\d/u;
 
 /**
  * Reads a CSV capture (time, voltage) a chunk at a time, holding only the unfinished last line
@@ -43,6 +37,7 @@ const SPACED_NUMBERS = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?\s+[-+]?\.?\d/
 export class CaptureParser {
   private readonly options: CaptureParseOptions;
   private readonly buffer = new SampleBuffer();
+  private readonly preamble: Preamble;
   private readonly notes: string[] = [];
   private error: CaptureParseError | null = null;
   private pending = '';
@@ -53,18 +48,13 @@ export class CaptureParser {
   private separatorCode = 0;
   private timeIndex = 0;
   private voltageIndex = 1;
-  private header: { line: number; cells: string[] } | null = null;
   private headerLine: number | null = null;
   private firstDataLine = 0;
-  private preambleLines = 0;
-  private singleNumberLines: number[] = [];
-  private narrowRowLines: number[] = [];
-  private narrowLayout: DataLayout | null = null;
-  private spacedLine: number | null = null;
   private footer: { error: CaptureParseError; count: number } | null = null;
 
   constructor(options: CaptureParseOptions = {}) {
     this.options = { ...options };
+    this.preamble = new Preamble(this.options);
     const problem = checkColumnOptions(this.options);
     if (problem !== null) this.error = { message: problem };
   }
@@ -219,36 +209,10 @@ export class CaptureParser {
   }
 
   private readPreambleLine(line: string, isFinal: boolean): void {
-    const trimmed = line.trim();
-    if (trimmed === '') return;
-    if (++this.preambleLines > MAX_PREAMBLE_LINES) {
-      return this.fail({ message: `no numeric rows in the first ${MAX_PREAMBLE_LINES} lines`, line: this.line });
-    }
-    const separator = detectSeparator(trimmed);
-    if (separator === null) {
-      if (!Number.isNaN(readNumber(trimmed, 0, trimmed.length, true, 0))) {
-        this.singleNumberLines.push(this.line);
-        if (this.singleNumberLines.length >= SINGLE_NUMBER_LINES_TO_GIVE_UP) this.fail(this.noDataError());
-      } else if (SPACED_NUMBERS.test(trimmed)) this.spacedLine ??= this.line;
-      return;
-    }
-    const cells = splitCells(trimmed, separator);
-    const layout = chooseLayout(separator, this.header?.cells ?? null, this.options);
-    const isNumber = (index: number) =>
-      index < cells.length && !Number.isNaN(readNumber(cells[index], 0, cells[index].length, layout.decimalComma, 0));
-    if (isNumber(layout.time.index) && isNumber(layout.voltage.index)) return this.startData(layout, line, isFinal);
-    const numericCells = cells.filter((_, index) => isNumber(index)).length;
-    if (numericCells >= 2) {
-      this.narrowRowLines.push(this.line);
-      this.narrowLayout ??= layout;
-    }
-    if (COMMENT.test(trimmed)) return;
-    if (numericCells > 0 || cells.length < 2) {
-      this.header = null;
-    } else if (this.header !== null && this.header.line === this.line - 1 && cells.every((c) => c === '' || isUnitOnly(c))) {
-      this.header.cells = this.header.cells.map((name, index) => (cells[index] ? `${name} ${cells[index]}` : name));
-      this.header.line = this.line;
-    } else this.header = { line: this.line, cells };
+    const verdict = this.preamble.read(line, this.line);
+    if (verdict === null) return;
+    if ('error' in verdict) return this.fail(verdict.error);
+    this.startData(verdict.layout, line, isFinal);
   }
 
   private startData(layout: DataLayout, line: string, isFinal: boolean): void {
@@ -256,7 +220,7 @@ export class CaptureParser {
     this.separatorCode = layout.separator.charCodeAt(0);
     this.timeIndex = layout.time.index;
     this.voltageIndex = layout.voltage.index;
-    this.headerLine = this.header?.line ?? null;
+    this.headerLine = this.preamble.headerLine();
     this.firstDataLine = this.line;
     this.readDataLine(line, 0, line.length, isFinal);
   }
@@ -266,38 +230,10 @@ export class CaptureParser {
     this.pending = '';
   }
 
-  private noDataError(): CaptureParseError {
-    if (this.spacedLine !== null) {
-      return {
-        message: `line ${this.spacedLine}: columns separated by spaces are not supported; separate them with commas, semicolons or tabs`,
-        line: this.spacedLine,
-        expected: 'a comma, semicolon or tab between columns',
-      };
-    }
-    const single = this.singleNumberLines;
-    const narrow = this.narrowRowLines;
-    if (single.length > 0 && single.length >= narrow.length) {
-      return {
-        message: `only one column: line ${single[0]} holds a single number; a capture needs a time column and a voltage column`,
-        line: single[0],
-        expected: 'two columns: time and voltage',
-      };
-    }
-    if (narrow.length > 0 && this.narrowLayout !== null) {
-      const expected = `numbers in column ${this.narrowLayout.time.index + 1} (time) and column ${this.narrowLayout.voltage.index + 1} (voltage)`;
-      return {
-        message: `no numeric rows found with ${expected}; line ${narrow[0]} has numbers in other columns`,
-        line: narrow[0],
-        expected,
-      };
-    }
-    return { message: this.line === 0 ? 'the file is empty' : 'no numeric rows found' };
-  }
-
   private result(): ParseResult {
     if (this.error !== null) return { ok: false, error: this.error };
     const layout = this.layout;
-    if (layout === null) return { ok: false, error: this.noDataError() };
+    if (layout === null) return { ok: false, error: this.preamble.noDataError(this.line) };
     if (this.buffer.length < 2) {
       return {
         ok: false,

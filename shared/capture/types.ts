@@ -31,7 +31,7 @@ export interface ParsedCapture {
   time: CaptureColumn;
   voltage: CaptureColumn;
   separator: CaptureSeparator;
-  /** True when a comma inside a cell was read as the decimal mark (separator `;` or tab). */
+  /** True when commas inside cells are read as decimal marks: with a `;` or tab separator. */
   decimalComma: boolean;
   /** Line of the header row, or null when the file has none. */
   headerLine: number | null;

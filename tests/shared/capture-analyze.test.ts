@@ -1,0 +1,122 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { analyzeCapture } from '../../shared/capture/analyze';
+import { parseCaptureText } from '../../shared/capture/parse';
+import { medianSampleIntervalS } from '../../shared/capture/sample-interval';
+import {
+  addNoise,
+  firstOrderStep,
+  mulberry32,
+  sampleUniformly,
+  secondOrderStep,
+  squareWaveform,
+} from '../../shared/capture/synthetic';
+
+// The `POST /api/captures/analyze` response fields (shared/DESIGN.md, HTTP contract).
+const CONTRACT_FIELDS = [
+  'points', 'sampleIntervalS', 'baseV', 'topV', 'amplitudeV', 'riseTimeS', 'fallTimeS',
+  'overshootPct', 'ringingFrequencyHz', 'periodS',
+];
+
+describe('analyzeCapture', () => {
+  const clock = sampleUniformly(squareWaveform(secondOrderStep(30e6, 0.25), { periodS: 1e-6, baseV: 0, topV: 3.3 }), {
+    sampleIntervalS: 1e-9,
+    points: 5000,
+  });
+
+  it('should answer every contract field, as JSON numbers', () => {
+    const analysis = analyzeCapture(clock);
+    for (const field of CONTRACT_FIELDS) {
+      expect(typeof (analysis as unknown as Record<string, unknown>)[field]).toBe('number');
+    }
+    expect(analysis.amplitudeV).toBeCloseTo(3.3, 3);
+    expect(JSON.parse(JSON.stringify(analysis))).toEqual(analysis);
+  });
+
+  it('should answer null for what a flat line does not have', () => {
+    const flat = sampleUniformly(() => 0.8, { sampleIntervalS: 2e-9, points: 3000 });
+    const analysis = analyzeCapture(flat);
+    expect(analysis).toMatchObject({
+      points: 3000,
+      baseV: 0.8,
+      topV: 0.8,
+      amplitudeV: 0,
+      riseTimeS: null,
+      fallTimeS: null,
+      overshootPct: null,
+      undershootPct: null,
+      ringingFrequencyHz: null,
+      periodS: null,
+      frequencyHz: null,
+      edges: [],
+      referenceLevels: null,
+    });
+    expect(analysis.sampleIntervalS).toBeCloseTo(2e-9, 20);
+    expect(JSON.stringify(analysis)).not.toMatch(/NaN|Infinity/);
+  });
+
+  it('should answer null levels, not throw, for fewer than two samples', () => {
+    const analysis = analyzeCapture({ timesS: new Float64Array([0]), volts: new Float64Array([1]) });
+    expect(analysis.points).toBe(1);
+    expect(analysis.sampleIntervalS).toBeNull();
+    expect(analysis.baseV).toBeNull();
+  });
+
+  it('should measure a CSV capture written in µs and mV, answering in SI units', () => {
+    const rows = ['Time (us),CH1 (mV)'];
+    for (let k = 0; k < clock.timesS.length; k++) rows.push(`${(clock.timesS[k] * 1e6).toFixed(3)},${(clock.volts[k] * 1000).toFixed(3)}`);
+    const parsed = parseCaptureText(rows.join('\n'));
+    if (!parsed.ok) throw new Error(parsed.error.message);
+    const fromCsv = analyzeCapture(parsed.samples);
+    const direct = analyzeCapture(clock);
+    expect(fromCsv.sampleIntervalS).toBeCloseTo(1e-9, 18);
+    expect(fromCsv.amplitudeV).toBeCloseTo(direct.amplitudeV!, 4);
+    expect(fromCsv.periodS).toBeCloseTo(direct.periodS!, 12);
+    expect(Math.abs(fromCsv.riseTimeS! / direct.riseTimeS! - 1)).toBeLessThan(1e-3);
+  });
+
+  it('should list at most maxListedEdges edges but count them all', () => {
+    const analysis = analyzeCapture(clock, { maxListedEdges: 3 });
+    expect(analysis.edgeCount).toBe(10);
+    expect(analysis.edges).toHaveLength(3);
+  });
+
+  it('should measure a 1,000,000-sample capture', () => {
+    const big = sampleUniformly(squareWaveform(firstOrderStep(5e-9), { periodS: 1e-5, baseV: 0, topV: 1 }), {
+      sampleIntervalS: 1e-9,
+      points: 1_000_000,
+    });
+    addNoise(big.volts, 0.005, 1);
+    const analysis = analyzeCapture(big);
+    expect(analysis.points).toBe(1_000_000);
+    expect(analysis.edgeCount).toBe(200);
+    expect(Math.abs(analysis.periodS! / 1e-5 - 1)).toBeLessThan(1e-5);
+    expect(Math.abs(analysis.riseTimeS! / (5e-9 * Math.log(9)) - 1)).toBeLessThan(0.03);
+  });
+});
+
+describe('medianSampleIntervalS', () => {
+  // source: the definition of the median, checked against a plain sort
+  const sortedMedian = (values: number[]) => {
+    const sorted = [...values].sort((a, b) => a - b);
+    const middle = sorted.length >> 1;
+    return sorted.length % 2 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+  };
+
+  it('should be the sample interval of a uniform capture', () => {
+    expect(medianSampleIntervalS(new Float64Array([0, 2e-9, 4e-9, 6e-9]))).toBe(2e-9);
+  });
+
+  it('should equal the median of the spacings of a non-uniform capture', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 2, max: 400 }), fc.integer(), (points, seed) => {
+        const random = mulberry32(seed);
+        const timesS = new Float64Array(points);
+        for (let k = 1; k < points; k++) timesS[k] = timesS[k - 1] + 1e-9 * (0.5 + random() * (random() < 0.05 ? 20 : 1));
+        const spacings = Array.from({ length: points - 1 }, (_, k) => timesS[k + 1] - timesS[k]);
+        expect(medianSampleIntervalS(timesS)).toBe(sortedMedian(spacings));
+      }),
+      { numRuns: 300 },
+    );
+  });
+});

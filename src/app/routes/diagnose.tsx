@@ -1,0 +1,3 @@
+import { DiagnosePage } from '../../features/diagnosis/components/DiagnosePage';
+
+export const DiagnoseRoute = DiagnosePage;

@@ -12,6 +12,13 @@ export interface StoredDiagnosis {
   engineTags: string[];
 }
 
+/** The engine's top cause, or null when nothing was recorded that sets one cause apart (a tie at the top). */
+export function clearTopCause(diagnosis: DiagnosisResult | null): Cause | null {
+  const [top, second] = diagnosis?.hypotheses ?? [];
+  if (!top || top.likelihood <= 0) return null;
+  return second && top.likelihood - second.likelihood < 1e-3 ? null : top.cause;
+}
+
 /** The server's own recomputation on every save, so a stored diagnosis never trusts the client. */
 export function recomputeDiagnosis(setup: CaseSetup, statedCause: StatedCause | null | undefined): StoredDiagnosis {
   let diagnosis: DiagnosisResult | null = null;
@@ -21,8 +28,7 @@ export function recomputeDiagnosis(setup: CaseSetup, statedCause: StatedCause | 
     // a model bug must not lose the author's save; the case shows no diagnosis instead
     console.error('[falsetrace] diagnosis failed:', err);
   }
-  const top = diagnosis?.hypotheses[0];
-  const engineCause = top && top.likelihood > 0 ? top.cause : null;
+  const engineCause = clearTopCause(diagnosis);
   const disagrees = Boolean(statedCause && (CAUSES as readonly string[]).includes(statedCause) && engineCause && engineCause !== statedCause);
   return {
     diagnosis,

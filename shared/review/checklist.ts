@@ -30,6 +30,8 @@ export function reviewChecklist(c: Case): CheckItem[] {
   if (!stated) engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: 'No root cause is stated.' };
   else if (stated === 'other') engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: `Stated cause is outside the engine's models (${c.statedCauseOther ?? 'other'}); judge it yourself.` };
   else if (!top) engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: 'No diagnosis was computed for this setup.' };
+  else if (c.diagnosis!.hypotheses[1] && top.likelihood - c.diagnosis!.hypotheses[1].likelihood < 1e-3)
+    engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: 'The recorded setup does not single out one cause; ask for the setup values and the observation.' };
   else {
     const statedH = c.diagnosis!.hypotheses.find((h) => h.cause === stated);
     const agrees = top.cause === stated;

@@ -1,5 +1,13 @@
 import type { CaseCreateInput, CaseSetup } from '../schemas/case';
 import { CAUSE_LABELS, type Cause } from '../schemas/diagnosis';
+import { formatEngineering } from '../units/engineering';
+
+// Unit from a field name's suffix: tipCapacitanceF → F, sourceResistanceOhm → Ω …
+const UNIT_SUFFIXES: [RegExp, string][] = [[/Ohm$/, 'Ω'], [/Hz$/, 'Hz'], [/F$/, 'F'], [/S$/, 's'], [/V$/, 'V'], [/M$/, 'm']];
+const show = (key: string, value: number) => {
+  const unit = UNIT_SUFFIXES.find(([re]) => re.test(key))?.[1];
+  return unit ? formatEngineering(value, unit) : String(value);
+};
 
 const flatten = (prefix: string, value: unknown, out: string[]) => {
   if (value === null || value === undefined || value === '') return;
@@ -7,7 +15,7 @@ const flatten = (prefix: string, value: unknown, out: string[]) => {
     for (const [k, v] of Object.entries(value as Record<string, unknown>).sort(([a], [b]) => a.localeCompare(b))) flatten(`${prefix}.${k}`, v, out);
     return;
   }
-  out.push(`${prefix}: ${Array.isArray(value) ? value.join(', ') : String(value)}`);
+  out.push(`${prefix}: ${Array.isArray(value) ? value.join(', ') : typeof value === 'number' ? show(prefix, value) : String(value)}`);
 };
 
 /** A plain-text rendering of a revision, one fact per line, so a line diff reads like a change log. */

@@ -168,13 +168,14 @@ describe('case write-ups', () => {
     const c = (await author.post('/api/cases', { title: 'Slow edges on the SPI clock', summary: 'edges looked 40 ns slow', tags: ['spi'] })).body.case;
     await author.patch(`/api/cases/${c.id}`, { summary: 'draft edits keep no revision' }).expect(200);
     await author.post(`/api/cases/${c.id}/submit`).expect(200);
-    await mod.patch(`/api/cases/${c.id}`, { summary: 'edges looked 40 ns slow with the 1x probe', setup: { probe: { nominalAttenuation: 1 } } }).expect(200);
+    await mod.patch(`/api/cases/${c.id}`, { summary: 'edges looked 40 ns slow with the 1x probe', setup: { probe: { nominalAttenuation: 1, tipCapacitanceF: 95e-12 } } }).expect(200);
     const { revisions } = (await author.get(`/api/cases/${c.id}/revisions`).expect(200)).body;
     expect(revisions.map((r: { number: number }) => r.number)).toEqual([2, 1]);
     expect(revisions[0].authorName).toBe('Tomasz Lindqvist');
     const { diff } = (await author.get(`/api/cases/${c.id}/revisions/diff?from=1&to=2`).expect(200)).body;
     expect(diff.filter((d: { kind: string }) => d.kind === 'removed').map((d: { text: string }) => d.text).join('')).toContain('Summary: draft edits keep no revision');
     expect(diff.filter((d: { kind: string }) => d.kind === 'added').map((d: { text: string }) => d.text).join('')).toContain('setup.probe.nominalAttenuation: 1');
+    expect(diff.map((d: { text: string }) => d.text).join('')).toContain('setup.probe.tipCapacitanceF: 95 pF');
     await author.get(`/api/cases/${c.id}/revisions/diff?from=1&to=9`).expect(404);
   });
 

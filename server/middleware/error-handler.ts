@@ -13,6 +13,11 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     res.status(413).json({ error: 'The upload is too large' });
     return;
   }
+  if (err?.code === 'ENOENT') {
+    // a file that went missing on disk: say so without the server's path
+    res.status(404).json({ error: 'Not found' });
+    return;
+  }
   if (status >= 400 && status < 500) {
     res.status(status).json({ error: err?.type === 'entity.parse.failed' ? 'The request body is not valid JSON' : String(err?.message ?? 'Bad request') });
     return;

@@ -1,0 +1,91 @@
+import { canSeeCase } from '../../shared/auth/case-policy';
+import { canModerate, type Actor } from '../../shared/auth/roles';
+import { symptomNumbersFit } from '../../shared/search/case-numbers';
+import { readSymptomQuery, type SymptomReading } from '../../shared/search/symptom-query';
+import type { SearchQuery } from '../../shared/schemas/search';
+import type { CaseFacts } from './case-document';
+import type { CaseIndex } from './case-index';
+import { countFacets, type Facets } from './facets';
+import { planQuery } from './query-plan';
+import { runTextQuery } from './run-query';
+import { topK } from './top-k';
+
+export interface Ranked {
+  id: number;
+  score: number;
+}
+
+export interface RankedPage {
+  page: Ranked[];
+  total: number;
+  facets: Facets;
+  reading: SymptomReading | null;
+  /** Index terms the query stood for, to mark in highlights. */
+  terms: Set<string>;
+}
+
+/** A case whose engine diagnosis (not its stated cause) names the inferred cause counts this much. */
+const ENGINE_CAUSE_MATCH = 0.6;
+/** With a symptom reading, how much the cause and numbers weigh against the words. */
+const SYMPTOM_WEIGHT = 0.6;
+
+/** Who may see what, as a test per case id; moderators see everything. */
+export function visibilityOf(index: CaseIndex, actor: Actor): (id: number) => boolean {
+  if (canModerate(actor)) return (id) => index.facts.has(id);
+  return (id) => {
+    const f = index.facts.get(id);
+    return f !== undefined && canSeeCase(actor, { authorId: f.authorId, status: f.status });
+  };
+}
+
+/**
+ * How well a case fits a symptom reading, in [0, 1]: the engine's likelihood for the cause the
+ * case is filed under (less when only its engine diagnosis names it), scaled by how near the
+ * case's own numbers are to the numbers the query stated.
+ */
+function symptomFit(reading: SymptomReading, f: CaseFacts): number {
+  let cause = 0;
+  for (const c of reading.causes) {
+    if (f.cause === c.cause) cause = Math.max(cause, c.likelihood);
+    else if (f.engineCause === c.cause) cause = Math.max(cause, ENGINE_CAUSE_MATCH * c.likelihood);
+  }
+  if (cause === 0) return 0;
+  const numbers = symptomNumbersFit(reading.numbers, f.numbers);
+  return cause * (numbers === undefined ? 0.8 : 0.4 + 0.6 * numbers);
+}
+
+/**
+ * The search: words through the index, the symptom reading through the engine, blended.
+ * score = text (normalised to the best match, times the share of words matched) when the
+ * query is only words; with a reading, 0.4·text + 0.6·fit, and cases filed under an inferred
+ * cause join the candidates even when they share no word with the query.
+ * Facets count the visible candidates; each facet ignores its own filter (so picking one
+ * cause still shows how many the other causes have).
+ */
+export function rankCases(index: CaseIndex, actor: Actor, query: SearchQuery, synonyms: Map<string, string>): RankedPage {
+  const visible = visibilityOf(index, actor);
+  const hasWords = query.q.trim() !== '';
+  const text = hasWords ? runTextQuery(index, planQuery(query.q, index, synonyms), visible) : undefined;
+  const reading = hasWords ? readSymptomQuery(query.q) : null;
+
+  const scores = new Map<number, number>();
+  if (text) {
+    let best = 0;
+    for (const s of text.scores.values()) if (s > best) best = s;
+    for (const [id, s] of text.scores) scores.set(id, ((best > 0 ? s / best : 0) * text.coverage(id)) * (reading ? 1 - SYMPTOM_WEIGHT : 1));
+  }
+  if (reading && reading.causes.length > 0) {
+    for (const [id, f] of index.facts) {
+      const fit = symptomFit(reading, f);
+      if (fit > 0 && visible(id)) scores.set(id, (scores.get(id) ?? 0) + SYMPTOM_WEIGHT * fit);
+    }
+  }
+  if (!hasWords) for (const id of index.facts.keys()) if (visible(id)) scores.set(id, 0);
+
+  const { facets, passing } = countFacets(index, scores.keys(), query);
+  const byUpdate = (a: Ranked, b: Ranked) => index.facts.get(b.id)!.updatedAt.localeCompare(index.facts.get(a.id)!.updatedAt);
+  const ranked = passing.map((id) => ({ id, score: scores.get(id)! }));
+  const start = (query.page - 1) * query.pageSize;
+  const upTo = topK(ranked, start + query.pageSize, (a, b) => b.score - a.score || byUpdate(a, b) || b.id - a.id);
+  return { page: upTo.slice(start), total: ranked.length, facets, reading, terms: text?.terms ?? new Set() };
+}

@@ -1,0 +1,72 @@
+import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import type { CaseFacts } from './case-document';
+import type { EngineHeader } from './case-engine';
+import { CaseEngine } from './case-engine';
+import { CaseIndex, INDEX_OPTIONS, type IndexTuning } from './case-index';
+import { HeavyTerms, type SerializedHeavyTerms } from './heavy-terms';
+
+/** Bump when the analysis or the document layout changes: older snapshots are then rebuilt. */
+export const SNAPSHOT_VERSION = 1;
+
+interface SnapshotHeader {
+  version: number;
+  /** The index's own fingerprint of what it holds (see `indexStamp`). */
+  stamp: string;
+  engine: EngineHeader;
+  heavy: SerializedHeavyTerms;
+  facts: [number, CaseFacts][];
+}
+
+export const snapshotPath = (dataDir: string) => path.join(dataDir, 'search', 'case-index.snapshot');
+
+/**
+ * The same fingerprint `searchSourceStamp` computes from the database, computed from what the
+ * index holds. Written with the snapshot: a database that changed behind the index's back (a
+ * write that did not sync, a tag renamed) then no longer matches, and the index is rebuilt.
+ */
+export function indexStamp(index: CaseIndex, synonyms: { count: number; length: number }): string {
+  let latest = '';
+  let ids = 0;
+  let tags = 0;
+  let tagLength = 0;
+  for (const [id, f] of index.facts) {
+    if (f.updatedAt > latest) latest = f.updatedAt;
+    ids += id;
+    tags += f.tags.length;
+    for (const t of f.tags) tagLength += t.length;
+  }
+  return [index.facts.size, latest, ids, tags, tagLength, synonyms.count, synonyms.length].join('|');
+}
+
+/** One file: a 4-byte length, the JSON header, then the postings. Written aside, then renamed into place. */
+export function writeSnapshot(dataDir: string, index: CaseIndex, stamp: string) {
+  const { header, postings } = index.engine.encode();
+  const json = Buffer.from(JSON.stringify({ version: SNAPSHOT_VERSION, stamp, engine: header, heavy: index.heavy.toJSON(), facts: [...index.facts] } satisfies SnapshotHeader));
+  const length = Buffer.alloc(4);
+  length.writeUInt32LE(json.length);
+  const file = snapshotPath(dataDir);
+  mkdirSync(path.dirname(file), { recursive: true });
+  writeFileSync(`${file}.tmp`, Buffer.concat([length, json, postings]));
+  renameSync(`${file}.tmp`, file);
+}
+
+/** The snapshot's index when it exists, is readable, and matches `stamp`; otherwise undefined. */
+export function readSnapshot(dataDir: string, stamp: string, tuning?: IndexTuning): CaseIndex | undefined {
+  const file = snapshotPath(dataDir);
+  if (!existsSync(file)) return undefined;
+  try {
+    const bytes = readFileSync(file);
+    const length = bytes.readUInt32LE(0);
+    const header = JSON.parse(bytes.subarray(4, 4 + length).toString('utf8')) as SnapshotHeader;
+    if (header.version !== SNAPSHOT_VERSION || header.stamp !== stamp) return undefined;
+    // the postings must start on a 4-byte boundary for the Uint32 view
+    const postings = Buffer.from(bytes.subarray(4 + length));
+    const index = new CaseIndex(CaseEngine.decode(header.engine, postings, INDEX_OPTIONS), HeavyTerms.fromJSON(header.heavy), tuning);
+    for (const [id, f] of header.facts) index.facts.set(id, f);
+    return index;
+  } catch (err) {
+    console.error('[falsetrace] search snapshot unreadable, rebuilding:', (err as Error).message);
+    return undefined;
+  }
+}

@@ -1,0 +1,71 @@
+/**
+ * Inflection stripping so that "rings", "ringing" and "ring" meet in one index term.
+ * Only the inflectional steps (plural, -ed, -ing, final y) of the Porter suffix-stripping
+ * algorithm: derivational suffixes ("-ation") stay, so stems remain readable words.
+ * source: M. F. Porter, "An algorithm for suffix stripping", Program 14(3), 1980, steps 1a–1c
+ */
+export function stem(word: string): string {
+  if (word.length <= 3 || !/^[a-z]+$/.test(word)) return word;
+  let w = step1a(word);
+  w = step1b(w);
+  return step1c(w);
+}
+
+const isConsonant = (w: string, i: number): boolean => {
+  const c = w[i];
+  if ('aeiou'.includes(c)) return false;
+  if (c === 'y') return i === 0 || !isConsonant(w, i - 1);
+  return true;
+};
+
+/** Porter's measure m: the number of vowel–consonant sequences in the stem. */
+function measure(w: string): number {
+  let m = 0;
+  let i = 0;
+  const n = w.length;
+  while (i < n && isConsonant(w, i)) i++;
+  while (i < n) {
+    while (i < n && !isConsonant(w, i)) i++;
+    if (i >= n) break;
+    while (i < n && isConsonant(w, i)) i++;
+    m++;
+  }
+  return m;
+}
+
+const hasVowel = (w: string) => {
+  for (let i = 0; i < w.length; i++) if (!isConsonant(w, i)) return true;
+  return false;
+};
+const endsDoubleConsonant = (w: string) => w.length >= 2 && w[w.length - 1] === w[w.length - 2] && isConsonant(w, w.length - 1);
+/** *o: the stem ends consonant–vowel–consonant, the last not w, x or y ("hop", not "snow"). */
+const endsCvc = (w: string) => {
+  const n = w.length;
+  return n >= 3 && isConsonant(w, n - 3) && !isConsonant(w, n - 2) && isConsonant(w, n - 1) && !'wxy'.includes(w[n - 1]);
+};
+
+function step1a(w: string): string {
+  if (w.endsWith('sses')) return w.slice(0, -2);
+  if (w.endsWith('ies')) return w.slice(0, -2);
+  if (w.endsWith('ss')) return w;
+  if (w.endsWith('s') && !w.endsWith('us') && !w.endsWith('is')) return w.slice(0, -1);
+  return w;
+}
+
+function step1b(w: string): string {
+  if (w.endsWith('eed')) return measure(w.slice(0, -3)) > 0 ? w.slice(0, -1) : w;
+  for (const suffix of ['ed', 'ing']) {
+    if (!w.endsWith(suffix)) continue;
+    const base = w.slice(0, -suffix.length);
+    if (!hasVowel(base)) return w;
+    if (base.endsWith('at') || base.endsWith('bl') || base.endsWith('iz')) return `${base}e`;
+    if (endsDoubleConsonant(base) && !'lsz'.includes(base[base.length - 1])) return base.slice(0, -1);
+    if (measure(base) === 1 && endsCvc(base)) return `${base}e`;
+    return base;
+  }
+  return w;
+}
+
+function step1c(w: string): string {
+  return w.endsWith('y') && hasVowel(w.slice(0, -1)) ? `${w.slice(0, -1)}i` : w;
+}

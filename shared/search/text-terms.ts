@@ -1,0 +1,108 @@
+import { STOPWORDS } from './stopwords';
+import { stem } from './stem';
+import { PHRASES, canonicalToken, quantityTerm } from './synonyms';
+
+/** An index term and where in the text it came from (UTF-16 offsets, end exclusive). */
+export interface TermAt {
+  term: string;
+  start: number;
+  end: number;
+  /** The token as written, normalised but not stemmed (for as-you-type prefix matching). */
+  surface: string;
+}
+
+interface Token {
+  text: string;
+  start: number;
+  end: number;
+}
+
+// letters/digits with inner joiners ("10x-at-1x", "1.2", "scope's"), an optional leading ×, or a lone %
+const TOKEN = /×?[\p{L}\p{N}]+(?:['’.\-+/][\p{L}\p{N}]+)*%?|%/gu;
+
+const ASCII = /^[\x00-\x7f]*$/;
+const normalize = (raw: string) => (ASCII.test(raw) ? raw : raw.normalize('NFKC')).toLowerCase().replace(/['’]s$/, '');
+
+function rawTokens(text: string): Token[] {
+  const out: Token[] = [];
+  for (const m of text.matchAll(TOKEN)) {
+    const start = m.index;
+    const norm = normalize(m[0]);
+    const parts = norm.includes('-') || norm.includes('/') ? norm.split(/[-/]/) : undefined;
+    if (parts && parts.every((p) => p !== '')) {
+      // "ground-lead", "10x-at-1x", "1x/10x": the parts are the words
+      let at = start;
+      for (const p of parts) {
+        out.push({ text: p, start: at, end: at + p.length });
+        at += p.length + 1;
+      }
+    } else {
+      out.push({ text: norm, start, end: start + m[0].length });
+    }
+  }
+  return out;
+}
+
+const PHRASES_BY_FIRST = new Map<string, (typeof PHRASES)[number][]>();
+for (const p of PHRASES) PHRASES_BY_FIRST.set(p.words[0], [...(PHRASES_BY_FIRST.get(p.words[0]) ?? []), p]);
+
+// Index terms of single words, memoised: a corpus repeats its vocabulary, so each word is analysed once.
+const TERM_CACHE = new Map<string, string>();
+const TERM_CACHE_LIMIT = 200_000;
+
+function wordTerm(word: string): string {
+  let term = TERM_CACHE.get(word);
+  if (term === undefined) {
+    const canonical = canonicalToken(word);
+    term = STOPWORDS.has(canonical) ? '' : /\d/.test(canonical) ? canonical : stem(canonical);
+    if (TERM_CACHE.size >= TERM_CACHE_LIMIT) TERM_CACHE.clear();
+    TERM_CACHE.set(word, term);
+  }
+  return term;
+}
+
+/**
+ * The text's index terms with their positions: phrases and quantities folded to one term,
+ * function words dropped, inflections stripped.
+ *
+ * @param mode `index` also keeps the words of a phrase (so "ground" still finds "ground
+ *   spring"); `query` keeps only the phrase term, so a query for the phrase needs the phrase.
+ */
+export function termsWithOffsets(text: string, mode: 'index' | 'query' = 'index'): TermAt[] {
+  const tokens = rawTokens(text);
+  const out: TermAt[] = [];
+  const emit = (term: string, start: number, end: number, surface = term) => {
+    if (term !== '') out.push({ term, start, end, surface });
+  };
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i];
+    const next = tokens[i + 1];
+    const quantity = next && t.text.charCodeAt(0) < 58 ? quantityTerm(t.text, next.text) : undefined;
+    if (quantity && next) {
+      emit(quantity, t.start, next.end);
+      i++;
+      continue;
+    }
+    const phrase = PHRASES_BY_FIRST.get(t.text)?.find((p) => p.words.every((w, k) => tokens[i + k]?.text === w));
+    if (phrase) {
+      const last = tokens[i + phrase.words.length - 1];
+      emit(phrase.term, t.start, last.end);
+      if (mode === 'index') {
+        for (let k = 0; k < phrase.words.length; k++) emit(wordTerm(tokens[i + k].text), tokens[i + k].start, tokens[i + k].end, tokens[i + k].text);
+      }
+      i += phrase.words.length - 1;
+      continue;
+    }
+    if (t.text === '%') continue;
+    emit(wordTerm(t.text), t.start, t.end, t.text);
+  }
+  return out;
+}
+
+/** Index terms only, the `tokenize` of the search index. */
+export const indexTerms = (text: string): string[] => termsWithOffsets(text, 'index').map((t) => t.term);
+
+/** Whether the user is still typing the last word (no space or punctuation after it yet). */
+export function lastWordOpen(text: string): boolean {
+  return /[\p{L}\p{N}]$/u.test(text);
+}

@@ -1,0 +1,92 @@
+import { useId, useState } from 'react';
+import { Loading } from '../../../components/ui/Panel';
+import { useSearchCases } from '../api/search-cases';
+import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { SearchFacets, type FacetFilters } from './SearchFacets';
+import { SearchResultItem } from './SearchResultItem';
+
+/** The symptom chips of the Bench; each reads as an observation the engine can diagnose. */
+export const SYMPTOM_CHIPS = [
+  'Amplitude off by a round factor',
+  'Ringing after edges',
+  'Rounded edges',
+  'Spikes on square-wave corners',
+  'Amplitude falls with frequency',
+  'DC level sags',
+] as const;
+
+/**
+ * Symptom-first search for the Bench: searches as the user types (debounced), says how the
+ * query was read ("read as: amplitude ×0.1 → attenuation mismatch"), lists results with the
+ * matched words marked and links to each case, and offers facet filters and symptom chips.
+ */
+export function BenchSearch({ initialQuery = '', pageSize = 10 }: { initialQuery?: string; pageSize?: number }) {
+  const id = useId();
+  const [text, setText] = useState(initialQuery);
+  const [filters, setFilters] = useState<FacetFilters>({});
+  const q = useDebouncedValue(text, 200);
+  const search = useSearchCases({ q, ...filters, pageSize });
+  const data = search.data;
+  const active = q.trim() !== '' || Boolean(filters.cause || filters.tag || filters.status);
+
+  return (
+    <div className="flex flex-col gap-4">
+      <form role="search" aria-label="Symptom search" onSubmit={(e) => e.preventDefault()}>
+        <label htmlFor={`${id}-q`} className="text-sm font-semibold">
+          Symptom search
+        </label>
+        <input
+          id={`${id}-q`}
+          type="search"
+          value={text}
+          onChange={(e) => setText(e.target.value)}
+          placeholder="e.g. reads a tenth of the expected 3.3 V, ringing at 120 MHz"
+          autoComplete="off"
+          className="mt-1 w-full rounded-md border border-rule bg-paper px-3 py-3 text-lg focus:border-ink focus:outline-none"
+          aria-describedby={`${id}-reading`}
+        />
+        <p id={`${id}-reading`} className="mt-2 min-h-5 font-mono text-sm text-agree" aria-live="polite" data-testid="search-reading">
+          {active && data?.reading ? data.reading.text : ''}
+        </p>
+        <ul className="mt-2 flex flex-wrap gap-2" aria-label="Common symptoms">
+          {SYMPTOM_CHIPS.map((chip) => (
+            <li key={chip}>
+              <button
+                type="button"
+                onClick={() => {
+                  setText(`${chip} `);
+                  setFilters({});
+                }}
+                className="rounded-full border border-rule px-3 py-1 text-sm hover:border-ink"
+              >
+                {chip}
+              </button>
+            </li>
+          ))}
+        </ul>
+      </form>
+
+      {active && (
+        <div className="grid gap-6 md:grid-cols-[1fr_14rem]">
+          <section aria-label="Search results" aria-busy={search.isFetching}>
+            {search.isPending && <Loading what="Searching" />}
+            {search.isError && <p className="text-sm text-caution">{search.error.message}</p>}
+            {data && (
+              <>
+                <p className="text-sm text-muted" data-testid="search-total">
+                  {data.total === 0 ? 'No case matches yet. Try fewer words, or a symptom chip.' : `${data.total} case${data.total === 1 ? '' : 's'}`}
+                </p>
+                <ul className="flex flex-col divide-y divide-rule/70">
+                  {data.results.map((r) => (
+                    <SearchResultItem key={r.id} result={r} />
+                  ))}
+                </ul>
+              </>
+            )}
+          </section>
+          {data && <SearchFacets facets={data.facets} filters={filters} onChange={setFilters} />}
+        </div>
+      )}
+    </div>
+  );
+}

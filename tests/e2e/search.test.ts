@@ -1,0 +1,55 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, screenshot, signIn, skipBrowser } from './helpers/browser';
+import { startRealServer, type RunningServer } from './helpers/server';
+
+// Runs against the demo casebook the server seeds; BenchSearch sits on the Bench at "/",
+// SimilarCases on the case page.
+describe.skipIf(skipBrowser)('symptom search on the Bench', () => {
+  let server: RunningServer;
+  let browser: Browser;
+  beforeAll(async () => {
+    [server, browser] = await Promise.all([startRealServer(), launchBrowser()]);
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  it('should search as the engineer types, read the symptom, filter by a facet, and lead to similar cases', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signIn(page, server.baseUrl, 'engineer@falsetrace.test');
+    const box = page.getByRole('search', { name: 'Symptom search' }).getByRole('searchbox');
+    await box.pressSequentially('ringing at 110 MHz', { delay: 30 });
+
+    const reading = page.getByTestId('search-reading');
+    await expect.poll(() => reading.textContent()).toBe('read as: ringing at 110 MHz → ground-lead ringing');
+    const results = page.getByTestId('search-result');
+    await results.first().waitFor();
+    await expect(results.first().locator('mark').count()).resolves.toBeGreaterThan(0);
+    // marks are elements the client made, from plain text: no markup of a case is rendered
+    await expect(results.first().locator('mark').first().innerHTML()).resolves.not.toMatch(/</);
+    await expect(results.first().getByRole('link').textContent()).resolves.toMatch(/110 MHz/);
+    await screenshot(page, 'search-ringing');
+
+    const facet = page.getByRole('group', { name: 'Cause' }).getByRole('button', { name: /Ground-lead ringing/ });
+    await facet.click();
+    await expect.poll(() => facet.getAttribute('aria-pressed')).toBe('true');
+    const causes = await results.getByTestId('result-cause').allTextContents();
+    expect(causes.every((c) => c === 'Ground-lead ringing')).toBe(true);
+    await screenshot(page, 'search-facet');
+
+    await page.getByRole('button', { name: 'Amplitude off by a round factor' }).click();
+    await expect.poll(() => reading.textContent()).toMatch(/→ attenuation mismatch/);
+    await results.first().waitFor();
+
+    await results.first().getByRole('link').click();
+    await page.waitForURL(/\/cases\/\d+$/);
+    const similar = page.getByTestId('similar-cases');
+    await similar.waitFor();
+    await expect(similar.getByRole('link').count()).resolves.toBeGreaterThan(0);
+    await screenshot(page, 'search-similar');
+    await context.close();
+  });
+});

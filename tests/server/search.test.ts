@@ -1,0 +1,230 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { SearchResponse } from '../../shared/schemas/search';
+import { caseDocument } from '../../server/search/case-document';
+import { CaseEngine } from '../../server/search/case-engine';
+import { CaseIndex, INDEX_OPTIONS } from '../../server/search/case-index';
+import { openCaseSearch } from '../../server/search/case-search';
+import { rankCases } from '../../server/search/rank';
+import { searchSourceRows, searchTags, synonymsByTag } from '../../server/db/repositories/search-source';
+import { SEARCH_FIXTURES } from './helpers/search-fixtures';
+import { client, createTestContext, signedIn, type TestContext } from './helpers/test-context';
+
+type Client = Awaited<ReturnType<typeof signedIn>>;
+
+describe('case search', () => {
+  let ctx: TestContext;
+  let eng: Client;
+  let other: Client;
+  let mod: Client;
+  const ids: Record<string, number> = {};
+  const search = async (c: Client, params: Record<string, string>) =>
+    (await c.get(`/api/search?${new URLSearchParams(params).toString()}`).expect(200)).body as SearchResponse;
+  const topIds = (r: SearchResponse, n = 3) => r.results.slice(0, n).map((x) => x.id);
+
+  beforeAll(async () => {
+    ctx = await createTestContext();
+    eng = await signedIn(ctx, 'engineer');
+    mod = await signedIn(ctx, 'moderator');
+    const admin = await signedIn(ctx, 'admin');
+    await admin.post('/api/admin/people/invitations', { email: 'second.engineer@falsetrace.test', role: 'engineer' }).expect(201);
+    const mail = (await ctx.db.selectFrom('outbox_messages').selectAll().execute()).find((m) => m.to_addr.includes('second.engineer'))!;
+    const token = mail.text.match(/accept-invitation\/(\S+)/)![1];
+    other = await client(ctx);
+    await other.post('/api/auth/invitations/accept', { token, name: 'Second Engineer', password: 'second-engineer-pw' }).expect(201);
+    // every fixture case filed by the engineer, submitted and verified by the moderator
+    for (const { key, ...input } of SEARCH_FIXTURES) {
+      const id = (await eng.post('/api/cases', input).expect(201)).body.case.id as number;
+      await eng.post(`/api/cases/${id}/submit`).expect(200);
+      await mod.post(`/api/cases/${id}/review`, { action: 'verify' }).expect(200);
+      ids[key] = id;
+    }
+    ids.secret = (await other.post('/api/cases', { title: 'Zebraquartz oscillator mystery', summary: 'A private draft about zebraquartz ringing', statedCause: 'ground-lead', tags: ['secret-tag'] }).expect(201)).body.case.id;
+  });
+  afterAll(() => ctx.close());
+
+  it.each([
+    ['gate drive tenth', 'gate-tenth'],
+    ['clip lead ringing', 'clock-ringing'],
+    ['calibrator spikes corners', 'calibrator-spikes'],
+    ['rounded corners calibrator', 'calibrator-rounded'],
+    ['bias node sags', 'bias-sags'],
+    ['spi slow edges', 'spi-slow'],
+    ['ground spring adc', 'spring-adc'],
+    ['thermistor', 'thermistor-low'],
+    ['ringin', 'clock-ringing'],
+    ['ringng ', 'clock-ringing'],
+    ['calibrater spikes ', 'calibrator-spikes'],
+    ['trimer overcompensated ', 'calibrator-spikes'],
+  ])('should rank the known best case in the top 3 for "%s"', async (q, key) => {
+    const r = await search(eng, { q });
+    expect(topIds(r)).toContain(ids[key]);
+  });
+
+  it('should read a symptom query and find a case of the inferred cause that shares no word with it', async () => {
+    const r = await search(eng, { q: 'reads a tenth' });
+    expect(r.reading?.text).toBe('read as: amplitude ×0.1 → attenuation mismatch');
+    expect(r.results[0].cause).toBe('attenuation-mismatch');
+    const logger = r.results.find((x) => x.id === ids['logger-level']);
+    expect(topIds(r)).toContain(ids['logger-level']);
+    // found through the engine's reading, not through words
+    expect(logger!.highlights).toEqual([]);
+  });
+
+  it('should rank ringing cases by how near their ringing frequency is to the one asked about', async () => {
+    const r = await search(eng, { q: 'ringing at 150 MHz ' });
+    expect(r.reading?.causes[0].cause).toBe('ground-lead');
+    expect(topIds(r, 2)).toEqual(expect.arrayContaining([ids['spring-adc'], ids['clock-ringing']]));
+    expect(r.results[0].id).toBe(ids['spring-adc']);
+  });
+
+  it('should mark matched words with offsets into plain text', async () => {
+    const r = await search(eng, { q: 'clip lead ringing' });
+    const top = r.results.find((x) => x.id === ids['clock-ringing'])!;
+    const title = top.highlights.find((h) => h.field === 'title')!;
+    expect(title.ranges.map(([s, e]) => title.text.slice(s, e))).toEqual(['ringing', 'clip', 'lead']);
+    const body = top.highlights.find((h) => h.field === 'narrative')!;
+    expect(body.ranges.map(([s, e]) => body.text.slice(s, e).toLowerCase())).toEqual(expect.arrayContaining(['ringing', 'clip', 'lead']));
+  });
+
+  it('should fall back to any word when no case has them all', async () => {
+    const r = await search(eng, { q: 'thermistor zzzunknownword' });
+    expect(r.results[0].id).toBe(ids['thermistor-low']);
+  });
+
+  it('should count facets over visible matches and filter by them without hiding the other counts', async () => {
+    const all = await search(eng, { q: 'calibrator ' });
+    expect(all.facets.cause.compensation).toBe(2);
+    const filtered = await search(eng, { q: 'probe ', cause: 'compensation' });
+    expect(filtered.results.every((x) => x.cause === 'compensation')).toBe(true);
+    expect(filtered.total).toBe(filtered.facets.cause.compensation);
+    expect(Object.keys(filtered.facets.cause).length).toBeGreaterThan(1);
+    const byTag = await search(eng, { q: '', tag: 'probe-compensation' });
+    expect(byTag.results.map((x) => x.id).sort()).toEqual([ids['calibrator-spikes'], ids['calibrator-rounded']].sort());
+    expect((await search(eng, { q: '', status: 'verified' })).facets.status).toEqual({ verified: SEARCH_FIXTURES.length });
+  });
+
+  it("should never show an engineer another engineer's draft, in results or in facet counts", async () => {
+    for (const q of ['zebraquartz ', 'ringing ', '']) {
+      const r = await search(eng, { q });
+      expect(r.results.map((x) => x.id)).not.toContain(ids.secret);
+      expect(r.facets.tags['secret-tag']).toBeUndefined();
+      expect(r.facets.status.draft).toBeUndefined();
+    }
+    expect((await search(eng, { q: 'zebraquartz ' })).total).toBe(0);
+    expect(topIds(await search(other, { q: 'zebraquartz ' }))).toEqual([ids.secret]);
+    expect((await search(mod, { q: 'zebraquartz ' })).facets.status).toEqual({ draft: 1 });
+  });
+
+  it('should keep the index in step with edits, status changes and deletes', async () => {
+    const id = (await eng.post('/api/cases', { title: 'Unicornfish probe trimmer', summary: 'Draft about a trimmer' }).expect(201)).body.case.id;
+    expect(topIds(await search(eng, { q: 'unicornfish ' }))).toEqual([id]);
+    expect(topIds(await search(other, { q: 'unicornfish ' }))).toEqual([]);
+    await eng.patch(`/api/cases/${id}`, { title: 'Narwhal probe trimmer', tags: ['narwhal-tag'] }).expect(200);
+    expect((await search(eng, { q: 'unicornfish ' })).total).toBe(0);
+    const renamed = await search(eng, { q: 'narwhal ' });
+    expect(topIds(renamed)).toEqual([id]);
+    expect(renamed.facets.tags['narwhal-tag']).toBe(1);
+    await eng.post(`/api/cases/${id}/submit`).expect(200);
+    expect((await search(mod, { q: 'narwhal ' })).facets.status).toEqual({ in_review: 1 });
+    await mod.post(`/api/cases/${id}/review`, { action: 'verify' }).expect(200);
+    expect(topIds(await search(other, { q: 'narwhal ' }))).toEqual([id]);
+
+    const draft = (await eng.post('/api/cases', { title: 'Platypus draft to delete', summary: 'Soon gone' }).expect(201)).body.case.id;
+    expect((await search(eng, { q: 'platypus ' })).total).toBe(1);
+    await eng.del(`/api/cases/${draft}`).expect(204);
+    expect((await search(eng, { q: 'platypus ' })).total).toBe(0);
+  });
+
+  it('should treat x10, 10x and "ten times", spring tip and ground spring, 50 ohm and 50Ω as the same', async () => {
+    const tenX = topIds(await search(eng, { q: '10x ' }), 20);
+    expect(tenX).toContain(ids['gate-tenth']);
+    expect(topIds(await search(eng, { q: 'x10 ' }), 20)).toEqual(tenX);
+    expect(topIds(await search(eng, { q: 'ten times ' }), 20)).toEqual(tenX);
+    expect(topIds(await search(eng, { q: 'spring tip ' }))).toContain(ids['spring-adc']);
+    const fifty = await search(eng, { q: '50 ohm ' });
+    expect(topIds(fifty)).toContain(ids['fifty-ohm']);
+    const title = fifty.results.find((x) => x.id === ids['fifty-ohm'])!.highlights.find((h) => h.field === 'title')!;
+    expect(title.text.slice(...title.ranges[0])).toBe('50Ω');
+  });
+
+  it('should find cases by a curated tag synonym', async () => {
+    expect((await search(eng, { q: 'gatedrv ' })).total).toBe(0);
+    await mod.put('/api/tags/gate-drive/synonyms', { synonyms: ['gatedrv'] }).expect(200);
+    expect(topIds(await search(eng, { q: 'gatedrv ' }))).toContain(ids['gate-tenth']);
+  });
+
+  it('should offer similar cases of the same cause and nearby numbers, only visible ones', async () => {
+    const r = (await eng.get(`/api/cases/${ids['calibrator-spikes']}/similar`).expect(200)).body;
+    expect(r.similar[0]).toMatchObject({ id: ids['calibrator-rounded'], cause: 'compensation' });
+    const ringing = (await eng.get(`/api/cases/${ids['clock-ringing']}/similar`).expect(200)).body.similar.map((s: { id: number }) => s.id);
+    expect(ringing[0]).toBe(ids['spring-adc']);
+    expect(ringing).not.toContain(ids.secret);
+    await eng.get(`/api/cases/${ids.secret}/similar`).expect(404);
+  });
+
+  it('should refuse bad search parameters', async () => {
+    await eng.get('/api/search?pageSize=500').expect(400);
+    await eng.get('/api/search?status=sideways').expect(400);
+    await (await client(ctx)).get('/api/search?q=probe').expect(401);
+  });
+
+  it('should restore the same index from its snapshot, and rebuild when the database changed behind it', async () => {
+    // the synonym curated above changed what cases index; tag curation asks for a rebuild
+    await ctx.search.rebuild();
+    ctx.search.saveSnapshot();
+    const restored = await openCaseSearch(ctx.db, { dataDir: ctx.config.dataDir });
+    expect(restored.origin).toBe('snapshot');
+    const me = { id: 2, role: 'moderator' as const };
+    for (const q of ['ringing ', 'calibrator spikes', 'reads a tenth', 'x10 ']) {
+      const query = { q, page: 1, pageSize: 20 };
+      expect(rankCases(restored.index, me, query, new Map())).toEqual(rankCases(ctx.search.index, me, query, new Map()));
+    }
+    restored.close();
+    await ctx.db.updateTable('cases').set({ updated_at: new Date().toISOString() }).where('id', '=', ids['uart-fine']).execute();
+    const rebuilt = await openCaseSearch(ctx.db, { dataDir: ctx.config.dataDir });
+    expect(rebuilt.origin).toBe('rebuilt');
+    rebuilt.close();
+  });
+
+  it('should encode and decode the engine to exactly what minisearch itself serialises', async () => {
+    const original = ctx.search.index.engine;
+    const { header, postings } = original.encode();
+    const decoded = CaseEngine.decode(JSON.parse(JSON.stringify(header)), Buffer.from(postings), INDEX_OPTIONS);
+    // the dictionary is a tree, so compare its terms as a set rather than in walk order
+    const plain = (e: CaseEngine) => {
+      const { index, ...rest } = e.toJSON();
+      return { ...rest, index: Object.fromEntries(index) };
+    };
+    expect(plain(decoded)).toEqual(plain(original));
+  });
+
+  it('should rank the same with the common terms kept scored as with minisearch scoring each query', async () => {
+    const [rows, tags, synonyms] = await Promise.all([searchSourceRows(ctx.db), searchTags(ctx.db), synonymsByTag(ctx.db)]);
+    const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], synonyms));
+    const plain = new CaseIndex(undefined, undefined, { heavyPostings: Infinity });
+    const kept = new CaseIndex(undefined, undefined, { heavyPostings: 1 });
+    plain.addAll(entries);
+    kept.addAll(entries);
+    expect(kept.heavy.lists.size).toBeGreaterThan(50);
+    const me = { id: 1, role: 'engineer' as const };
+    const queries = ['ringing ', 'probe calibrator ', 'ringin', 'calibrater ', 'tenth gate '];
+    const compare = (tolerance: number) => {
+      for (const q of queries) {
+        const a = rankCases(plain, me, { q, page: 1, pageSize: 20 }, new Map());
+        const b = rankCases(kept, me, { q, page: 1, pageSize: 20 }, new Map());
+        expect(new Set(b.page.map((x) => x.id))).toEqual(new Set(a.page.map((x) => x.id)));
+        expect(b.total).toBe(a.total);
+        const score = new Map(a.page.map((x) => [x.id, x.score]));
+        for (const x of b.page) expect(Math.abs(x.score - score.get(x.id)!)).toBeLessThanOrEqual(tolerance);
+      }
+    };
+    compare(1e-6);
+    // after an edit the lists hold the edited case exactly; other cases' scores drift slightly
+    const edited = { ...entries[0], doc: { ...entries[0].doc, title: 'Gate drive read a tenth, now with ringing' } };
+    plain.upsert(edited.doc, edited.facts);
+    kept.upsert(edited.doc, edited.facts);
+    compare(0.05);
+    kept.rebuildHeavy();
+    compare(1e-6);
+  });
+});

@@ -1,0 +1,216 @@
+import { createHash } from 'node:crypto';
+import { readFile } from 'node:fs/promises';
+import type { Actor } from '../../shared/auth/roles';
+import type { CaseSetup, CaseStatus, StatedCause } from '../../shared/schemas/case';
+import {
+  ARCHIVE_FILES,
+  ARCHIVE_FORMAT,
+  ARCHIVE_VERSION,
+  type ArchiveManifest,
+  type ArchivedAttachment,
+  type ArchivedCase,
+  type ArchivedComment,
+  type ArchivedHistory,
+  type ArchivedRevision,
+  type ArchivedUser,
+  type CasebookExportQuery,
+} from '../../shared/schemas/casebook-archive';
+import { caseMarkdown } from '../casebook/case-markdown';
+import { zipFiles } from '../casebook/zip';
+import {
+  attachmentsOfCases,
+  authorTagsOfCases,
+  casesWithIds,
+  commentsOfCases,
+  historyOfCases,
+  pinsOfCases,
+  revisionsOfCases,
+  usersWithIds,
+} from '../db/repositories/casebook';
+import { listCases } from '../db/repositories/cases';
+import type { AppDeps } from '../deps';
+import { storagePaths } from '../storage';
+
+const sha256 = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
+const json = (value: unknown) => Buffer.from(`${JSON.stringify(value, null, 2)}\n`);
+const parse = (text: string | null) => (text === null ? null : (JSON.parse(text) as unknown));
+
+/** A folder name people can read: `0007-buck-switch-node-rings-at-110-mhz`. */
+export function caseFolder(id: number, title: string): string {
+  const slug = title
+    .normalize('NFKD')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')
+    .slice(0, 48)
+    .replace(/-$/, '');
+  return `cases/${String(id).padStart(4, '0')}-${slug || 'case'}`;
+}
+
+const safeName = (name: string) => name.replace(/[^\w.-]+/g, '_').slice(0, 120) || 'file';
+
+/** Ids of every case matching the filters that the actor may see, oldest first. */
+async function matchingCaseIds(deps: AppDeps, actor: Actor, filters: CasebookExportQuery): Promise<number[]> {
+  const ids: number[] = [];
+  for (let page = 1; ; page++) {
+    const { rows } = await listCases(deps.db, actor, { ...filters, page, pageSize: 100, sort: 'createdAt' });
+    ids.push(...rows.map((r) => r.id));
+    if (rows.length < 100) return ids;
+  }
+}
+
+export interface CasebookExport {
+  zip: Buffer;
+  filename: string;
+  cases: number;
+}
+
+/**
+ * The casebook (or the part the filters select) as a zip: JSON records for import, one
+ * Markdown page per case with its attachments for reading, and a manifest with checksums.
+ */
+export async function exportCasebook(deps: AppDeps, actor: Actor, filters: CasebookExportQuery, now = new Date()): Promise<CasebookExport> {
+  const { db } = deps;
+  const storage = storagePaths(deps.config);
+  const ids = await matchingCaseIds(deps, actor, filters);
+  const rows = await casesWithIds(db, ids);
+  const tags = new Map<number, string[]>();
+  for (const t of await authorTagsOfCases(db, ids)) tags.set(t.case_id, [...(tags.get(t.case_id) ?? []), t.tag]);
+
+  const cases: ArchivedCase[] = rows.map((r) => ({
+    id: r.id,
+    authorId: r.author_id,
+    title: r.title,
+    summary: r.summary,
+    narrative: r.narrative,
+    setup: JSON.parse(r.setup) as CaseSetup,
+    statedCause: r.stated_cause as StatedCause | null,
+    statedCauseOther: r.stated_cause_other,
+    fix: r.fix,
+    lessonSummary: r.lesson_summary,
+    lessonDetail: r.lesson_detail,
+    tags: tags.get(r.id) ?? [],
+    status: r.status as CaseStatus,
+    reviewNote: r.review_note,
+    duplicateOf: r.duplicate_of,
+    retiredReason: r.retired_reason,
+    createdAt: r.created_at,
+    updatedAt: r.updated_at,
+    submittedAt: r.submitted_at,
+    verifiedAt: r.verified_at,
+  }));
+  const revisions: ArchivedRevision[] = (await revisionsOfCases(db, ids)).map((r) => ({
+    id: r.id,
+    caseId: r.case_id,
+    number: r.number,
+    authorId: r.author_id,
+    snapshot: JSON.parse(r.snapshot),
+    createdAt: r.created_at,
+  }));
+  const comments: ArchivedComment[] = (await commentsOfCases(db, ids)).map((r) => ({
+    id: r.id,
+    caseId: r.case_id,
+    authorId: r.author_id,
+    body: r.body,
+    hidden: r.hidden === 1,
+    hiddenBy: r.hidden_by,
+    createdAt: r.created_at,
+    updatedAt: r.updated_at,
+  }));
+  const history: ArchivedHistory[] = (await historyOfCases(db, ids)).map((r) => ({
+    id: r.id,
+    caseId: r.case_id!,
+    actorId: r.actor_id,
+    action: r.action,
+    before: parse(r.before),
+    after: parse(r.after),
+    note: r.note,
+    createdAt: r.created_at,
+  }));
+  const pins = (await pinsOfCases(db, ids)).map((p) => ({ caseId: p.case_id, position: p.position }));
+
+  const files = new Map<string, Uint8Array>();
+  const folders = new Map(rows.map((r) => [r.id, caseFolder(r.id, r.title)]));
+  const attachments: (ArchivedAttachment & { localPath: string })[] = [];
+  for (const a of await attachmentsOfCases(db, ids)) {
+    const folder = folders.get(a.case_id)!;
+    const bytes = await readFile(storage.fileFor(a.storage_name));
+    const file = `${folder}/attachments/${a.id}-${safeName(a.original_name)}`;
+    files.set(file, bytes);
+    let thumbnail: string | null = null;
+    if (a.thumbnail_name) {
+      thumbnail = `${folder}/attachments/thumbnails/${a.id}-${safeName(a.original_name)}`;
+      files.set(thumbnail, await readFile(storage.fileFor(a.thumbnail_name)));
+    }
+    attachments.push({
+      id: a.id,
+      caseId: a.case_id,
+      uploadedBy: a.uploaded_by,
+      kind: a.kind,
+      originalName: a.original_name,
+      contentType: a.content_type as ArchivedAttachment['contentType'],
+      sizeBytes: a.size_bytes,
+      width: a.width,
+      height: a.height,
+      analysis: parse(a.analysis) as Record<string, unknown> | null,
+      createdAt: a.created_at,
+      file,
+      sha256: sha256(bytes),
+      thumbnail,
+      localPath: file.slice(folder.length + 1),
+    });
+  }
+
+  const userIds = new Set<number>();
+  for (const c of cases) userIds.add(c.authorId);
+  for (const r of revisions) if (r.authorId) userIds.add(r.authorId);
+  for (const m of comments) [m.authorId, m.hiddenBy].forEach((u) => u && userIds.add(u));
+  for (const a of attachments) if (a.uploadedBy) userIds.add(a.uploadedBy);
+  for (const h of history) if (h.actorId) userIds.add(h.actorId);
+  const users: ArchivedUser[] = await usersWithIds(db, [...userIds].sort((a, b) => a - b));
+  const names = new Map(users.map((u) => [u.id, u.name]));
+  const userName = (id: number | null) => (id === null ? 'former member' : (names.get(id) ?? 'former member'));
+
+  const rowById = new Map(rows.map((r) => [r.id, r]));
+  for (const c of cases) {
+    const row = rowById.get(c.id)!;
+    files.set(
+      `${folders.get(c.id)!}/case.md`,
+      Buffer.from(
+        caseMarkdown({
+          c,
+          engineCause: row.engine_cause,
+          authorName: userName(c.authorId),
+          userName,
+          comments: comments.filter((m) => m.caseId === c.id),
+          attachments: attachments.filter((a) => a.caseId === c.id),
+          history: history.filter((h) => h.caseId === c.id),
+        }),
+      ),
+    );
+  }
+  files.set(ARCHIVE_FILES.users, json(users));
+  files.set(ARCHIVE_FILES.cases, json(cases));
+  files.set(ARCHIVE_FILES.revisions, json(revisions));
+  files.set(ARCHIVE_FILES.comments, json(comments));
+  files.set(ARCHIVE_FILES.attachments, json(attachments.map(({ localPath: _l, ...a }) => a)));
+  files.set(ARCHIVE_FILES.history, json(history));
+  files.set(ARCHIVE_FILES.pinned, json(pins));
+  files.set(
+    'README.md',
+    Buffer.from(
+      `# Falsetrace casebook\n\nExported ${now.toISOString()} with ${cases.length} case${cases.length === 1 ? '' : 's'}.\n\n` +
+        'Each case has a folder under `cases/` with `case.md` and its attachments. The JSON files hold the same records for\n' +
+        'import into another Falsetrace (People → Casebook → Import); `casebook.json` lists a SHA-256 of every file.\n',
+    ),
+  );
+  const manifest: ArchiveManifest = {
+    format: ARCHIVE_FORMAT,
+    version: ARCHIVE_VERSION,
+    exportedAt: now.toISOString(),
+    filters: Object.fromEntries(Object.entries(filters).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)])),
+    files: Object.fromEntries([...files].map(([name, bytes]) => [name, sha256(bytes)])),
+  };
+  files.set(ARCHIVE_FILES.manifest, json(manifest));
+  return { zip: zipFiles(files), filename: `falsetrace-casebook-${now.toISOString().slice(0, 10)}.zip`, cases: cases.length };
+}

@@ -1,0 +1,118 @@
+import type { HelpTopic } from './types';
+
+export const BANDWIDTH_TOPIC: HelpTopic = {
+  slug: 'bandwidth',
+  cause: 'bandwidth',
+  title: 'Bandwidth too low for the edge',
+  lead: 'Edges look slower than they are; fast square waves turn into sines.',
+  onScreen: `- Measured **rise times are longer** than the part's data sheet or simulation, and do not improve when the circuit is made faster.
+- Fast square waves look **rounded, even sinusoidal**, and their amplitude drops.
+- A small "BW" marker next to the channel, or a 1x probe, is often the giveaway.`,
+  physics: `Every stage between the circuit and the screen — probe, scope front end, any bandwidth-limit filter — behaves roughly like a low-pass filter. A single-pole low-pass with bandwidth BW turns an ideal step into an exponential whose 10 %–90 % rise time is ln 9 / (2π · BW), which is the familiar **0.35 / BW**.
+
+Stages in cascade add their rise times **in quadrature** (root of the sum of squares). So the edge you see is never faster than the slowest stage, and a system only 1–2× faster than the edge measures mostly itself. A 1x passive probe has only a few MHz of bandwidth; a 20 MHz limit filter alone makes every edge at least 17.5 ns.`,
+  formulas: [
+    { text: 't_r ≈ 0.35 / BW', meaning: 'one stage (exactly ln 9 / 2π = 0.3497)' },
+    { text: 't_shown = √(t_signal² + t_probe² + t_scope² + t_limit²)', meaning: 'stages in cascade' },
+    { text: 'BW_needed ≈ (3 … 5) × 0.35 / t_edge', meaning: 'rule of thumb for a true reading' },
+    { text: 'V_pp,shown / V_pp = tanh(T / 4τ)', meaning: 'a square wave of period T through one pole τ' },
+  ],
+  example: `A 2 ns edge through a 500 MHz probe and scope with the 20 MHz limit on: √(2² + 0.7² + 0.7² + 17.5²) ns ≈ **17.6 ns**.`,
+  diagnose: {
+    'probe.attenuation': 10,
+    'probe.bandwidthHz': 500e6,
+    'scope.attenuationSetting': 10,
+    'scope.bandwidthHz': 500e6,
+    'scope.bandwidthLimitHz': 20e6,
+    'signal.expectedAmplitudeV': 3.3,
+    'signal.frequencyHz': 10e6,
+    'signal.riseTimeS': 2e-9,
+    'signal.kind': 'square',
+    'observed.riseTimeS': 17.6e-9,
+  },
+  fix: `Switch bandwidth limits off for edge measurements; use 10x, not 1x; use a scope and probe 3–5 times faster than the edge; report the system's own rise time next to every measured edge.`,
+  sources: [
+    { label: 'IEEE Std 181-2011, transitions and pulse terms', note: '10 % and 90 % reference levels, rise time' },
+    { label: 'Single-pole step response 1 − e^(−t/τ): t₉₀ − t₁₀ = τ·ln 9, f₃dB = 1/(2πτ)', note: 'derivation' },
+    { label: 'Root-sum-square rise-time rule', note: 'common practice; exact for Gaussian stages' },
+    { label: '1x passive probes reach only a few MHz', note: 'common practice' },
+  ],
+};
+
+export const COMPENSATION_TOPIC: HelpTopic = {
+  slug: 'compensation',
+  cause: 'compensation',
+  title: 'Probe compensation out of adjustment',
+  lead: 'Square-wave corners spike up or round off, then creep to the final level.',
+  onScreen: `- On a low-frequency square wave (the scope's 1 kHz calibrator is ideal) the **corners spike** above the top (over-compensated) or are **rounded** below it (under-compensated).
+- The error decays **smoothly and slowly** — over tens to hundreds of microseconds — with no ringing.
+- It appears after the probe was moved to another scope or channel.`,
+  physics: `A 10x passive probe is two RC sections in series: the tip resistor R1 with a small capacitor C1 across it, over the scope input R2 with everything in parallel with it, C2 (input, cable, trimmer). At low frequency the resistors set the ratio; at high frequency the capacitors do. The divider is flat for all frequencies only when the two sections have the same time constant, **R1·C1 = R2·C2** — that is what the trimmer adjusts.
+
+When they differ, an edge first jumps to the capacitive ratio and then settles to the resistive one with the divider's time constant. Every input has a slightly different C2, so a probe adjusted on one channel is off on another.`,
+  formulas: [
+    { text: 'jump = C1 / (C1 + C2)', meaning: 'level right after the edge' },
+    { text: 'settle = R2 / (R1 + R2)', meaning: 'level it decays to' },
+    { text: 'τ = (R1 ∥ R2) · (C1 + C2)', meaning: 'how long the decay takes' },
+    { text: 'R1·C1 = R2·C2', meaning: 'flat: correctly compensated' },
+    { text: 'corner = (jump / settle − 1) × 100 %', meaning: 'overshoot (+) or undershoot (−)' },
+  ],
+  example: `9 MΩ over 1 MΩ with C2 ≈ 110 pF: τ ≈ 0.9 MΩ × 120 pF ≈ **110 µs**. That is why a 1 kHz square shows it and a 12 MHz clock cannot.`,
+  diagnose: {
+    'probe.attenuation': 10,
+    'scope.attenuationSetting': 10,
+    'scope.inputResistanceOhm': 1000000,
+    'scope.inputCapacitanceF': 20e-12,
+    'signal.expectedAmplitudeV': 5,
+    'signal.frequencyHz': 1000,
+    'signal.kind': 'square',
+    'observed.amplitudeV': 5,
+    'observed.overshootPct': 18,
+  },
+  fix: `Connect the probe to the scope's calibrator square wave on the channel you will use and turn the trimmer until the top is flat — no spike, no rounding. Repeat whenever the probe changes channel or scope.`,
+  sources: [
+    { label: 'Circuit analysis of the compensated RC divider (Laplace transform of Z2/(Z1+Z2))', note: 'derivation' },
+    { label: 'Compensating on the calibrator square wave', note: 'common practice' },
+  ],
+};
+
+export const GROUND_LEAD_TOPIC: HelpTopic = {
+  slug: 'ground-lead',
+  cause: 'ground-lead',
+  title: 'Ground-lead ringing',
+  lead: 'Fast edges overshoot and ring near 100 MHz, and the ringing moves when the lead moves.',
+  onScreen: `- Every fast edge **overshoots and rings**, typically between 50 and 300 MHz, decaying over tens of nanoseconds.
+- The ringing **changes when you move or coil the ground lead**, and almost vanishes with a ground spring.
+- The circuit works fine; only the measurement rings.`,
+  physics: `The probe's ground lead is a wire, and a wire has inductance — about 1 nH per millimetre for a thin lead, so a 15 cm clip lead is near 190 nH. Together with the capacitance at the probe tip it forms a **series resonant circuit** driven by the edge. The source resistance is the only damping, and a low-impedance driver barely damps it.
+
+The straight-wire formula gives the inductance from length and wire radius; the resonance is 1/(2π√(LC)); the damping ratio sets the overshoot. Working backwards, an observed ringing frequency gives the inductance and so the lead length — if that comes out as the length of the clip lead, the lead is the culprit. An edge much slower than the ring period excites it less.`,
+  formulas: [
+    { text: 'L ≈ (μ0·l / 2π) · (ln(2l / r) − 3/4)', meaning: 'straight round wire, length l, radius r' },
+    { text: 'f_ring = 1 / (2π · √(L · C))', meaning: 'resonance with the tip capacitance' },
+    { text: 'ζ = (R_s / 2) · √(C / L)', meaning: 'damping from the source resistance' },
+    { text: 'overshoot = exp(−π·ζ / √(1 − ζ²)) × 100 %', meaning: 'ideal step, ζ < 1' },
+  ],
+  example: `15 cm of 0.5 mm wire: L ≈ 190 nH. With 11 pF at the tip: f ≈ 1 / (2π √(190 nH × 11 pF)) ≈ **110 MHz**. A 5 Ω source gives ζ ≈ 0.02 — almost no damping.`,
+  diagnose: {
+    'probe.attenuation': 10,
+    'probe.tipCapacitanceF': 11e-12,
+    'probe.groundKind': 'clip-lead',
+    'probe.groundLeadM': 0.15,
+    'scope.attenuationSetting': 10,
+    'scope.bandwidthHz': 500e6,
+    'circuit.sourceResistanceOhm': 5,
+    'signal.expectedAmplitudeV': 12,
+    'signal.frequencyHz': 400000,
+    'signal.riseTimeS': 3e-9,
+    'signal.kind': 'square',
+    'observed.ringingFrequencyHz': 110e6,
+    'observed.overshootPct': 68,
+  },
+  fix: `Use the shortest return: a ground spring on the tip barrel or a probe socket soldered at the test point. A 1 cm return moves the resonance far above the scope's bandwidth.`,
+  sources: [
+    { label: 'E. B. Rosa, Bulletin of the Bureau of Standards 4 (1908); F. W. Grover, Inductance Calculations (1946)', note: 'self-inductance of a straight round wire' },
+    { label: 'Second-order (series RLC) step response', note: 'ω_n = 1/√(LC), ζ = (R/2)√(C/L), overshoot exp(−πζ/√(1−ζ²))' },
+    { label: 'Clip lead about 15 cm, ground spring about 1 cm', note: 'common practice' },
+  ],
+};

@@ -21,7 +21,8 @@ export function onUnauthenticated(listener: Listener): () => void {
 }
 
 let csrfToken: Promise<string> | null = null;
-function getCsrfToken(): Promise<string> {
+/** The session's CSRF token, fetched once; for requests that cannot go through `api` (upload progress). */
+export function getCsrfToken(): Promise<string> {
   csrfToken ??= fetch('/api/auth/csrf', { credentials: 'same-origin' })
     .then((r) => r.json() as Promise<{ csrfToken: string }>)
     .then((b) => b.csrfToken)

@@ -1,0 +1,66 @@
+import { lazy, Suspense } from 'react';
+import { useParams } from 'react-router-dom';
+import { PageHeader, Panel } from '../../components/ui/Panel';
+import { useMe } from '../../features/auth/api/get-me';
+import { CaseEditor } from '../../features/cases/components/CaseEditor';
+import { CasePage } from '../../features/cases/components/CasePage';
+import { CasesPage } from '../../features/cases/components/CasesPage';
+import { WatchCaseButton } from '../../features/notifications/components/WatchCaseButton';
+import { CaseHistory } from '../../features/review/components/CaseHistory';
+import { SimilarCases } from '../../features/search/components/SimilarCases';
+
+function useCaseId(): number | null {
+  const { id } = useParams();
+  const n = Number(id);
+  return Number.isInteger(n) && n > 0 ? n : null;
+}
+
+function NoSuchCase() {
+  return (
+    <>
+      <PageHeader title="No such case" />
+      <Panel>
+        <p className="text-muted">Case addresses look like /cases/12.</p>
+      </Panel>
+    </>
+  );
+}
+
+// the plot code (and uPlot) is fetched only when a case with a capture is opened
+const CapturePlot = lazy(() => import('../../features/captures/components/CapturePlot'));
+
+export const CasesRoute = CasesPage;
+
+export function NewCaseRoute() {
+  const { user } = useMe();
+  return user ? <CaseEditor caseId={null} userId={user.id} /> : null;
+}
+
+export function EditCaseRoute() {
+  const { user } = useMe();
+  const id = useCaseId();
+  if (id === null) return <NoSuchCase />;
+  return user ? <CaseEditor caseId={id} userId={user.id} /> : null;
+}
+
+export function CaseRoute() {
+  const id = useCaseId();
+  if (id === null) return <NoSuchCase />;
+  return (
+    <CasePage
+      caseId={id}
+      headerExtras={<WatchCaseButton caseId={id} />}
+      sideExtras={<SimilarCases caseId={id} />}
+      afterHistory={
+        <Panel title="State changes and moderator edits">
+          <CaseHistory caseId={id} />
+        </Panel>
+      }
+      renderCapturePlot={(capture, c) => (
+        <Suspense fallback={<p className="text-sm text-muted">Loading the plot…</p>}>
+          <CapturePlot attachment={capture} setup={c.setup} diagnosis={c.diagnosis} />
+        </Suspense>
+      )}
+    />
+  );
+}

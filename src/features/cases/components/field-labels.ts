@@ -1,0 +1,21 @@
+/** Readable names for setup fields the engine reports by path ("probe.tipCapacitanceF"). */
+export const SETUP_FIELD_LABELS: Record<string, string> = {
+  'probe.attenuation': 'Probe attenuation',
+  'probe.nominalAttenuation': 'Nominal probe attenuation',
+  'probe.tipResistanceOhm': 'Tip resistance',
+  'probe.tipCapacitanceF': 'Tip capacitance',
+  'probe.bandwidthHz': 'Probe bandwidth',
+  'probe.groundKind': 'Ground connection',
+  'probe.groundLeadM': 'Ground lead length',
+  'probe.groundWireRadiusM': 'Ground wire radius',
+  'scope.attenuationSetting': 'Channel attenuation setting',
+  'scope.inputResistanceOhm': 'Scope input resistance',
+  'scope.inputCapacitanceF': 'Scope input capacitance',
+  'scope.bandwidthHz': 'Channel bandwidth',
+  'scope.bandwidthLimitHz': 'Bandwidth limit',
+  'circuit.sourceResistanceOhm': 'Source impedance',
+  'signal.kind': 'Signal kind',
+  'signal.expectedAmplitudeV': 'Expected amplitude',
+  'signal.frequencyHz': 'Signal frequency',
+  'signal.riseTimeS': 'Signal rise time',
+};

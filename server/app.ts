@@ -12,6 +12,7 @@ import { createCsrf } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
 import { attachmentRoutes } from './routes/attachments';
 import { authRoutes } from './routes/auth';
+import { casebookRoutes } from './routes/casebook';
 import { captureRoutes } from './routes/captures';
 import { caseRoutes } from './routes/cases';
 import { commentRoutes } from './routes/comments';
@@ -22,7 +23,9 @@ import { outboxRoutes } from './routes/outbox';
 import { peopleRoutes } from './routes/people';
 import { profileRoutes } from './routes/profile';
 import { reviewRoutes } from './routes/review';
+import { searchRoutes, similarCaseRoutes } from './routes/search';
 import { tagRoutes } from './routes/tags';
+import { traceRoutes } from './routes/traces';
 
 export interface AppOptions {
   /** Folder of the built client (vite build); served with an SPA fallback when present. */
@@ -87,10 +90,14 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.use('/api/profile', profileRoutes(deps));
   app.use('/api/profile', notificationRoutes(deps));
   app.use('/api/admin/people', peopleRoutes(deps));
+  app.use('/api/admin/casebook', casebookRoutes(deps));
   app.use('/api/dev/outbox', outboxRoutes(deps));
   app.use('/api/cases', caseRoutes(deps));
+  app.use('/api/cases', similarCaseRoutes(deps));
+  app.use('/api/search', searchRoutes(deps));
   app.use('/api/comments', commentRoutes(deps));
   app.use('/api/attachments', attachmentRoutes(deps));
+  app.use('/api/attachments', traceRoutes(deps));
   app.use('/api/diagnosis', diagnosisRoutes());
   app.use('/api/captures', captureRoutes(deps));
   app.use('/api/review', reviewRoutes(deps));

@@ -2,6 +2,7 @@ import type { Config } from './config';
 import type { Db } from './db/database';
 import type { MailQueue } from './mail/mail-queue';
 import type { Mailer } from './mail/mailer';
+import type { CaseSearch } from './search/case-search';
 
 /** What services need from the outside world; tests build it with an in-memory database. */
 export interface AppDeps {
@@ -10,4 +11,6 @@ export interface AppDeps {
   mailer: Mailer;
   mail: MailQueue;
   config: Config;
+  /** The case search index; opened on first search when left out. */
+  search?: CaseSearch;
 }

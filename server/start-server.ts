@@ -9,7 +9,8 @@ import { countUsers } from './db/repositories/users';
 import { startLocalSmtpFake } from './mail/local-smtp-fake';
 import { createMailQueue } from './mail/mail-queue';
 import { createMailer } from './mail/mailer';
-import { seedDemoUsers } from './seed/demo-users';
+import { openCaseSearch } from './search/case-search';
+import { seedDemoCasebook } from './seed/demo/seed-casebook';
 import { runDailyDigestIfDue } from './services/digest';
 
 export const CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
@@ -22,15 +23,19 @@ export async function startServer(config: Config) {
   const fake = config.smtpUrl ? undefined : await startLocalSmtpFake(db);
   const mailer = createMailer(config.smtpUrl ?? `smtp://127.0.0.1:${fake!.port}?ignoreTLS=true`, !config.smtpUrl);
 
+  const mail = createMailQueue(db, mailer);
   if (config.seedDemo && (await countUsers(db)) === 0) {
-    await seedDemoUsers(db, config.demoPassword);
-    console.log('[falsetrace] empty database: demo accounts created');
+    const seeded = await seedDemoCasebook({ db, mailer, mail, config }, config.demoPassword);
+    console.log(`[falsetrace] empty database: demo casebook seeded (${seeded.people} people, ${seeded.cases} cases, ${seeded.attachments} attachments)`);
   }
 
-  const mail = createMailQueue(db, mailer);
   mail.start();
   void mail.retryDue();
-  const app = createApp({ db, mailer, mail, config }, { clientDir: CLIENT_DIR });
+  // after seeding, so a fresh casebook is indexed; a matching snapshot in DATA_DIR skips the rebuild
+  const searchStarted = performance.now();
+  const search = await openCaseSearch(db, { dataDir: config.dataDir });
+  console.log(`[falsetrace] search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${search.index.size} cases in ${Math.round(performance.now() - searchStarted)} ms`);
+  const app = createApp({ db, mailer, mail, config, search }, { clientDir: CLIENT_DIR });
   const digestTimer = setInterval(
     () => void runDailyDigestIfDue({ db, mailer, mail, config }).catch((e) => console.error('[falsetrace] digest failed:', e)),
     60 * 60 * 1000,
@@ -47,6 +52,7 @@ export async function startServer(config: Config) {
     (app.locals.sessionStore as { close(): void }).close();
     clearInterval(digestTimer);
     mail.stop();
+    search.close();
     mailer.close();
     await fake?.close();
     await db.destroy();

@@ -101,6 +101,7 @@ export async function addAttachment(deps: AppDeps, actor: Actor, caseId: number,
       });
     }
     await updateCaseRow(deps.db, caseId, { updated_at: now });
+    await deps.search?.syncCase(caseId);
     return toAttachment(attachment);
   } catch (err) {
     await Promise.all(written.map((n) => storage.remove(n)));
@@ -117,6 +118,7 @@ export async function removeAttachment(deps: AppDeps, actor: Actor, caseId: numb
   if (!att || att.case_id !== caseId) throw notFound('No such attachment on this case');
   await deleteAttachmentRow(deps.db, attachmentId);
   await updateCaseRow(deps.db, caseId, { updated_at: new Date().toISOString() });
+  await deps.search?.syncCase(caseId);
   const storage = storagePaths(deps.config);
   await storage.remove(att.storage_name);
   if (att.thumbnail_name) await storage.remove(att.thumbnail_name);

@@ -49,7 +49,7 @@ async function snapshotOf(db: Db, id: number): Promise<string> {
   return JSON.stringify(snapshot);
 }
 
-export async function createCase({ db }: AppDeps, actor: Actor, input: CaseCreateInput): Promise<Case> {
+export async function createCase({ db, search }: AppDeps, actor: Actor, input: CaseCreateInput): Promise<Case> {
   const now = new Date().toISOString();
   const setup = input.setup ?? {};
   const d = recomputeDiagnosis(setup, input.statedCause);
@@ -79,10 +79,11 @@ export async function createCase({ db }: AppDeps, actor: Actor, input: CaseCreat
     await watchCase(trx, actor.id, id);
     return id;
   });
+  await search?.syncCase(id);
   return loadCase(db, actor, id);
 }
 
-export async function updateCase({ db }: AppDeps, actor: Actor, id: number, input: CasePatchInput): Promise<Case> {
+export async function updateCase({ db, search }: AppDeps, actor: Actor, id: number, input: CasePatchInput): Promise<Case> {
   const row = await visibleCaseRow(db, actor, id);
   if (!canEditCase(actor, { authorId: row.author_id, status: row.status })) {
     throw forbidden(row.author_id === actor.id ? `A case that is ${row.status.replace('_', ' ')} cannot be edited by its author` : 'Only the author or a moderator may edit this case');
@@ -121,6 +122,7 @@ export async function updateCase({ db }: AppDeps, actor: Actor, id: number, inpu
       await recordAudit(trx, { caseId: id, actorId: actor.id, action: 'moderator_edit', before: pick(row, changed), after: input, note: `Edited ${changed.join(', ')}` });
     }
   });
+  await search?.syncCase(id);
   return loadCase(db, actor, id);
 }
 
@@ -147,6 +149,7 @@ export async function submitCase(deps: AppDeps, actor: Actor, id: number): Promi
     await insertRevision(trx, id, actor.id, await snapshotOf(trx, id), now);
     await recordAudit(trx, { caseId: id, actorId: actor.id, action: 'submit', before: { status: row.status }, after: { status: 'in_review' } });
   });
+  await deps.search?.syncCase(id);
   const resubmitted = row.status === 'needs_changes';
   await notifyUsers(deps, await moderatorIds(deps), {
     kind: 'submitted',
@@ -158,11 +161,12 @@ export async function submitCase(deps: AppDeps, actor: Actor, id: number): Promi
   return loadCase(db, actor, id);
 }
 
-export async function deleteCase({ db }: AppDeps, actor: Actor, id: number): Promise<string[]> {
+export async function deleteCase({ db, search }: AppDeps, actor: Actor, id: number): Promise<string[]> {
   const row = await visibleCaseRow(db, actor, id);
   if (!canDeleteCase(actor, { authorId: row.author_id, status: row.status })) throw forbidden('Only the author may delete a draft that was never submitted');
   const files = await listAttachments(db, id);
   await deleteCaseRow(db, id);
+  search?.removeCase(id);
   return files.flatMap((f) => [f.storage_name, ...(f.thumbnail_name ? [f.thumbnail_name] : [])]);
 }
 

@@ -52,6 +52,8 @@ export async function reviewCase(deps: AppDeps, actor: User, id: number, input: 
     });
   });
 
+  await deps.search?.syncCase(id);
+
   const line = {
     verify: `Verified by ${actor.name}`,
     send_back: `Sent back for changes by ${actor.name}`,

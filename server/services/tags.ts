@@ -62,6 +62,8 @@ async function moveTag(deps: AppDeps, actor: Actor, from: string, to: string, ac
     await trx.updateTable('watches').set({ tag: to }).where('tag', '=', from).execute();
     await recordAudit(trx, { caseId: null, actorId: actor.id, action, before: { tag: from }, after: { tag: to } });
   });
+  // tags and synonyms are indexed words: many cases change at once
+  await deps.search?.rebuild();
 }
 
 export const renameTag = (deps: AppDeps, actor: Actor, from: string, to: string) => moveTag(deps, actor, from, to, 'rename_tag');
@@ -80,6 +82,7 @@ export async function setTagSynonyms(deps: AppDeps, actor: Actor, tag: string, s
     }
     await recordAudit(trx, { caseId: null, actorId: actor.id, action: 'tag_synonyms', before: { tag, synonyms: before }, after: { tag, synonyms } });
   });
+  await deps.search?.rebuild();
 }
 
 export async function setTagRetired(deps: AppDeps, actor: Actor, tag: string, retired: boolean) {

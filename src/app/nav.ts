@@ -11,6 +11,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/cases', label: 'Cases' },
   { to: '/diagnose', label: 'Diagnose' },
   { to: '/lessons', label: 'Lessons' },
+  { to: '/help', label: 'Help' },
   { to: '/review', label: 'Review desk', role: 'moderator' },
   { to: '/admin/people', label: 'People', role: 'admin' },
   { to: '/dev/outbox', label: 'Outbox', role: 'admin' },

@@ -8,14 +8,21 @@ import { ResetRequestPage } from '../features/auth/components/ResetRequestPage';
 import { SignInPage } from '../features/auth/components/SignInPage';
 import { AppShell } from './AppShell';
 import { BenchRoute } from './routes/bench';
-import { NotBuiltRoute, NotFoundRoute } from './routes/not-built';
+import { DiagnoseRoute } from './routes/diagnose';
+import { CaseRoute, CasesRoute, EditCaseRoute, NewCaseRoute } from './routes/cases';
+import { NotFoundRoute } from './routes/not-built';
 import { OutboxRoute, PeopleRoute } from './routes/admin';
+import { LessonsRoute } from './routes/lessons';
+import { HelpIndexRoute, HelpTopicRoute } from './routes/help';
+import { ChecklistPrintPage } from '../features/lessons/components/ChecklistPrintPage';
+import { ReviewDeskPage } from '../features/review/components/ReviewDeskPage';
+import { TagCurationPage } from '../features/review/components/TagCurationPage';
 
 const guarded = (element: React.ReactNode, role?: Role) => <RequireAuth role={role}>{element}</RequireAuth>;
 
-const notBuilt = (title: string, what: string, role?: Role) => guarded(<NotBuiltRoute title={title} what={what} />, role);
-
 export const routes: RouteObject[] = [
+  // a sheet of paper to print: outside the shell, so no navigation chrome
+  { path: '/lessons/checklist', element: guarded(<ChecklistPrintPage />) },
   {
     element: <AppShell />,
     children: [
@@ -25,13 +32,16 @@ export const routes: RouteObject[] = [
       { path: '/accept-invitation/:token', element: <AcceptInvitationPage /> },
       { path: '/', element: guarded(<BenchRoute />) },
       { path: '/profile', element: guarded(<ProfilePage />) },
-      { path: '/cases', element: notBuilt('Cases', 'The sortable, filterable table of every case you may see arrives with the case write-ups.') },
-      { path: '/cases/new', element: notBuilt('New case', 'The structured incident form arrives with the case write-ups.') },
-      { path: '/cases/:id', element: notBuilt('Case', 'The case page arrives with the case write-ups.') },
-      { path: '/cases/:id/edit', element: notBuilt('Edit case', 'Editing arrives with the case write-ups.') },
-      { path: '/diagnose', element: notBuilt('Diagnose', 'The diagnosis engine on its own — setup and observation in, ranked causes out — arrives with the engine.') },
-      { path: '/lessons', element: notBuilt('Lessons', 'Verified lessons grouped by cause and the printable bench checklist arrive with moderation.') },
-      { path: '/review', element: notBuilt('Review desk', 'The queue of cases waiting for verification arrives with moderation.', 'moderator') },
+      { path: '/cases', element: guarded(<CasesRoute />) },
+      { path: '/cases/new', element: guarded(<NewCaseRoute />) },
+      { path: '/cases/:id', element: guarded(<CaseRoute />) },
+      { path: '/cases/:id/edit', element: guarded(<EditCaseRoute />) },
+      { path: '/diagnose', element: guarded(<DiagnoseRoute />) },
+      { path: '/lessons', element: guarded(<LessonsRoute />) },
+      { path: '/help', element: guarded(<HelpIndexRoute />) },
+      { path: '/help/:topic', element: guarded(<HelpTopicRoute />) },
+      { path: '/review', element: guarded(<ReviewDeskPage />, 'moderator') },
+      { path: '/review/tags', element: guarded(<TagCurationPage />, 'moderator') },
       { path: '/admin/people', element: guarded(<PeopleRoute />, 'admin') },
       { path: '/dev/outbox', element: guarded(<OutboxRoute />, 'admin') },
       { path: '*', element: <NotFoundRoute /> },

@@ -4,9 +4,9 @@ import { launchBrowser, screenshot, signIn, skipBrowser } from './helpers/browse
 import { startRealServer, type RunningServer } from './helpers/server';
 
 const NAV: Record<string, string[]> = {
-  engineer: ['Bench', 'Cases', 'Diagnose', 'Lessons'],
-  moderator: ['Bench', 'Cases', 'Diagnose', 'Lessons', 'Review desk'],
-  admin: ['Bench', 'Cases', 'Diagnose', 'Lessons', 'Review desk', 'People', 'Outbox'],
+  engineer: ['Bench', 'Cases', 'Diagnose', 'Lessons', 'Help'],
+  moderator: ['Bench', 'Cases', 'Diagnose', 'Lessons', 'Help', 'Review desk'],
+  admin: ['Bench', 'Cases', 'Diagnose', 'Lessons', 'Help', 'Review desk', 'People', 'Outbox'],
 };
 
 describe.skipIf(skipBrowser)('foundation in a real browser', () => {

@@ -1,16 +1,10 @@
 import { canModerate } from '../../../shared/auth/roles';
 import { PageHeader, Panel } from '../../components/ui/Panel';
+import { Link } from 'react-router-dom';
 import { useMe } from '../../features/auth/api/get-me';
-
-// The symptom words engineers use at the bench; search (issue: search) turns them into observations.
-const SYMPTOMS = [
-  'Amplitude off by a round factor',
-  'Ringing after edges',
-  'Rounded edges',
-  'Spikes on square-wave corners',
-  'Amplitude falls with frequency',
-  'DC level sags',
-];
+import { CaseMiniList } from '../../features/cases/components/CaseMiniList';
+import { ReviewWaitingPanel } from './review-waiting';
+import { BenchSearch } from '../../features/search/components/BenchSearch';
 
 export function BenchRoute() {
   const { user } = useMe();
@@ -22,38 +16,26 @@ export function BenchRoute() {
       />
       <div className="flex flex-col gap-6">
         <Panel>
-          <label htmlFor="bench-search" className="text-sm font-semibold">
-            Symptom search
-          </label>
-          <input
-            id="bench-search"
-            disabled
-            placeholder="e.g. reads a tenth of the expected 3.3 V"
-            className="mt-1 w-full rounded-md border border-rule bg-paper px-3 py-3 text-lg"
-            aria-describedby="bench-search-note"
-          />
-          <p id="bench-search-note" className="mt-2 text-xs text-muted">
-            Search is not built yet; it arrives with the search work.
-          </p>
-          <ul className="mt-4 flex flex-wrap gap-2" aria-label="Common symptoms">
-            {SYMPTOMS.map((s) => (
-              <li key={s} className="rounded-full border border-rule px-3 py-1 text-sm text-muted">
-                {s}
-              </li>
-            ))}
-          </ul>
+          <BenchSearch />
         </Panel>
         <div className="grid gap-6 md:grid-cols-2">
           <Panel title="Recently verified">
-            <p className="text-sm text-muted">Cases are not built yet; verified cases will be listed here.</p>
+            <CaseMiniList filters={{ status: 'verified', pageSize: '5' }} empty="No verified cases yet." moreLabel="All verified cases" />
           </Panel>
-          <Panel title="My drafts">
-            <p className="text-sm text-muted">Your unfinished write-ups will wait here once filing cases is built.</p>
+          <Panel
+            title="My drafts"
+            actions={
+              <Link to="/cases/new" className="text-sm font-semibold underline underline-offset-2">
+                New case
+              </Link>
+            }
+          >
+            {user && (
+              <CaseMiniList filters={{ status: 'draft', author: String(user.id) }} empty="No drafts waiting. Seen a trace that lied? File it." moreLabel="All my drafts" editLinks />
+            )}
           </Panel>
           {canModerate(user) && (
-            <Panel title="Waiting on the review desk">
-              <p className="text-sm text-muted">The review desk is not built yet; the number of cases to review will show here.</p>
-            </Panel>
+            <ReviewWaitingPanel />
           )}
         </div>
       </div>

@@ -16,7 +16,7 @@ const cssVar = (name: string, fallback: string) =>
   getComputedStyle(document.documentElement).getPropertyValue(name).trim() || fallback;
 
 /** A #rrggbb colour at some opacity; other colour syntaxes are passed through unchanged. */
-function withAlpha(color: string, alpha: number): string {
+export function withAlpha(color: string, alpha: number): string {
   const m = /^#([0-9a-f]{2})([0-9a-f]{2})([0-9a-f]{2})$/i.exec(color);
   if (!m) return color;
   const [r, g, b] = m.slice(1).map((h) => parseInt(h, 16));

@@ -11,6 +11,7 @@ import { listOutboxMessages } from '../../../server/db/repositories/outbox';
 import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
 import { createMailQueue, type MailQueue } from '../../../server/mail/mail-queue';
 import { createMailer, type Mailer } from '../../../server/mail/mailer';
+import { openCaseSearch, type CaseSearch } from '../../../server/search/case-search';
 import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
 
 export const DEMO_PASSWORD = 'demo-probe-2026';
@@ -23,6 +24,7 @@ export interface TestContext {
   mail: MailQueue;
   fake: LocalSmtpFake;
   config: Config;
+  search: CaseSearch;
   close(): Promise<void>;
 }
 
@@ -43,7 +45,8 @@ export async function createTestContext(): Promise<TestContext> {
     production: false,
   };
   const mail = createMailQueue(db, mailer);
-  const app = createApp({ db, mailer, mail, config });
+  const search = await openCaseSearch(db, { dataDir: config.dataDir });
+  const app = createApp({ db, mailer, mail, config, search });
   return {
     app,
     db,
@@ -51,7 +54,9 @@ export async function createTestContext(): Promise<TestContext> {
     mail,
     fake,
     config,
+    search,
     async close() {
+      search.close();
       (app.locals.sessionStore as { close(): void }).close();
       mailer.close();
       await fake.close();

@@ -9,6 +9,7 @@ import { applyServerError, useZodForm } from '../../../lib/forms';
 import { useChangePassword } from '../api/change-password';
 import { useMe } from '../api/get-me';
 import { useUpdateProfile } from '../api/update-profile';
+import { NotificationPrefs } from '../../notifications/components/NotificationPrefs';
 
 const passwordFormSchema = confirmedPassword(
   { currentPassword: changePasswordSchema.shape.currentPassword, newPassword: newPasswordSchema },
@@ -86,6 +87,7 @@ export function ProfilePage() {
           <PasswordForm />
         </Panel>
       </div>
+      <NotificationPrefs role={user.role} />
     </>
   );
 }

@@ -1,0 +1,52 @@
+import { decimateMinMax } from '../../shared/capture/decimate';
+import type { Actor } from '../../shared/auth/roles';
+import type { Trace, TraceQuery } from '../../shared/schemas/trace';
+import type { SampleCache } from '../captures/sample-cache';
+import type { AppDeps } from '../deps';
+import { AppError, notFound } from '../errors';
+import { formatEngineering } from '../../shared/units/engineering';
+import { attachmentFile } from './attachments';
+
+/** First index whose time is later than `timeS` (or at least it, with `orEqual`); n when none is. */
+function firstAfter(timesS: Float64Array, timeS: number, orEqual: boolean): number {
+  let low = 0;
+  let high = timesS.length;
+  while (low < high) {
+    const middle = (low + high) >>> 1;
+    if (timesS[middle] < timeS || (!orEqual && timesS[middle] === timeS)) low = middle + 1;
+    else high = middle;
+  }
+  return low;
+}
+
+/**
+ * A capture attachment's samples in a time window, min/max-decimated to the plot's pixel
+ * columns, for a caller who may see its case. The window is clipped to the capture; one
+ * sample either side of it is included so a zoomed line reaches the plot's edges instead of
+ * stopping at the first sample inside.
+ */
+export async function attachmentTrace(deps: AppDeps, cache: SampleCache, actor: Actor, attachmentId: number, query: TraceQuery): Promise<Trace> {
+  const file = await attachmentFile(deps, actor, attachmentId, 'file');
+  if (file.kind !== 'capture') throw notFound('This attachment is a screenshot, not a waveform capture');
+  const loaded = await cache.get(file.path, file.path);
+  if (!loaded.ok) throw new AppError('invalid_input', `The stored capture cannot be read: ${loaded.message}`);
+  const { timesS, volts } = loaded.samples;
+  const n = timesS.length;
+  if (n === 0) return { timesS: [], volts: [], fromS: 0, toS: 0, totalPoints: 0, windowPoints: 0, startS: 0, endS: 0 };
+  const startS = timesS[0];
+  const endS = timesS[n - 1];
+  const fromS = Math.max(startS, query.fromS ?? startS);
+  const toS = Math.min(endS, query.toS ?? endS);
+  if (fromS > toS) {
+    throw new AppError('invalid_input', `The window lies outside the capture, which runs from ${formatEngineering(startS, 's')} to ${formatEngineering(endS, 's')}`, [
+      { path: query.fromS !== undefined && query.fromS > endS ? 'fromS' : 'toS', message: 'outside the capture' },
+    ]);
+  }
+  const first = firstAfter(timesS, fromS, true);
+  const afterLast = firstAfter(timesS, toS, false);
+  const windowPoints = Math.max(0, afterLast - first);
+  const lo = Math.max(0, first - 1);
+  const hi = Math.min(n - 1, afterLast);
+  const shown = decimateMinMax(timesS, volts, query.columns, timesS[lo], timesS[hi]);
+  return { timesS: Array.from(shown.timesS), volts: Array.from(shown.volts), fromS, toS, totalPoints: n, windowPoints, startS, endS };
+}

@@ -1,0 +1,60 @@
+/** Capture and model on one ascending x axis, as uPlot wants them: null where a series has no value. */
+export interface CapturePlotData {
+  x: number[];
+  capture: (number | null)[];
+  model: (number | null)[];
+}
+
+/** Linear interpolation of an ascending curve at t; null outside its span. */
+function interpolator(timesS: readonly number[], volts: readonly number[]) {
+  let i = 1;
+  return (t: number): number | null => {
+    if (timesS.length === 0 || t < timesS[0] || t > timesS[timesS.length - 1]) return null;
+    if (timesS.length === 1) return volts[0];
+    // callers ask in ascending order, so the search only moves forward
+    if (t < timesS[i - 1]) i = 1;
+    while (i < timesS.length - 1 && timesS[i] < t) i++;
+    const t0 = timesS[i - 1];
+    const t1 = timesS[i];
+    return t1 === t0 ? volts[i] : volts[i - 1] + ((t - t0) / (t1 - t0)) * (volts[i] - volts[i - 1]);
+  };
+}
+
+/**
+ * Merges the (decimated) capture samples with the model's own points inside [fromS, toS], so
+ * the model keeps its shape when only a few capture samples are in view, and evaluates the
+ * model at every x, so it also follows the capture's resolution.
+ */
+export function mergePlotData(
+  trace: { timesS: readonly number[]; volts: readonly number[] },
+  overlay: { timesS: readonly number[]; volts: readonly number[] } | null,
+  fromS: number,
+  toS: number,
+): CapturePlotData {
+  const modelTimes = overlay ? overlay.timesS.filter((t) => t >= fromS && t <= toS) : [];
+  const x: number[] = [];
+  const capture: (number | null)[] = [];
+  let i = 0;
+  let j = 0;
+  while (i < trace.timesS.length || j < modelTimes.length) {
+    const tc = i < trace.timesS.length ? trace.timesS[i] : Infinity;
+    const tm = j < modelTimes.length ? modelTimes[j] : Infinity;
+    if (tc <= tm) {
+      x.push(tc);
+      capture.push(trace.volts[i]);
+      i++;
+      if (tm === tc) j++;
+    } else {
+      x.push(tm);
+      capture.push(null);
+      j++;
+    }
+  }
+  const modelAt = overlay ? interpolator(overlay.timesS, overlay.volts) : () => null;
+  return { x, capture, model: x.map((t) => modelAt(t)) };
+}
+
+/** Value of the capture at t, interpolated between the samples on either side. */
+export function captureValueAt(trace: { timesS: readonly number[]; volts: readonly number[] }, t: number): number | null {
+  return interpolator(trace.timesS, trace.volts)(t);
+}

@@ -1,22 +1,12 @@
 import { canModerate, type Actor } from '../../shared/auth/roles';
 import { CAUSE_LABELS, CAUSES } from '../../shared/schemas/diagnosis';
+import type { Lesson, LessonBook } from '../../shared/schemas/lessons';
 import type { AppDeps } from '../deps';
 import { forbidden, invalid, notFound } from '../errors';
 import { recordAudit } from '../db/repositories/audit-log';
 
-export interface Lesson {
-  caseId: number;
-  title: string;
-  cause: string | null;
-  lessonSummary: string;
-  lessonDetail: string | null;
-  verifiedAt: string | null;
-  pinned: boolean;
-  pinPosition: number | null;
-}
-
 /** Verified lessons grouped by cause (causes in the engine's order, then the rest), plus the pinned checklist. */
-export async function listLessons({ db }: AppDeps, q?: string) {
+export async function listLessons({ db }: AppDeps, q?: string): Promise<LessonBook> {
   let query = db
     .selectFrom('cases')
     .leftJoin('pinned_lessons', 'pinned_lessons.case_id', 'cases.id')

@@ -110,6 +110,7 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       await figure.locator('canvas').waitFor({ timeout: 15_000 });
       const legend = figure.getByRole('list', { name: 'Legend' });
       await legend.getByText(/^Model \(ground-lead ringing\)/).waitFor();
+      await legend.getByText('Capture', { exact: true }).waitFor();
       await legend.getByText('Base, top and 10/50/90 % levels').waitFor();
       await legend.getByText('Measured edges (10, 50, 90 %)').waitFor();
       await expect(figure.getByTestId('plot-view').textContent()).resolves.toMatch(/^Whole capture: 0 s to 1\.2\d* µs, 6,000 samples as \d/);

@@ -1,25 +1,17 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshot, signIn, skipBrowser } from './helpers/browser';
-import { startRealServer, type RunningServer } from './helpers/server';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { screenshot, signIn, skipBrowser } from './helpers/browser';
+import { useRealApp } from './helpers/real-app';
 
 const causes = (page: Page) => page.getByRole('list', { name: 'Causes, most likely first' }).getByRole('article');
 
 describe.skipIf(skipBrowser)('the Diagnose screen in a real browser', () => {
-  let server: RunningServer;
-  let browser: Browser;
-  beforeAll(async () => {
-    [server, browser] = await Promise.all([startRealServer(), launchBrowser()]);
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
+  const app = useRealApp();
 
-  it('should put attenuation mismatch on top for a 10x probe read at 1x, agree with the server, and plot a ground lead', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  it('should put attenuation mismatch on top for a 10x probe read at 1x, agree with the app.server, and plot a ground lead', async () => {
+    const context = await app.browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
-    await signIn(page, server.baseUrl, 'engineer@falsetrace.test');
+    await signIn(page, app.server.baseUrl, 'engineer@falsetrace.test');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Diagnose' }).click();
     await page.getByRole('heading', { name: 'Diagnose', level: 1 }).waitFor();
 
@@ -60,12 +52,12 @@ describe.skipIf(skipBrowser)('the Diagnose screen in a real browser', () => {
   });
 
   it('should prefill from a link and fit a phone screen', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await app.browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     // signIn waits for the user menu, which a phone-width header folds away
-    await signIn(page, server.baseUrl, 'engineer@falsetrace.test');
+    await signIn(page, app.server.baseUrl, 'engineer@falsetrace.test');
     await page.setViewportSize({ width: 390, height: 844 });
-    await page.goto(`${server.baseUrl}/diagnose?probe.attenuation=10&scope.attenuationSetting=1&signal.expectedAmplitudeV=3.3&observed.amplitudeV=0.33`);
+    await page.goto(`${app.server.baseUrl}/diagnose?probe.attenuation=10&scope.attenuationSetting=1&signal.expectedAmplitudeV=3.3&observed.amplitudeV=0.33`);
     await page.getByRole('heading', { name: 'Diagnose', level: 1 }).waitFor();
     expect(await page.getByLabel('Channel attenuation setting').inputValue()).toBe('1x');
     expect(await page.getByLabel('Observed amplitude').inputValue()).toBe('330 mV');

@@ -1,7 +1,6 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshot, signIn, skipBrowser } from './helpers/browser';
-import { startRealServer, type RunningServer } from './helpers/server';
+import { describe, expect, it } from 'vitest';
+import { screenshot, signIn, skipBrowser } from './helpers/browser';
+import { useRealApp } from './helpers/real-app';
 
 const NAV: Record<string, string[]> = {
   engineer: ['Bench', 'Cases', 'Diagnose', 'Lessons', 'Help'],
@@ -10,19 +9,11 @@ const NAV: Record<string, string[]> = {
 };
 
 describe.skipIf(skipBrowser)('foundation in a real browser', () => {
-  let server: RunningServer;
-  let browser: Browser;
-  beforeAll(async () => {
-    [server, browser] = await Promise.all([startRealServer(), launchBrowser()]);
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
+  const app = useRealApp();
 
   it('should send a signed-out visitor to sign-in and show the form', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-    await page.goto(`${server.baseUrl}/cases`);
+    const page = await app.browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await page.goto(`${app.server.baseUrl}/cases`);
     await page.waitForURL(/\/sign-in\?next=%2Fcases/);
     await expect(page.getByRole('heading', { name: 'Sign in to the casebook' }).isVisible()).resolves.toBe(true);
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -37,15 +28,15 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
 
   for (const role of Object.keys(NAV)) {
     it(`should show a ${role} only the navigation the role may use`, async () => {
-      const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+      const context = await app.browser.newContext({ viewport: { width: 1280, height: 800 } });
       const page = await context.newPage();
-      await signIn(page, server.baseUrl, `${role}@falsetrace.test`);
+      await signIn(page, app.server.baseUrl, `${role}@falsetrace.test`);
       const labels = await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents();
       expect(labels).toEqual(NAV[role]);
       await page.getByRole('heading', { name: 'What is the trace doing?' }).waitFor();
       await screenshot(page, `bench-${role}`);
       if (role === 'engineer') {
-        await page.goto(`${server.baseUrl}/admin/people`);
+        await page.goto(`${app.server.baseUrl}/admin/people`);
         await page.getByText('Not for your role').waitFor();
       }
       await context.close();
@@ -53,8 +44,8 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
   }
 
   it('should let an admin invite a person who then sets a password and signs in', async () => {
-    const admin = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
-    await signIn(admin, server.baseUrl, 'admin@falsetrace.test');
+    const admin = await (await app.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+    await signIn(admin, app.server.baseUrl, 'admin@falsetrace.test');
     await admin.getByRole('link', { name: 'People' }).click();
     await admin.getByLabel('E-mail to invite').fill('rafa.quist@falsetrace.test');
     await admin.getByLabel('Role', { exact: true }).selectOption('moderator');
@@ -68,7 +59,7 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
     const href = await admin.getByRole('link', { name: /accept-invitation/ }).first().getAttribute('href');
     expect(href).toMatch(/\/accept-invitation\//);
 
-    const guestContext = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const guestContext = await app.browser.newContext({ viewport: { width: 390, height: 844 } });
     const guest = await guestContext.newPage();
     await guest.goto(href!);
     await guest.getByText('rafa.quist@falsetrace.test').waitFor();
@@ -80,8 +71,8 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
     await screenshot(guest, 'bench-phone');
     await guestContext.close();
 
-    const again = await (await browser.newContext()).newPage();
-    await signIn(again, server.baseUrl, 'rafa.quist@falsetrace.test', 'ten-to-one-divider');
+    const again = await (await app.browser.newContext()).newPage();
+    await signIn(again, app.server.baseUrl, 'rafa.quist@falsetrace.test', 'ten-to-one-divider');
     expect(await again.getByTestId('user-menu').textContent()).toContain('Rafa Quist');
     await again.goto(href!);
     await again.getByText('This invitation cannot be used').waitFor();

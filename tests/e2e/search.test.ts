@@ -1,25 +1,16 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshot, signIn, skipBrowser } from './helpers/browser';
-import { startRealServer, type RunningServer } from './helpers/server';
+import { describe, expect, it } from 'vitest';
+import { screenshot, signIn, skipBrowser } from './helpers/browser';
+import { useRealApp } from './helpers/real-app';
 
 // Runs against the demo casebook the server seeds; BenchSearch sits on the Bench at "/",
 // SimilarCases on the case page.
 describe.skipIf(skipBrowser)('symptom search on the Bench', () => {
-  let server: RunningServer;
-  let browser: Browser;
-  beforeAll(async () => {
-    [server, browser] = await Promise.all([startRealServer(), launchBrowser()]);
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
+  const app = useRealApp();
 
   it('should search as the engineer types, read the symptom, filter by a facet, and lead to similar cases', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await app.browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
-    await signIn(page, server.baseUrl, 'engineer@falsetrace.test');
+    await signIn(page, app.server.baseUrl, 'engineer@falsetrace.test');
     const box = page.getByRole('search', { name: 'Symptom search' }).getByRole('searchbox');
     await box.pressSequentially('ringing at 110 MHz', { delay: 30 });
 

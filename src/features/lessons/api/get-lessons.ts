@@ -1,28 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { LessonBook } from '../../../../shared/schemas/lessons';
 import { api } from '../../../lib/api-client';
-
-export interface Lesson {
-  caseId: number;
-  title: string;
-  cause: string | null;
-  lessonSummary: string;
-  lessonDetail: string | null;
-  verifiedAt: string | null;
-  pinned: boolean;
-  pinPosition: number | null;
-}
-
-export interface LessonGroup {
-  cause: string;
-  label: string;
-  lessons: Lesson[];
-}
-
-/** Verified lessons grouped by cause, and the pinned bench checklist in its order. */
-export interface LessonBook {
-  groups: LessonGroup[];
-  checklist: Lesson[];
-}
 
 export const lessonKeys = {
   all: ['lessons'] as const,

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { lessonKeys, type LessonBook } from './get-lessons';
+import type { LessonBook } from '../../../../shared/schemas/lessons';
+import { lessonKeys } from './get-lessons';
 
 export const pinLesson = ({ caseId, pinned }: { caseId: number; pinned: boolean }) =>
   api<LessonBook>(`/api/lessons/${caseId}/pin`, { method: 'POST', body: { pinned } });

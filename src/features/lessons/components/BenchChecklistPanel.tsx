@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import { Panel } from '../../../components/ui/Panel';
-import type { Lesson } from '../api/get-lessons';
+import type { Lesson } from '../../../../shared/schemas/lessons';
 import { PinButton } from './PinButton';
 
 /** The pinned lessons, in order: the short list to go through before trusting a trace. */

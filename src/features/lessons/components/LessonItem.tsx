@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { Markdown } from '../../../components/ui/Markdown';
 import { dateOnly } from '../../../lib/time-ago';
-import type { Lesson } from '../api/get-lessons';
+import type { Lesson } from '../../../../shared/schemas/lessons';
 import { PinButton } from './PinButton';
 
 export function LessonItem({ lesson, canPin, onError }: { lesson: Lesson; canPin: boolean; onError: (message: string) => void }) {

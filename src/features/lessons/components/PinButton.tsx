@@ -1,6 +1,6 @@
 import { Button } from '../../../components/ui/Button';
 import { usePinLesson } from '../api/pin-lesson';
-import type { Lesson } from '../api/get-lessons';
+import type { Lesson } from '../../../../shared/schemas/lessons';
 
 /** Puts a lesson on the bench checklist or takes it off (moderators). */
 export function PinButton({ lesson, onError }: { lesson: Lesson; onError: (message: string) => void }) {

@@ -131,7 +131,7 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
       : undefined;
 
   const error = overview.error ?? zoomed.error;
-  const summary = captureSummary(attachment.originalName, analysis, overlay);
+  const summary = captureSummary(analysis, overlay);
   return (
     // named by aria-label, not a caption: the file name is already the heading of the list item above
     <figure className="flex min-w-0 flex-col gap-2" aria-label={`Capture ${attachment.originalName}`} aria-describedby={summaryId}>

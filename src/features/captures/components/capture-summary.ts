@@ -7,7 +7,7 @@ const count = (n: number) => n.toLocaleString('en');
 const pct = (v: number) => `${Number(v.toPrecision(3))} %`;
 
 /** What the plot shows, in sentences, for the figure's description and screen readers. */
-export function captureSummary(name: string, a: StoredAnalysis, overlay: CaptureOverlayResult | null): string {
+export function captureSummary(a: StoredAnalysis, overlay: CaptureOverlayResult | null): string {
   const parts: string[] = [];
   parts.push(`${count(a.points)} samples${a.sampleIntervalS === null ? '' : ` every ${eng(a.sampleIntervalS, 's')}`}.`);
   if (a.baseV !== null && a.topV !== null && a.amplitudeV) {
@@ -24,7 +24,7 @@ export function captureSummary(name: string, a: StoredAnalysis, overlay: Capture
     ].filter(Boolean);
     if (edges) parts.push(`${edges[0].toUpperCase()}${edges.slice(1)} edge${a.edgeCount === 1 ? '' : 's'} marked at 10, 50 and 90 %${figures.length ? `: ${figures.join(', ')}` : ''}.`);
   } else {
-    parts.push(`${name} shows no two distinct levels, so no edges are measured.`);
+    parts.push('The capture shows no two distinct levels, so no edges are measured.');
   }
   if (overlay?.ok) parts.push(`Dashed: ${overlay.overlay.summary}`);
   else if (overlay) parts.push(`No model overlay: ${overlay.reason}.`);

@@ -50,7 +50,11 @@ export function CaseRoute() {
     <CasePage
       caseId={id}
       headerExtras={<WatchCaseButton caseId={id} />}
-      sideExtras={<SimilarCases caseId={id} />}
+      sideExtras={
+        <Panel title="Similar cases">
+          <SimilarCases caseId={id} />
+        </Panel>
+      }
       afterHistory={
         <Panel title="State changes and moderator edits">
           <CaseHistory caseId={id} />

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addNoise, sampleUniformly, secondOrderStep, stepWaveform } from '../../shared/capture/synthetic';
 import { parseEngineering } from '../../shared/units/engineering';
 import { launchBrowser, SCREENSHOT_DIR, screenshot, signIn, skipBrowser } from './helpers/browser';
+import { dropFile, saved } from './helpers/case-form';
 import { startRealServer, type RunningServer } from './helpers/server';
 
 const TITLE = 'Clock edge rings after the long ground clip';
@@ -24,19 +25,6 @@ function ringingCsv(): string {
   return lines.join('\n');
 }
 
-async function dropFile(page: Page, name: string, text: string) {
-  const dataTransfer = await page.evaluateHandle(
-    ([n, t]) => {
-      const dt = new DataTransfer();
-      dt.items.add(new File([t], n, { type: 'text/csv' }));
-      return dt;
-    },
-    [name, text],
-  );
-  await page.getByTestId('drop-zone').dispatchEvent('dragover', { dataTransfer });
-  await page.getByTestId('drop-zone').dispatchEvent('drop', { dataTransfer });
-}
-
 const value = (text: string, unit: string) => {
   const r = parseEngineering(text.replace(/\s*\(.*$/, '').trim(), unit);
   if (!r.ok) throw new Error(`cannot read "${text}": ${r.error}`);
@@ -48,8 +36,6 @@ async function viewportShot(page: Page, name: string) {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`) });
 }
-
-const saved = (page: Page) => page.getByTestId('autosave-status').getByText(/^Saved \d/).waitFor({ timeout: 15_000 });
 
 describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
   let server: RunningServer;

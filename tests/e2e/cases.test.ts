@@ -2,6 +2,7 @@ import { Jimp } from 'jimp';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, screenshot, signIn, skipBrowser } from './helpers/browser';
+import { dropFile, saved } from './helpers/case-form';
 import { startRealServer, type RunningServer } from './helpers/server';
 
 const TITLE = 'Gate drive read as a tenth on the half-bridge board';
@@ -44,26 +45,11 @@ async function pasteImage(page: Page, base64: string) {
   }, base64);
 }
 
-async function dropFile(page: Page, name: string, text: string) {
-  const dataTransfer = await page.evaluateHandle(
-    ([n, t]) => {
-      const dt = new DataTransfer();
-      dt.items.add(new File([t], n, { type: 'text/csv' }));
-      return dt;
-    },
-    [name, text],
-  );
-  await page.getByTestId('drop-zone').dispatchEvent('dragover', { dataTransfer });
-  await page.getByTestId('drop-zone').dispatchEvent('drop', { dataTransfer });
-}
-
 /** Full-page screenshot from the top, so sticky bars and panels sit where a reader first sees them. */
 async function shot(page: Page, name: string) {
   await page.evaluate(() => window.scrollTo(0, 0));
   await screenshot(page, name);
 }
-
-const saved = (page: Page) => page.getByTestId('autosave-status').getByText(/^Saved \d/).waitFor({ timeout: 15_000 });
 
 describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
   let server: RunningServer;

@@ -4,6 +4,7 @@ import type { Lesson, LessonBook } from '../../shared/schemas/lessons';
 import type { AppDeps } from '../deps';
 import { forbidden, invalid, notFound } from '../errors';
 import { recordAudit } from '../db/repositories/audit-log';
+import { containsText } from '../db/repositories/text-match';
 
 /** Verified lessons grouped by cause (causes in the engine's order, then the rest), plus the pinned checklist. */
 export async function listLessons({ db }: AppDeps, q?: string): Promise<LessonBook> {
@@ -15,8 +16,7 @@ export async function listLessons({ db }: AppDeps, q?: string): Promise<LessonBo
     .where('cases.lesson_summary', 'is not', null)
     .where('cases.lesson_summary', '!=', '');
   if (q) {
-    const like = `%${q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    query = query.where((eb) => eb.or([eb('cases.lesson_summary', 'like', like), eb('cases.lesson_detail', 'like', like), eb('cases.title', 'like', like)]));
+    query = query.where((eb) => eb.or([containsText('cases.lesson_summary', q), containsText('cases.lesson_detail', q), containsText('cases.title', q)]));
   }
   const rows = await query.orderBy('cases.verified_at', 'desc').execute();
   const lessons: Lesson[] = rows.map((r) => ({

@@ -192,6 +192,11 @@ describe('case write-ups', () => {
     expect(inReview.cases.every((c: { status: string }) => c.status === 'in_review')).toBe(true);
     expect((await mod.get('/api/cases?cause=attenuation-mismatch')).body.total).toBe(1);
     expect((await mod.get('/api/cases?q=SPI')).body.cases[0].title).toMatch(/SPI/);
+    // % and _ are text, not wildcards
+    await mod.post('/api/cases', { title: 'Output sat at 50% of the rail', summary: 'a percent sign in the title' }).expect(201);
+    expect((await mod.get('/api/cases?q=50%25')).body.cases.map((c: { title: string }) => c.title)).toEqual(['Output sat at 50% of the rail']);
+    expect((await mod.get('/api/cases?q=%25%25')).body.total).toBe(0);
+    expect((await mod.get('/api/cases?q=_')).body.total).toBe(0);
     expect(Object.keys(all.cases[0]).sort()).toEqual(['authorName', 'cause', 'createdAt', 'id', 'status', 'summary', 'tags', 'title', 'updatedAt']);
     expect(existsSync(ctx.config.dataDir)).toBe(true);
   });

@@ -3,6 +3,7 @@ import type { Actor } from '../../../shared/auth/roles';
 import { canModerate } from '../../../shared/auth/roles';
 import type { CaseListQuery } from '../../../shared/schemas/case';
 import type { CasesTable, Db } from '../database';
+import { containsText } from './text-match';
 
 export type CaseRow = Selectable<CasesTable>;
 export type CaseRowWithAuthor = CaseRow & { author_name: string };
@@ -44,8 +45,8 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise
     base = base.where((eb) => eb.exists(eb.selectFrom('case_tags').select('case_tags.tag').whereRef('case_tags.case_id', '=', 'cases.id').where('case_tags.tag', '=', tag)));
   }
   if (q.q) {
-    const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    base = base.where((eb) => eb.or([eb('cases.title', 'like', like), eb('cases.summary', 'like', like)]));
+    const text = q.q;
+    base = base.where((eb) => eb.or([containsText('cases.title', text), containsText('cases.summary', text)]));
   }
   const { n } = await base.select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   const desc = q.sort.startsWith('-');

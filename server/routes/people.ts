@@ -1,12 +1,10 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { inviteSchema, updatePersonSchema } from '../../shared/schemas/auth';
 import type { AppDeps } from '../deps';
 import { requireRole } from '../middleware/require-auth';
 import { parseInput } from '../middleware/validate';
 import { invitePerson, listPeople, updatePerson } from '../services/people';
-
-const idSchema = z.coerce.number().int().positive();
+import { idParam } from './cases';
 
 export function peopleRoutes(deps: AppDeps) {
   const r = Router();
@@ -22,7 +20,7 @@ export function peopleRoutes(deps: AppDeps) {
   });
 
   r.patch('/:id', async (req, res) => {
-    const id = parseInput(idSchema, req.params.id, 'The person id');
+    const id = parseInput(idParam, req.params.id, 'The person id');
     const person = await updatePerson(deps, req.user!, id, parseInput(updatePersonSchema, req.body, 'The change'));
     res.json({ person });
   });

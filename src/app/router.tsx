@@ -9,7 +9,7 @@ import { SignInPage } from '../features/auth/components/SignInPage';
 import { AppShell } from './AppShell';
 import { BenchRoute } from './routes/bench';
 import { DiagnoseRoute } from './routes/diagnose';
-import { CaseRoute, CasesRoute, EditCaseRoute, NewCaseRoute } from './routes/cases';
+import { CaseEditorRoute, CaseRoute, CasesRoute } from './routes/cases';
 import { NotFoundRoute } from './routes/not-built';
 import { OutboxRoute, PeopleRoute } from './routes/admin';
 import { LessonsRoute } from './routes/lessons';
@@ -33,9 +33,9 @@ export const routes: RouteObject[] = [
       { path: '/', element: guarded(<BenchRoute />) },
       { path: '/profile', element: guarded(<ProfilePage />) },
       { path: '/cases', element: guarded(<CasesRoute />) },
-      { path: '/cases/new', element: guarded(<NewCaseRoute />) },
+      { path: '/cases/new', element: guarded(<CaseEditorRoute />) },
       { path: '/cases/:id', element: guarded(<CaseRoute />) },
-      { path: '/cases/:id/edit', element: guarded(<EditCaseRoute />) },
+      { path: '/cases/:id/edit', element: guarded(<CaseEditorRoute />) },
       { path: '/diagnose', element: guarded(<DiagnoseRoute />) },
       { path: '/lessons', element: guarded(<LessonsRoute />) },
       { path: '/help', element: guarded(<HelpIndexRoute />) },

@@ -83,8 +83,15 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
     // the first save needs a title and a summary; it creates the draft and moves to its edit page
     await page.getByLabel('Title').fill(TITLE);
     await page.getByLabel('Symptom in one line').fill('Gate pulses showed 1.2 V where the driver puts out 12 V');
+    // typing on while the first save creates the case: the same field stays, with focus and text
+    const narrative = await page.getByLabel('Narrative', { exact: true }).elementHandle();
+    await narrative!.focus();
+    await page.keyboard.type('Probing the **low-side gate** ');
     await page.waitForURL(/\/cases\/\d+\/edit$/, { timeout: 15_000 });
     caseId = Number(/\/cases\/(\d+)\/edit/.exec(page.url())![1]);
+    await page.keyboard.type('with the bench probe.');
+    expect(await narrative!.evaluate((el) => el.isConnected && document.activeElement === el)).toBe(true);
+    await expect(page.getByLabel('Narrative', { exact: true }).inputValue()).resolves.toBe('Probing the **low-side gate** with the bench probe.');
 
     await page.getByLabel('Narrative', { exact: true }).fill('Probing the **low-side gate** with the bench probe.\n\n- probe switch at 10x\n- channel still set to 1x from the last job');
     await page.getByRole('region', { name: 'Narrative preview' }).getByText('low-side gate').waitFor();

@@ -31,15 +31,12 @@ const CapturePlot = lazy(() => import('../../features/captures/components/Captur
 
 export const CasesRoute = CasesPage;
 
-export function NewCaseRoute() {
+/** /cases/new and /cases/:id/edit share this component, so a new case's editor survives its own creation. */
+export function CaseEditorRoute() {
   const { user } = useMe();
-  return user ? <CaseEditor caseId={null} userId={user.id} /> : null;
-}
-
-export function EditCaseRoute() {
-  const { user } = useMe();
+  const isNew = useParams().id === undefined;
   const id = useCaseId();
-  if (id === null) return <NoSuchCase />;
+  if (!isNew && id === null) return <NoSuchCase />;
   return user ? <CaseEditor caseId={id} userId={user.id} /> : null;
 }
 

@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useState } from 'react';
 import { useWatch } from 'react-hook-form';
 import { Link, useNavigate } from 'react-router-dom';
 import { hazardousLive } from '../../../../shared/safety/hazard';
@@ -12,7 +12,6 @@ import { readQuantity } from '../../../lib/quantity';
 import { useCase } from '../api/get-case';
 import { caseFormSchema } from '../form/case-form-schema';
 import { caseToFormValues } from '../form/case-form-values';
-import { createdHandoff } from '../hooks/local-draft';
 import { useAttachmentUploads } from '../hooks/use-attachment-uploads';
 import { useCaseAutosave } from '../hooks/use-case-autosave';
 import { usePasteFiles } from '../hooks/use-paste-files';
@@ -38,52 +37,34 @@ const SECTIONS = [
   { id: 'lesson', title: 'Lesson' },
 ];
 
-function useStart(initialCase: Case | null) {
-  // an editor that just created this case hands over what was typed there
-  const [start] = useState(() => {
-    const handoff = initialCase ? createdHandoff.get(initialCase.id) : undefined;
-    return handoff
-      ? { values: handoff.values(), saved: { json: handoff.savedJson, at: handoff.savedAt }, handoff }
-      : { values: caseToFormValues(initialCase), saved: undefined, handoff: undefined };
-  });
-  return start;
-}
-
 export interface CaseFormProps {
   initialCase: Case | null;
   userId: number;
+  /** The first save of a new case created it; the same form carries on at its /edit address. */
+  onCreated?: (caseId: number) => void;
 }
 
 /** The case editor: six sections, autosaved as a draft, with the engine's live view beside it. */
-export function CaseForm({ initialCase, userId }: CaseFormProps) {
+export function CaseForm({ initialCase, userId, onCreated }: CaseFormProps) {
   const navigate = useNavigate();
-  const start = useStart(initialCase);
-  const form = useZodForm(caseFormSchema, start.values);
-  const onCreated = useCallback(
-    (c: Case, savedJson: string) => {
-      createdHandoff.set(c.id, { values: () => structuredClone(form.getValues()), savedJson, savedAt: new Date() });
+  const [initialValues] = useState(() => caseToFormValues(initialCase));
+  const form = useZodForm(caseFormSchema, initialValues);
+  const [caseId, setCaseId] = useState<number | null>(initialCase?.id ?? null);
+  const created = useCallback(
+    (c: Case) => {
+      setCaseId(c.id);
+      onCreated?.(c.id);
       navigate(`/cases/${c.id}/edit`, { replace: true });
     },
-    [form, navigate],
+    [navigate, onCreated],
   );
-  const autosave = useCaseAutosave({ form, userId, initialCase, initialSaved: start.saved, onCreated });
-  const caseId = initialCase?.id ?? null;
+  const autosave = useCaseAutosave({ form, userId, initialCase, onCreated: created });
   const live = useCase(caseId ?? 0);
   const current = live.data?.case ?? initialCase;
-  const { adoptServerCase, changed } = autosave;
+  const { adoptServerCase } = autosave;
   useEffect(() => {
     if (live.data) adoptServerCase(live.data.case);
   }, [adoptServerCase, live.data]);
-  const handedOver = useRef(false);
-  useEffect(() => {
-    if (handedOver.current || !start.handoff || !initialCase) return;
-    handedOver.current = true;
-    createdHandoff.delete(initialCase.id);
-    // the router rendered this screen ahead of showing it; keystrokes into the old one since then count too
-    const latest = start.handoff.values();
-    if (JSON.stringify(latest) !== JSON.stringify(form.getValues())) form.reset(latest, { keepDefaultValues: true });
-    if (JSON.stringify(latest) !== start.handoff.savedJson) changed();
-  }, [changed, form, initialCase, start]);
 
   const uploads = useAttachmentUploads(caseId);
   usePasteFiles(uploads.start);
@@ -97,7 +78,7 @@ export function CaseForm({ initialCase, userId }: CaseFormProps) {
   return (
     <form
       noValidate
-      aria-label={initialCase ? 'Edit case' : 'New case'}
+      aria-label={caseId ? 'Edit case' : 'New case'}
       onSubmit={(e) => {
         e.preventDefault();
         void autosave.flush();
@@ -112,7 +93,7 @@ export function CaseForm({ initialCase, userId }: CaseFormProps) {
     >
       <div className="-mx-4 border-b border-rule bg-paper/95 px-4 py-3 backdrop-blur sm:sticky sm:top-0 sm:z-20">
         <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
-          <h1 className="mr-auto text-xl sm:text-2xl">{initialCase ? 'Edit case' : 'New case'}</h1>
+          <h1 className="mr-auto text-xl sm:text-2xl">{caseId ? 'Edit case' : 'New case'}</h1>
           {current && <StatusBadge status={current.status} />}
           <AutosaveStatus state={autosave.state} isNew={caseId === null} />
           <CaseFormActions caseId={caseId} current={current} flush={autosave.flush} />
@@ -127,7 +108,7 @@ export function CaseForm({ initialCase, userId }: CaseFormProps) {
           <AutosaveStatus state={autosave.state} quiet />
         </div>
       )}
-      <RestoreDraftBanner form={form} userId={userId} caseId={caseId} serverCase={initialCase} skip={Boolean(start.saved)} />
+      <RestoreDraftBanner form={form} userId={userId} caseId={initialCase?.id ?? null} serverCase={initialCase} />
       {autosave.state.kind === 'failed' && autosave.state.conflict && (
         <Alert tone="caution" title="Someone else saved this case while you were editing">
           <p>Your edits are kept in this browser. Reload to see the newer version; you will be offered your edits to put back.</p>

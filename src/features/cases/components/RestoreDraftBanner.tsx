@@ -12,14 +12,11 @@ export interface RestoreDraftBannerProps {
   userId: number;
   caseId: number | null;
   serverCase: Case | null;
-  /** The editor continues one that just created the case: nothing to offer. */
-  skip?: boolean;
 }
 
 /** Offers edits kept in this browser that never reached the server (a reload, a lost connection, a conflict). */
-export function RestoreDraftBanner({ form, userId, caseId, serverCase, skip }: RestoreDraftBannerProps) {
+export function RestoreDraftBanner({ form, userId, caseId, serverCase }: RestoreDraftBannerProps) {
   const [draft, setDraft] = useState<LocalDraft | null>(() => {
-    if (skip) return null;
     const d = readLocalDraft(userId, caseId);
     if (!d || JSON.stringify(d.values) === JSON.stringify(form.getValues())) return null;
     return d;

@@ -55,10 +55,3 @@ export function clearLocalDraft(userId: number, caseId: number | null) {
     /* nothing to clear */
   }
 }
-
-/**
- * Hand-over from the editor that created a draft to the one that continues it at
- * /cases/:id/edit. `values` reads the old form when the new one mounts: the router keeps the
- * old screen up during the navigation, and what is typed there meanwhile must not be lost.
- */
-export const createdHandoff = new Map<number, { values: () => CaseFormValues; savedJson: string; savedAt: Date }>();

@@ -34,33 +34,29 @@ export interface AutosaveOptions {
   form: CaseFormApi;
   userId: number;
   initialCase: Case | null;
-  /** What the form was last saved as, when it continues an editor that just created the case. */
-  initialSaved?: { json: string; at: Date };
-  /** The first save created the case; `savedJson` is the form as that save sent it. */
-  onCreated: (c: Case, savedJson: string) => void;
+  /** The first save created the case; this editor goes on saving to it. */
+  onCreated: (c: Case) => void;
 }
 
 /**
  * Debounced draft autosave: every change is kept in localStorage at once and sent to the server
  * AUTOSAVE_DELAY_MS after typing stops, one request at a time. The first successful save of a
- * new case creates it. A 409 whose server copy matches what this editor last saved (only an
+ * new case creates it, and later saves go to that case. A 409 whose server copy matches what this editor last saved (only an
  * attachment changed the version) is retried on the new version; a real conflict stops and says so.
  */
-export function useCaseAutosave({ form, userId, initialCase, initialSaved, onCreated }: AutosaveOptions) {
+export function useCaseAutosave({ form, userId, initialCase, onCreated }: AutosaveOptions) {
   const { mutateAsync: createCase } = useCreateCase();
   const { mutateAsync: updateCase } = useUpdateCase();
   const caseId = useRef<number | null>(initialCase?.id ?? null);
   const base = useRef<string | null>(initialCase?.updatedAt ?? null);
-  const savedJson = useRef(initialSaved?.json ?? JSON.stringify(form.getValues()));
-  const savedCanonical = useRef(canonical(initialSaved ? (JSON.parse(initialSaved.json) as CaseFormValues) : form.getValues()));
-  const [state, setState] = useState<SaveState>(initialSaved ? { kind: 'saved', at: initialSaved.at } : { kind: 'clean' });
+  const savedJson = useRef(JSON.stringify(form.getValues()));
+  const savedCanonical = useRef(canonical(form.getValues()));
+  const [state, setState] = useState<SaveState>({ kind: 'clean' });
   const timer = useRef<ReturnType<typeof setTimeout>>(undefined);
   const running = useRef<Promise<boolean> | null>(null);
   const again = useRef(false);
   // after a real conflict, keep edits locally but stop sending them until the editor reloads
   const conflicted = useRef(false);
-  // a new case's editor hands over to the /cases/:id/edit one once the create lands
-  const retired = useRef(false);
 
   const send = useCallback(
     async (values: CaseFormValues, retried = false): Promise<Case> => {
@@ -80,7 +76,6 @@ export function useCaseAutosave({ form, userId, initialCase, initialSaved, onCre
   );
 
   const saveOnce = useCallback(async (): Promise<boolean> => {
-    if (retired.current) return true;
     const values = form.getValues();
     const json = JSON.stringify(values);
     if (json === savedJson.current && caseId.current !== null) return true;
@@ -98,16 +93,18 @@ export function useCaseAutosave({ form, userId, initialCase, initialSaved, onCre
       savedJson.current = json;
       savedCanonical.current = canonical(values);
       const at = new Date();
-      if (JSON.stringify(form.getValues()) === json) {
+      const now = form.getValues();
+      if (JSON.stringify(now) === json) {
         clearLocalDraft(userId, saved.id);
         setState({ kind: 'saved', at });
       } else {
         again.current = true;
+        // typed while the save was on its way: kept under the case's own key until the next save
+        writeLocalDraft(userId, saved.id, { values: now, editedAt: new Date().toISOString(), baseUpdatedAt: saved.updatedAt, baseValues: values });
       }
       if (wasNew) {
-        retired.current = true;
         clearLocalDraft(userId, null);
-        onCreated(saved, json);
+        onCreated(saved);
       }
       return true;
     } catch (err) {
@@ -132,7 +129,7 @@ export function useCaseAutosave({ form, userId, initialCase, initialSaved, onCre
     }
     running.current = saveOnce();
     let ok = await running.current;
-    while (ok && again.current && !retired.current) {
+    while (ok && again.current) {
       again.current = false;
       running.current = saveOnce();
       ok = await running.current;
@@ -151,7 +148,7 @@ export function useCaseAutosave({ form, userId, initialCase, initialSaved, onCre
       return;
     }
     writeLocalDraft(userId, caseId.current, { values, editedAt: new Date().toISOString(), baseUpdatedAt: base.current, baseValues: JSON.parse(savedJson.current) as CaseFormValues });
-    if (conflicted.current || retired.current) return;
+    if (conflicted.current) return;
     setState({ kind: 'dirty' });
     timer.current = setTimeout(() => {
       if (running.current) again.current = true;

@@ -2,12 +2,19 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   test: {
-    include: ['tests/**/*.test.ts'],
     environment: 'node',
     globalSetup: ['tests/global-setup.ts'],
-    testTimeout: 30_000,
     hookTimeout: 60_000,
     // e2e suites each start a server and a browser; 2 cores cannot run many at once
     maxWorkers: 2,
+    projects: [
+      { extends: true, test: { name: 'unit', include: ['tests/shared/**/*.test.ts', 'tests/server/**/*.test.ts'], testTimeout: 30_000 } },
+      {
+        extends: true,
+        // a real browser on a busy 2-core machine is slow; the time limits are generous, and
+        // each wait inside the test gives up first, naming what it waited for
+        test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], testTimeout: 120_000, hookTimeout: 120_000, setupFiles: ['tests/e2e/setup.ts'] },
+      },
+    ],
   },
 });

@@ -56,7 +56,7 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       await page.goto(`${server.baseUrl}/cases/new`);
       await page.getByLabel('Title').fill(TITLE);
       await page.getByLabel('Symptom in one line').fill('About 115 MHz of ringing after every rising edge of the 25 Ω clock driver');
-      await page.waitForURL(/\/cases\/\d+\/edit$/, { timeout: 15_000 });
+      await page.waitForURL(/\/cases\/\d+\/edit$/);
       const caseId = Number(/\/cases\/(\d+)\/edit/.exec(page.url())![1]);
 
       await page.getByLabel('Nominal attenuation').fill('10x');
@@ -71,7 +71,7 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
 
       await dropFile(page, 'clock-edge.csv', ringingCsv());
       const offer = page.getByRole('region', { name: 'Observed values from clock-edge.csv' });
-      await offer.waitFor({ timeout: 15_000 });
+      await offer.waitFor();
       // nothing is filled until the author confirms
       expect(await page.getByLabel('Observed amplitude').inputValue()).toBe('');
       await offer.getByRole('button', { name: 'Fill the observed values from this capture' }).click();
@@ -93,7 +93,7 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
 
       await page.goto(`${server.baseUrl}/cases/${caseId}`);
       const figure = page.getByRole('figure', { name: /Capture clock-edge\.csv/ });
-      await figure.locator('canvas').waitFor({ timeout: 15_000 });
+      await figure.locator('canvas').waitFor();
       const legend = figure.getByRole('list', { name: 'Legend' });
       await legend.getByText(/^Model \(ground-lead ringing\)/).waitFor();
       await legend.getByText('Capture', { exact: true }).waitFor();
@@ -142,7 +142,7 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       const phone = await (await browser.newContext({ viewport: { width: 390, height: 844 }, storageState: await context.storageState() })).newPage();
       await phone.goto(`${server.baseUrl}/cases/${caseId}`);
       const phoneFigure = phone.getByRole('figure', { name: /Capture clock-edge\.csv/ });
-      await phoneFigure.locator('canvas').waitFor({ timeout: 15_000 });
+      await phoneFigure.locator('canvas').waitFor();
       const overflow = await phone.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
       expect(overflow).toBeLessThanOrEqual(0);
       await phoneFigure.getByRole('button', { name: 'Zoom in' }).click();

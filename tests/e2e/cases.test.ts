@@ -87,7 +87,7 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
     const narrative = await page.getByLabel('Narrative', { exact: true }).elementHandle();
     await narrative!.focus();
     await page.keyboard.type('Probing the **low-side gate** ');
-    await page.waitForURL(/\/cases\/\d+\/edit$/, { timeout: 15_000 });
+    await page.waitForURL(/\/cases\/\d+\/edit$/);
     caseId = Number(/\/cases\/(\d+)\/edit/.exec(page.url())![1]);
     await page.keyboard.type('with the bench probe.');
     expect(await narrative!.evaluate((el) => el.isConnected && document.activeElement === el)).toBe(true);
@@ -136,9 +136,9 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
     await panel.getByText('1. Attenuation setting mismatch').waitFor();
 
     await pasteImage(page, await tracePng());
-    await page.getByRole('img', { name: /^Screenshot pasted-/ }).waitFor({ timeout: 15_000 });
+    await page.getByRole('img', { name: /^Screenshot pasted-/ }).waitFor();
     await dropFile(page, 'gate-capture.csv', squareCsv());
-    await page.getByRole('button', { name: 'Remove gate-capture.csv' }).waitFor({ timeout: 15_000 });
+    await page.getByRole('button', { name: 'Remove gate-capture.csv' }).waitFor();
 
     await page.getByLabel('Stated cause').selectOption('attenuation-mismatch');
     await page.getByLabel('Fix', { exact: true }).fill('Set the channel to 10x; the gate read 12 V.');
@@ -241,7 +241,7 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
     } finally {
       await context.close();
     }
-  }, 60_000);
+  });
 
   it('should list my drafts and recently verified cases on the Bench', async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
@@ -251,7 +251,7 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
       await page.goto(`${server.baseUrl}/cases/new`);
       await page.getByLabel('Title').fill('Half-finished: ringing on the SPI clock');
       await page.getByLabel('Symptom in one line').fill('Ringing at about 150 MHz after each edge');
-      await page.waitForURL(/\/cases\/\d+\/edit$/, { timeout: 15_000 });
+      await page.waitForURL(/\/cases\/\d+\/edit$/);
       await saved(page);
       await page.getByRole('link', { name: 'Bench' }).click();
       const drafts = page.getByRole('region', { name: 'My drafts' }).or(page.locator('section', { has: page.getByRole('heading', { name: 'My drafts' }) }));
@@ -263,5 +263,5 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
     } finally {
       await context.close();
     }
-  }, 60_000);
+  });
 });

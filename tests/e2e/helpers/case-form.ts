@@ -15,4 +15,4 @@ export async function dropFile(page: Page, name: string, text: string) {
 }
 
 /** Waits until the form's autosave says it saved. */
-export const saved = (page: Page) => page.getByTestId('autosave-status').getByText(/^Saved \d/).waitFor({ timeout: 15_000 });
+export const saved = (page: Page) => page.getByTestId('autosave-status').getByText(/^Saved \d/).waitFor();

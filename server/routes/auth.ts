@@ -43,7 +43,8 @@ export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPass
   });
 
   r.get('/me', (req, res) => {
-    res.json({ user: req.user ?? null });
+    // localMail: the Outbox screen exists only while mails go to the local fake
+    res.json({ user: req.user ?? null, localMail: deps.mailer.usesLocalFake });
   });
 
   r.post('/login', loginLimiter, (req, res, next) => {

@@ -19,7 +19,7 @@ const linkClass = ({ isActive }: { isActive: boolean }) =>
   `rounded-md px-3 py-1.5 text-sm font-semibold ${isActive ? 'bg-ink text-paper' : 'text-ink hover:bg-rule/50'}`;
 
 export function AppShell() {
-  const { user } = useMe();
+  const { user, localMail } = useMe();
   const logout = useLogout();
   const navigate = useNavigate();
   const [menuOpen, setMenuOpen] = useState(false);
@@ -50,7 +50,7 @@ export function AppShell() {
                 aria-label="Main"
                 className={`${menuOpen ? 'flex' : 'hidden'} w-full flex-col gap-1 md:ml-6 md:flex md:w-auto md:flex-row`}
               >
-                {navFor(user.role).map((item) => (
+                {navFor(user.role, { localMail }).map((item) => (
                   <NavLink key={item.to} to={item.to} end={item.to === '/'} className={linkClass} onClick={() => setMenuOpen(false)}>
                     {item.label}
                   </NavLink>

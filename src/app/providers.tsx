@@ -1,6 +1,6 @@
 import { QueryClientProvider } from '@tanstack/react-query';
 import { useEffect, useState, type ReactNode } from 'react';
-import { authKeys } from '../features/auth/api/get-me';
+import { setMe } from '../features/auth/api/get-me';
 import { onUnauthenticated } from '../lib/api-client';
 import { createQueryClient } from '../lib/query-client';
 
@@ -10,7 +10,7 @@ export function AppProviders({ children }: { children: ReactNode }) {
   useEffect(
     () =>
       onUnauthenticated(() => {
-        queryClient.setQueryData(authKeys.me(), { user: null });
+        setMe(queryClient, null);
       }),
     [queryClient],
   );

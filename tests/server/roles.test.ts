@@ -59,6 +59,8 @@ describe('role matrix over the People and Outbox routes', () => {
     const token = (await agent.get('/api/auth/csrf')).body.csrfToken;
     await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: 'admin@falsetrace.test', password: 'demo-probe-2026' }).expect(200);
     await agent.get('/api/dev/outbox').expect(404);
+    // the client hides the Outbox link on this answer
+    expect((await agent.get('/api/auth/me')).body.localMail).toBe(false);
     (app.locals.sessionStore as { close(): void }).close();
   });
 });

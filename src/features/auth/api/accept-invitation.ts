@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AcceptInvitationInput, User } from '../../../../shared/schemas/auth';
 import { api, resetCsrfToken } from '../../../lib/api-client';
-import { authKeys } from './get-me';
+import { setMe } from './get-me';
 
 export const acceptInvitation = (input: AcceptInvitationInput) =>
   api<{ user: User }>('/api/auth/invitations/accept', { method: 'POST', body: input });
@@ -12,7 +12,7 @@ export function useAcceptInvitation() {
     mutationFn: acceptInvitation,
     onSuccess: ({ user }) => {
       resetCsrfToken();
-      qc.setQueryData(authKeys.me(), { user });
+      setMe(qc, user);
     },
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { LoginInput, User } from '../../../../shared/schemas/auth';
 import { api, resetCsrfToken } from '../../../lib/api-client';
-import { authKeys } from './get-me';
+import { setMe } from './get-me';
 
 export const login = (input: LoginInput) => api<{ user: User }>('/api/auth/login', { method: 'POST', body: input, quiet401: true });
 
@@ -12,7 +12,7 @@ export function useLogin() {
     onSuccess: ({ user }) => {
       resetCsrfToken();
       qc.clear();
-      qc.setQueryData(authKeys.me(), { user });
+      setMe(qc, user);
     },
   });
 }

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, resetCsrfToken } from '../../../lib/api-client';
-import { authKeys } from './get-me';
+import { setMe } from './get-me';
 
 export const logout = () => api<{ ok: true }>('/api/auth/logout', { method: 'POST', quiet401: true });
 
@@ -11,7 +11,7 @@ export function useLogout() {
     onSettled: () => {
       resetCsrfToken();
       qc.clear();
-      qc.setQueryData(authKeys.me(), { user: null });
+      setMe(qc, null);
     },
   });
 }

@@ -8,4 +8,4 @@ export const getOutbox = () => api<{ messages: OutboxMessage[] }>('/api/dev/outb
 
 export const outboxQueryOptions = () => queryOptions({ queryKey: outboxKeys.all, queryFn: getOutbox, staleTime: 0 });
 
-export const useOutbox = () => useQuery(outboxQueryOptions());
+export const useOutbox = (enabled = true) => useQuery({ ...outboxQueryOptions(), enabled });

@@ -2,6 +2,7 @@ import { Fragment } from 'react';
 import { Alert } from '../../../components/ui/Alert';
 import { Button } from '../../../components/ui/Button';
 import { Loading, PageHeader, Panel } from '../../../components/ui/Panel';
+import { useMe } from '../../auth/api/get-me';
 import { useOutbox } from '../api/get-outbox';
 
 /** Plain text with its URLs made clickable; the HTML part is never rendered here. */
@@ -23,7 +24,20 @@ function LinkedText({ text }: { text: string }) {
 }
 
 export function OutboxPage() {
-  const outbox = useOutbox();
+  const { localMail, isFetching } = useMe();
+  const outbox = useOutbox(localMail);
+  if (!localMail && !isFetching)
+    return (
+      <>
+        <PageHeader title="Outbox" />
+        <Panel>
+          <p>
+            This server sends its mail to the SMTP relay set in <code className="font-mono">SMTP_URL</code>, so there is no local outbox to show. Mails that
+            cannot be delivered stay queued and are retried; the relay's own logs say what left.
+          </p>
+        </Panel>
+      </>
+    );
   return (
     <>
       <PageHeader

@@ -3,7 +3,8 @@ import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { requireAuth } from '../middleware/require-auth';
 import { parseInput } from '../middleware/validate';
-import { listLessons, pinLesson } from '../services/lessons';
+import { checklistOrderSchema } from '../../shared/schemas/lessons';
+import { listLessons, pinLesson, reorderChecklist } from '../services/lessons';
 import { idParam } from './cases';
 
 export function lessonRoutes(deps: AppDeps) {
@@ -16,6 +17,11 @@ export function lessonRoutes(deps: AppDeps) {
   r.post('/:caseId/pin', async (req, res) => {
     const { pinned } = parseInput(z.object({ pinned: z.boolean({ error: 'pinned must be true or false' }) }), req.body, 'The request');
     await pinLesson(deps, req.user!, parseInput(idParam, req.params.caseId, 'The case id'), pinned);
+    res.json(await listLessons(deps));
+  });
+  r.put('/checklist', async (req, res) => {
+    const { caseIds } = parseInput(checklistOrderSchema, req.body, 'The checklist order');
+    await reorderChecklist(deps, req.user!, caseIds);
     res.json(await listLessons(deps));
   });
   return r;

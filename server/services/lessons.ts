@@ -2,7 +2,7 @@ import { canModerate, type Actor } from '../../shared/auth/roles';
 import { CAUSE_LABELS, CAUSES } from '../../shared/schemas/diagnosis';
 import type { Lesson, LessonBook } from '../../shared/schemas/lessons';
 import type { AppDeps } from '../deps';
-import { forbidden, invalid, notFound } from '../errors';
+import { AppError, forbidden, invalid, notFound } from '../errors';
 import { recordAudit } from '../db/repositories/audit-log';
 import { containsText } from '../db/repositories/text-match';
 
@@ -57,4 +57,18 @@ export async function pinLesson({ db }: AppDeps, actor: Actor, caseId: number, p
     await db.deleteFrom('pinned_lessons').where('case_id', '=', caseId).execute();
   }
   await recordAudit(db, { caseId, actorId: actor.id, action: pinned ? 'pin_lesson' : 'unpin_lesson' });
+}
+
+/**
+ * Puts the bench checklist in a moderator's order. The list must hold exactly the lessons pinned
+ * now: an order made on a stale page (someone pinned or unpinned meanwhile) is refused, not guessed at.
+ */
+export async function reorderChecklist(deps: AppDeps, actor: Actor, caseIds: number[]) {
+  if (!canModerate(actor)) throw forbidden('Only moderators curate the bench checklist');
+  const current = (await listLessons(deps)).checklist.map((l) => l.caseId);
+  const same = current.length === caseIds.length && current.every((id) => caseIds.includes(id));
+  if (!same) throw new AppError('conflict', 'The checklist changed since you loaded it; reload the Lessons page and move the lesson again');
+  await deps.db.transaction().execute(async (trx) => {
+    for (const [i, caseId] of caseIds.entries()) await trx.updateTable('pinned_lessons').set({ position: i + 1 }).where('case_id', '=', caseId).execute();
+  });
 }

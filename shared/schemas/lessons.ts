@@ -1,3 +1,5 @@
+import { z } from 'zod';
+
 /** A verified case's lesson as the Lessons page and the bench checklist show it. */
 export interface Lesson {
   caseId: number;
@@ -21,3 +23,14 @@ export interface LessonBook {
   groups: LessonGroup[];
   checklist: Lesson[];
 }
+
+/** A moderator's new order for the bench checklist: every pinned lesson's case id, once, top first. */
+export const checklistOrderSchema = z.object({
+  caseIds: z
+    .array(z.number({ error: 'each case id must be a number' }).int('case ids are whole numbers').positive('case ids are positive'), {
+      error: 'caseIds must be a list of case ids',
+    })
+    .max(500, 'a checklist holds at most 500 lessons')
+    .refine((ids) => new Set(ids).size === ids.length, 'each lesson may appear only once'),
+});
+export type ChecklistOrder = z.infer<typeof checklistOrderSchema>;

@@ -248,6 +248,18 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
       const pinned = page.getByRole('list', { name: 'Pinned lessons' });
       await pinned.getByText('Check the channel attenuation setting').waitFor();
       await pinned.getByText('Use the ground spring for edges faster than 5 ns').waitFor();
+      // the spring lesson, pinned last, moves one up: it now comes before the attenuation one
+      const pinnedTexts = () => pinned.getByRole('listitem').allTextContents();
+      const springFirst = async () => {
+        const t = await pinnedTexts();
+        return t.findIndex((x) => x.includes('Use the ground spring for edges')) === t.findIndex((x) => x.includes('Check the channel attenuation setting matches')) - 1;
+      };
+      expect(await springFirst()).toBe(false);
+      await pinned.getByRole('button', { name: /^Move up: Use the ground spring/ }).click();
+      await expect.poll(springFirst).toBe(true);
+      await page.reload();
+      await pinned.getByText('Use the ground spring for edges faster than 5 ns').waitFor();
+      expect(await springFirst()).toBe(true);
       await page.evaluate(() => window.scrollTo(0, 0)); // the checklist panel is sticky; shoot it in place
       await screenshot(page, 'lessons');
 
@@ -260,10 +272,10 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
       await page.waitForURL(/\/lessons\/checklist$/);
       await page.getByRole('heading', { name: 'Bench checklist' }).waitFor();
       expect(await page.getByRole('navigation', { name: 'Main' }).count()).toBe(0);
-      // pinned last, so they close the list, in the order they were pinned
+      // pinned last, so they close the list, in the order the moderator set
       const items = await page.locator('article ol > li').allTextContents();
-      expect(items.at(-2)).toContain('Check the channel attenuation setting');
-      expect(items.at(-1)).toContain('Use the ground spring');
+      expect(items.at(-2)).toContain('Use the ground spring');
+      expect(items.at(-1)).toContain('Check the channel attenuation setting');
       await screenshot(page, 'checklist-print-view');
       await page.emulateMedia({ media: 'print' });
       await screenshot(page, 'checklist-print-media');

@@ -40,6 +40,36 @@ describe('lessons, tags, watches and the digest', () => {
     expect((await eng.get('/api/lessons?q=nothing-like-this')).body.groups).toHaveLength(0);
   });
 
+  it('should let moderators reorder the bench checklist, refusing a stale or malformed order', async () => {
+    const second = (
+      await eng.post('/api/cases', { title: 'Channel left at 1x', summary: 'a tenth of the gate drive', statedCause: 'attenuation-mismatch', lessonSummary: 'Check the channel setting after a probe swap' })
+    ).body.case.id as number;
+    await eng.post(`/api/cases/${second}/submit`).expect(200);
+    await mod.post(`/api/cases/${second}/review`, { action: 'verify' }).expect(200);
+    await mod.post(`/api/lessons/${verifiedId}/pin`, { pinned: true }).expect(200);
+    const pinned = (await mod.post(`/api/lessons/${second}/pin`, { pinned: true }).expect(200)).body;
+    const ids = (book: { checklist: { caseId: number }[] }) => book.checklist.map((l) => l.caseId);
+    expect(ids(pinned)).toEqual([verifiedId, second]);
+
+    await eng.put('/api/lessons/checklist', { caseIds: [second, verifiedId] }).expect(403);
+    const moved = (await mod.put('/api/lessons/checklist', { caseIds: [second, verifiedId] }).expect(200)).body;
+    expect(ids(moved)).toEqual([second, verifiedId]);
+    expect(ids((await eng.get('/api/lessons').expect(200)).body)).toEqual([second, verifiedId]);
+
+    // a page that missed a pin or unpin sends an order of the wrong set: refused, nothing moves
+    const stale = await mod.put('/api/lessons/checklist', { caseIds: [verifiedId] }).expect(409);
+    expect(stale.body.error).toMatch(/checklist changed/);
+    const twice = await mod.put('/api/lessons/checklist', { caseIds: [second, second] }).expect(400);
+    expect(twice.body.error).toMatch(/only once/);
+    await mod.put('/api/lessons/checklist', { caseIds: 'all of them' }).expect(400);
+    expect(ids((await eng.get('/api/lessons').expect(200)).body)).toEqual([second, verifiedId]);
+
+    // a lesson pinned later goes to the bottom
+    await mod.post(`/api/lessons/${second}/pin`, { pinned: false }).expect(200);
+    const again = (await mod.post(`/api/lessons/${second}/pin`, { pinned: true }).expect(200)).body;
+    expect(ids(again)).toEqual([verifiedId, second]);
+  });
+
   it('should rename, merge, add synonyms to and retire tags, for moderators only', async () => {
     await eng.post('/api/tags/x10/rename', { to: '10x' }).expect(403);
     await mod.post('/api/tags/x10/rename', { to: '10x' }).expect(200);

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { LessonBook } from '../../../../shared/schemas/lessons';
-import { lessonKeys } from './get-lessons';
+import { storeLessonBook } from './get-lessons';
 
 export const pinLesson = ({ caseId, pinned }: { caseId: number; pinned: boolean }) =>
   api<LessonBook>(`/api/lessons/${caseId}/pin`, { method: 'POST', body: { pinned } });
@@ -11,9 +11,6 @@ export function usePinLesson() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: pinLesson,
-    onSuccess: (book) => {
-      qc.setQueryData(lessonKeys.list(''), book);
-      return qc.invalidateQueries({ queryKey: lessonKeys.all, predicate: (q) => q.queryKey[2] !== '' });
-    },
+    onSuccess: (book) => storeLessonBook(qc, book),
   });
 }

@@ -3,7 +3,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { pngBytes, stepCsv } from './helpers/fixtures';
-import { client, createTestContext, signedIn, type TestContext } from './helpers/test-context';
+import { createTestContext, invitedEngineer, signedIn, type TestContext } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
@@ -18,13 +18,8 @@ describe('case write-ups', () => {
     ctx = await createTestContext();
     author = await signedIn(ctx, 'engineer');
     mod = await signedIn(ctx, 'moderator');
-    const admin = await signedIn(ctx, 'admin');
     // a second engineer to test what a colleague sees
-    await admin.post('/api/admin/people/invitations', { email: 'second.engineer@falsetrace.test', role: 'engineer' }).expect(201);
-    const mail = (await ctx.db.selectFrom('outbox_messages').selectAll().execute()).find((m) => m.to_addr.includes('second.engineer'))!;
-    const token = mail.text.match(/accept-invitation\/(\S+)/)![1];
-    other = await client(ctx);
-    await other.post('/api/auth/invitations/accept', { token, name: 'Second Engineer', password: 'second-engineer-pw' }).expect(201);
+    other = await invitedEngineer(ctx);
   });
   afterAll(() => ctx.close());
 

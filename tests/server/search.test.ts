@@ -7,7 +7,7 @@ import { openCaseSearch } from '../../server/search/case-search';
 import { rankCases } from '../../server/search/rank';
 import { searchSourceRows, searchTags, synonymsByTag } from '../../server/db/repositories/search-source';
 import { SEARCH_FIXTURES } from './helpers/search-fixtures';
-import { client, createTestContext, signedIn, type TestContext } from './helpers/test-context';
+import { client, createTestContext, invitedEngineer, signedIn, type TestContext } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
@@ -25,12 +25,8 @@ describe('case search', () => {
     ctx = await createTestContext();
     eng = await signedIn(ctx, 'engineer');
     mod = await signedIn(ctx, 'moderator');
-    const admin = await signedIn(ctx, 'admin');
-    await admin.post('/api/admin/people/invitations', { email: 'second.engineer@falsetrace.test', role: 'engineer' }).expect(201);
-    const mail = (await ctx.db.selectFrom('outbox_messages').selectAll().execute()).find((m) => m.to_addr.includes('second.engineer'))!;
-    const token = mail.text.match(/accept-invitation\/(\S+)/)![1];
-    other = await client(ctx);
-    await other.post('/api/auth/invitations/accept', { token, name: 'Second Engineer', password: 'second-engineer-pw' }).expect(201);
+    // a second engineer to test what a colleague sees
+    other = await invitedEngineer(ctx);
     // every fixture case filed by the engineer, submitted and verified by the moderator
     for (const { key, ...input } of SEARCH_FIXTURES) {
       const id = (await eng.post('/api/cases', input).expect(201)).body.case.id as number;

@@ -101,3 +101,14 @@ export function linkPath(text: string, publicUrl: string): string {
   if (!m) throw new Error(`no link in mail: ${text}`);
   return m[1];
 }
+
+/** A colleague who is not in the demo: invited by the admin, signed in through the invitation link. */
+export async function invitedEngineer(ctx: TestContext, email = 'second.engineer@falsetrace.test') {
+  const admin = await signedIn(ctx, 'admin');
+  await admin.post('/api/admin/people/invitations', { email, role: 'engineer' }).expect(201);
+  const mail = (await mailsTo(ctx, email)).at(-1)!;
+  const token = mail.text.match(/accept-invitation\/(\S+)/)![1];
+  const colleague = await client(ctx);
+  await colleague.post('/api/auth/invitations/accept', { token, name: 'Second Engineer', password: 'second-engineer-pw' }).expect(201);
+  return colleague;
+}

@@ -108,6 +108,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   const clientDir = options.clientDir;
   if (clientDir && existsSync(path.join(clientDir, 'index.html'))) {
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // a screen's script from an older build is gone: say so, rather than answer with the page
+    app.use('/assets', (req, _res, next) => next(new AppError('not_found', `No such file /assets${req.path}; reload the page`)));
     app.get('/{*splat}', (_req, res) => {
       res.sendFile(path.join(clientDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } });
     });

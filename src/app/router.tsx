@@ -1,5 +1,7 @@
+import { lazy, Suspense, type ComponentType } from 'react';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import type { Role } from '../../shared/auth/roles';
+import { Loading } from '../components/ui/Panel';
 import { AcceptInvitationPage } from '../features/auth/components/AcceptInvitationPage';
 import { ProfilePage } from '../features/auth/components/ProfilePage';
 import { RequireAuth } from '../features/auth/components/RequireAuth';
@@ -8,17 +10,46 @@ import { ResetRequestPage } from '../features/auth/components/ResetRequestPage';
 import { SignInPage } from '../features/auth/components/SignInPage';
 import { AppShell } from './AppShell';
 import { BenchRoute } from './routes/bench';
-import { DiagnoseRoute } from './routes/diagnose';
-import { CaseEditorRoute, CaseRoute, CasesRoute } from './routes/cases';
 import { NotFoundRoute } from './routes/not-built';
-import { OutboxRoute, PeopleRoute } from './routes/admin';
-import { LessonsRoute } from './routes/lessons';
-import { HelpIndexRoute, HelpTopicRoute } from './routes/help';
-import { ChecklistPrintPage } from '../features/lessons/components/ChecklistPrintPage';
-import { ReviewDeskPage } from '../features/review/components/ReviewDeskPage';
-import { TagCurationPage } from '../features/review/components/TagCurationPage';
 
-const guarded = (element: React.ReactNode, role?: Role) => <RequireAuth role={role}>{element}</RequireAuth>;
+const RELOADED = 'ft.reloaded-for-new-build';
+
+/** A screen's code, fetched when first opened; after a new build its old file is gone, so reload once. */
+async function loadScreen<M>(load: () => Promise<M>): Promise<M> {
+  try {
+    const m = await load();
+    sessionStorage.removeItem(RELOADED);
+    return m;
+  } catch (err) {
+    if (sessionStorage.getItem(RELOADED)) throw err;
+    sessionStorage.setItem(RELOADED, '1');
+    window.location.reload();
+    return new Promise<M>(() => {});
+  }
+}
+
+// the first screens (sign-in, Bench) come with the app; every other screen is fetched when first opened
+const screen = <M,>(load: () => Promise<M>, pick: (m: M) => ComponentType) => lazy(() => loadScreen(load).then((m) => ({ default: pick(m) })));
+const cases = () => import('./routes/cases');
+const CasesRoute = screen(cases, (m) => m.CasesRoute);
+const CaseRoute = screen(cases, (m) => m.CaseRoute);
+// one component for /cases/new and /cases/:id/edit, so a new case's editor survives its own creation
+const CaseEditorRoute = screen(cases, (m) => m.CaseEditorRoute);
+const DiagnoseRoute = screen(() => import('./routes/diagnose'), (m) => m.DiagnoseRoute);
+const LessonsRoute = screen(() => import('./routes/lessons'), (m) => m.LessonsRoute);
+const HelpIndexRoute = screen(() => import('./routes/help'), (m) => m.HelpIndexRoute);
+const HelpTopicRoute = screen(() => import('./routes/help'), (m) => m.HelpTopicRoute);
+const PeopleRoute = screen(() => import('./routes/admin'), (m) => m.PeopleRoute);
+const OutboxRoute = screen(() => import('./routes/admin'), (m) => m.OutboxRoute);
+const ChecklistPrintPage = screen(() => import('../features/lessons/components/ChecklistPrintPage'), (m) => m.ChecklistPrintPage);
+const ReviewDeskPage = screen(() => import('../features/review/components/ReviewDeskPage'), (m) => m.ReviewDeskPage);
+const TagCurationPage = screen(() => import('../features/review/components/TagCurationPage'), (m) => m.TagCurationPage);
+
+const guarded = (element: React.ReactNode, role?: Role) => (
+  <RequireAuth role={role}>
+    <Suspense fallback={<Loading />}>{element}</Suspense>
+  </RequireAuth>
+);
 
 export const routes: RouteObject[] = [
   // a sheet of paper to print: outside the shell, so no navigation chrome

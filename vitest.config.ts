@@ -12,8 +12,17 @@ export default defineConfig({
       {
         extends: true,
         // a real browser on a busy 2-core machine is slow; the time limits are generous, and
-        // each wait inside the test gives up first, naming what it waited for
-        test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], testTimeout: 120_000, hookTimeout: 120_000, setupFiles: ['tests/e2e/setup.ts'] },
+        // each wait inside the test gives up first, naming what it waited for. In CI a failed
+        // browser test runs once more (its first failure is still reported with its pages);
+        // a test that is really broken fails both times.
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+          setupFiles: ['tests/e2e/setup.ts'],
+          retry: process.env.CI ? 1 : 0,
+        },
       },
     ],
   },

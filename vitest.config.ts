@@ -22,6 +22,8 @@ export default defineConfig({
           hookTimeout: 120_000,
           setupFiles: ['tests/e2e/setup.ts'],
           retry: process.env.CI ? 1 : 0,
+          // expect.poll waits 1 s by default: far too short for a busy browser
+          expect: { poll: { timeout: 30_000 } },
         },
       },
     ],

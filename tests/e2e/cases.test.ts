@@ -101,7 +101,7 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
     await page.getByLabel('Switchable (1x / 10x)').check();
     await page.getByLabel('Switch position').fill('10x');
     await page.getByLabel('Tip resistance').fill('9Meg');
-    await expect(page.locator('output', { hasText: '= 9 MΩ' }).count()).resolves.toBe(1);
+    await expect.poll(() => page.locator('output', { hasText: '= 9 MΩ' }).count()).toBe(1);
     await page.getByLabel('Tip capacitance').fill('11.5p');
     await page.getByLabel('Probe bandwidth').fill('200 MHz');
     await page.getByLabel('Ground connection').selectOption('clip-lead');

@@ -57,7 +57,7 @@ describe.skipIf(skipBrowser)('the demo casebook in a real browser', () => {
     await signIn(page, server.baseUrl, 'engineer@falsetrace.test');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Help' }).click();
     await page.getByRole('heading', { name: 'Help', exact: true }).waitFor();
-    for (const cause of CAUSES) await expect(page.getByRole('link', { name: new RegExp(CAUSE_LABELS[cause]) }).first().isVisible(), cause).resolves.toBe(true);
+    for (const cause of CAUSES) await page.getByRole('link', { name: new RegExp(CAUSE_LABELS[cause]) }).first().waitFor();
     await screenshot(page, 'help-index');
 
     await page.getByRole('link', { name: /^Bandwidth too low for the edge/ }).first().click();

@@ -15,7 +15,7 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
     const page = await app.browser.newPage({ viewport: { width: 1280, height: 800 } });
     await page.goto(`${app.server.baseUrl}/cases`);
     await page.waitForURL(/\/sign-in\?next=%2Fcases/);
-    await expect(page.getByRole('heading', { name: 'Sign in to the casebook' }).isVisible()).resolves.toBe(true);
+    await page.getByRole('heading', { name: 'Sign in to the casebook' }).waitFor();
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByText('That is not an e-mail address').waitFor();
     await page.getByLabel('E-mail').fill('engineer@falsetrace.test');

@@ -18,10 +18,10 @@ describe.skipIf(skipBrowser)('symptom search on the Bench', () => {
     await expect.poll(() => reading.textContent()).toBe('read as: ringing at 110 MHz → ground-lead ringing');
     const results = page.getByTestId('search-result');
     await results.first().waitFor();
-    await expect(results.first().locator('mark').count()).resolves.toBeGreaterThan(0);
+    await expect.poll(() => results.first().locator('mark').count()).toBeGreaterThan(0);
     // marks are elements the client made, from plain text: no markup of a case is rendered
     await expect(results.first().locator('mark').first().innerHTML()).resolves.not.toMatch(/</);
-    await expect(results.first().getByRole('link').textContent()).resolves.toMatch(/110 MHz/);
+    await expect.poll(() => results.first().getByRole('link').textContent()).toMatch(/110 MHz/);
     await screenshot(page, 'search-ringing');
 
     const facet = page.getByRole('group', { name: 'Cause' }).getByRole('button', { name: /Ground-lead ringing/ });
@@ -39,7 +39,7 @@ describe.skipIf(skipBrowser)('symptom search on the Bench', () => {
     await page.waitForURL(/\/cases\/\d+$/);
     const similar = page.getByTestId('similar-cases');
     await similar.waitFor();
-    await expect(similar.getByRole('link').count()).resolves.toBeGreaterThan(0);
+    await expect.poll(() => similar.getByRole('link').count()).toBeGreaterThan(0);
     await screenshot(page, 'search-similar');
     await context.close();
   });

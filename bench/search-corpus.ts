@@ -1,6 +1,11 @@
 import type { SearchSourceRow } from '../server/db/repositories/search-source';
 import type { CaseStatus } from '../shared/schemas/case';
-import { CAUSES, type Cause } from '../shared/schemas/diagnosis';
+import { CAUSES as ALL_CAUSES } from '../shared/schemas/diagnosis';
+
+// The corpus covers the first six causes; the rest have no generated phrases yet.
+const CAUSES = ALL_CAUSES.slice(0, 6) as readonly FirstCause[];
+type FirstCause = 'attenuation-mismatch' | 'termination-mismatch' | 'loading' | 'bandwidth' | 'compensation' | 'ground-lead';
+type Cause = FirstCause;
 
 /** Deterministic PRNG (mulberry32) so every run searches the same corpus. */
 export function rng(seed: number) {

@@ -16,6 +16,7 @@ export interface StoredDiagnosis {
 export function clearTopCause(diagnosis: DiagnosisResult | null): Cause | null {
   const [top, second] = diagnosis?.hypotheses ?? [];
   if (!top || top.likelihood <= 0) return null;
+  if (top.cause === 'faithful') return null;
   return second && top.likelihood - second.likelihood < 1e-3 ? null : top.cause;
 }
 

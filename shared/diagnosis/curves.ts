@@ -1,4 +1,4 @@
-import type { Cause, DiagnosisInput, Hypothesis } from '../schemas/diagnosis';
+import type { DiagnosisInput, Hypothesis, HypothesisCause } from '../schemas/diagnosis';
 import type { ResolvedSetup } from './types';
 import { observedOf, resolveSetup } from './defaults';
 import { balancedDividerOf, compensationStepResponse, dividerLevels } from './compensation';
@@ -56,7 +56,7 @@ export type HypothesisFit = Pick<Hypothesis, 'predicted' | 'estimates'>;
  * fitted candidate (a trimmer setting, lead inductance or source impedance inferred from the
  * observation), the curve uses the fitted value, so it matches the numbers on the card.
  */
-export function diagnosisPlot(input: DiagnosisInput, cause: Cause, hypothesis?: HypothesisFit): DiagnosisPlot | null {
+export function diagnosisPlot(input: DiagnosisInput, cause: HypothesisCause, hypothesis?: HypothesisFit): DiagnosisPlot | null {
   const { setup } = resolveSetup(input);
   const est = hypothesis?.estimates ?? {};
   switch (cause) {
@@ -71,6 +71,8 @@ export function diagnosisPlot(input: DiagnosisInput, cause: Cause, hypothesis?: 
     case 'attenuation-mismatch':
     case 'termination-mismatch':
       return amplitudeBars(input, setup, cause, hypothesis?.predicted.amplitudeV);
+    default:
+      return null;
   }
 }
 

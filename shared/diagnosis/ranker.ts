@@ -66,12 +66,15 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
 
   const hypotheses: Hypothesis[] = ranked.map(({ candidate, predicted, residual, likelihood }) => ({
     cause: candidate.cause,
+    causes: [candidate.cause],
+    fits: true,
+    confirm: '',
     likelihood,
     predicted,
     explanation: candidate.explanation,
     fix: candidate.fix,
     ...(candidate.estimates ? { estimates: candidate.estimates } : {}),
-    ...(residual === undefined ? {} : { residual }),
+    residual: residual ?? 0,
   }));
 
   const tags = new Set<string>();
@@ -82,7 +85,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
   }
 
   const risks: Risk[] = [...ranked.flatMap((e) => e.candidate.risks ?? []), ...safetyRisks(setup)];
-  return { hypotheses, tags: [...tags], assumptions, risks };
+  return { verdict: 'measurement-error', hypotheses, tags: [...tags], assumptions, risks };
 }
 
 /** What an error-free measurement of the recorded signal would show. */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { caseStatusSchema } from './case';
-import type { Cause } from './diagnosis';
+import type { HypothesisCause } from './diagnosis';
 
 /** `GET /api/search` query. `q` is kept as typed: a trailing space says the last word is finished. */
 export const searchQuerySchema = z.object({
@@ -41,7 +41,7 @@ export interface SearchResult {
 export interface SearchReading {
   text: string;
   observations: string[];
-  causes: { cause: Cause; likelihood: number }[];
+  causes: { cause: HypothesisCause; likelihood: number }[];
 }
 
 export interface SearchResponse {

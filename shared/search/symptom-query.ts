@@ -1,5 +1,5 @@
 import { diagnose } from '../diagnosis/ranker';
-import type { Cause, DiagnosisInput } from '../schemas/diagnosis';
+import type { DiagnosisInput, HypothesisCause } from '../schemas/diagnosis';
 import { formatEngineering } from '../units/engineering';
 import { readFacts, SYMPTOM_KINDS, type Fact } from './symptom-phrases';
 
@@ -16,7 +16,7 @@ export interface SymptomReading {
   /** What was read, in words: "amplitude ×0.1", "ringing at 120 MHz". */
   observations: string[];
   /** Causes the engine says fit, most likely first. */
-  causes: { cause: Cause; likelihood: number }[];
+  causes: { cause: HypothesisCause; likelihood: number }[];
   /** Only the numbers the query itself stated (stand-ins for unstated ones are left out). */
   numbers: SymptomNumbers;
   /** "read as: amplitude ×0.1 → attenuation mismatch" */
@@ -26,13 +26,20 @@ export interface SymptomReading {
 }
 
 /** Short cause names for the reading line. */
-export const CAUSE_SHORT: Record<Cause, string> = {
+export const CAUSE_SHORT: Record<HypothesisCause, string> = {
   'attenuation-mismatch': 'attenuation mismatch',
   'termination-mismatch': 'termination mismatch',
   loading: 'loading',
   bandwidth: 'bandwidth',
   compensation: 'compensation',
   'ground-lead': 'ground-lead ringing',
+  aliasing: 'aliasing',
+  clipping: 'clipping',
+  'ac-coupling': 'AC coupling',
+  'common-mode': 'common mode',
+  'mains-pickup': 'mains hum',
+  'generator-load': 'generator load setting',
+  faithful: 'the trace is true',
 };
 
 // Stand-ins for a symptom named without a number: typical of the trade, our choices.

@@ -1,18 +1,25 @@
 import { useMemo } from 'react';
 import { diagnosisPlot, type CurveRole } from '../../../../shared/diagnosis/curves';
-import type { Cause, DiagnosisInput, Hypothesis } from '../../../../shared/schemas/diagnosis';
+import type { DiagnosisInput, Hypothesis, HypothesisCause } from '../../../../shared/schemas/diagnosis';
 import { LineChart, type ChartSeries } from '../../../components/charts/LineChart';
 import { AmplitudeBars } from './AmplitudeBars';
 
 const STYLE: Record<CurveRole, ChartSeries['style']> = { observed: 'ink', model: 'model', reference: 'reference' };
 
-const NO_PLOT: Record<Cause, string> = {
+const NO_PLOT: Record<HypothesisCause, string> = {
   'attenuation-mismatch': 'Record the expected amplitude to compare it with what the scope would show.',
   'termination-mismatch': 'Record the expected amplitude to compare it with what the scope would show.',
   loading: 'An ideal source is not loaded, so there is no response to draw; record the source resistance.',
   bandwidth: 'Record the probe or scope bandwidth to draw the magnitude response.',
   compensation: 'A 1x probe or a 50 Ω input has no compensated divider to draw.',
   'ground-lead': 'No ground lead is connected at the probe, so there is no lead resonance to draw.',
+  aliasing: 'Record the signal frequency and the sample rate to draw where the alias lands.',
+  clipping: 'Record the vertical scale and offset to draw the screen window over the signal.',
+  'ac-coupling': 'Record the signal frequency to draw the droop of an AC-coupled square.',
+  'common-mode': "Record the reference node's voltage and the probe's CMRR to draw the common-mode share.",
+  'mains-pickup': 'Record the mains frequency to draw where hum lands.',
+  'generator-load': "Record the generator's load setting and what it drives to draw the divider.",
+  faithful: 'The recorded setup explains the trace; there is no error to draw.',
 };
 
 /** The picture behind one hypothesis, or a line saying there is none for this setup. */

@@ -16,7 +16,7 @@ function agrees(key: keyof Predicted, predicted: number, observed: number): bool
 
 /** What the hypothesis says the scope shows, beside what it did show. */
 export function PredictedTable({ hypothesis, observed }: { hypothesis: Hypothesis; observed: DiagnosisInput['observed'] }) {
-  const obs = observed ?? {};
+  const obs = (observed ?? {}) as Partial<Record<string, number | null>>;
   const rows = ROWS.filter((r) => hypothesis.predicted[r.key] !== undefined || (obs[r.key] ?? null) !== null);
   if (rows.length === 0) return null;
   return (

@@ -1,6 +1,10 @@
 import type { Candidate, ModelContext } from './types';
 import { eng, factor } from './wording';
 
+/** The bench action that tells this cause from the others. */
+const CONFIRM =
+  "Read the probe's switch or marking and the channel's attenuation menu side by side, or measure a known DC rail: a round factor of 10 off points here.";
+
 /**
  * Amplitude the scope displays when the channel multiplies by one ratio and the probe
  * divides by another: shown = true × setting ÷ actual.
@@ -70,6 +74,7 @@ function recorded(
       deviation: 0,
       predicted: { amplitudeV },
       explanation: `The channel setting (${factor(setting)}x) matches the probe (${factor(actual)}x), so the vertical scale is right as recorded.`,
+      confirm: CONFIRM,
       fix: `Nothing to change; on a switchable probe, confirm the switch really is at ${factor(actual)}x.`,
       estimates,
       detailTags: [],
@@ -84,6 +89,7 @@ function recorded(
     deviation: Math.abs(Math.log(scale)),
     predicted: { amplitudeV },
     explanation: `The channel assumes ${factor(setting)}x but the probe divides by ${factor(actual)}, so the scope shows ${direction}${numbers}.`,
+    confirm: CONFIRM,
     fix: `Set the channel attenuation to ${factor(actual)}x to match the probe (most scopes cannot sense a switchable probe's position), or move the probe switch to ${factor(setting)}x.`,
     estimates,
     detailTags: [ratioTag(actual, setting)],
@@ -113,6 +119,7 @@ function hiddenSwitch(
     deviation: Math.abs(Math.log(scale)),
     predicted: { amplitudeV: expected * scale },
     explanation: `The trace is ${size} than expected (${eng(observedV, 'V')} against ${eng(expected, 'V')}), a round factor: the mark of a probe switch or channel menu that is not where the record says. It fits a ${factor(probeAt)}x probe read as ${factor(channelAt)}x.`,
+    confirm: CONFIRM,
     fix: "Look at the probe's switch and the channel's attenuation menu, make them agree, and read the amplitude again.",
     estimates,
     detailTags: [ratioTag(probeAt, channelAt)],

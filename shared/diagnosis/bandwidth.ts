@@ -8,6 +8,10 @@ import {
 } from './single-pole';
 import { eng, percent } from './wording';
 
+/** The bench action that tells this cause from the others. */
+const CONFIRM =
+  'Measure the same edge with the bandwidth limit off and a faster probe or channel: a true slow edge keeps its rise time, a bandwidth-limited one gets faster.';
+
 export interface Stage {
   name: 'probe' | 'scope' | 'bandwidth limit';
   bandwidthHz: number;
@@ -101,6 +105,7 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
       riseTimeS: setup.hasEdges ? shown : undefined,
     },
     explanation: describeChain(setup, stages, system, shown, ratio),
+    confirm: CONFIRM,
     fix: fixFor(setup, dominant),
     estimates,
     detailTags: tagsFor(setup, dominant),
@@ -120,6 +125,7 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
       deviation: shown === undefined ? Math.log(SLOW_EDGE_FACTOR) : Math.log((observedRise as number) / shown),
       predicted: { amplitudeV: expected === undefined ? undefined : expected * fittedRatio, riseTimeS: observedRise },
       explanation: `The observed ${eng(observedRise as number, 's')} edge implies an effective bandwidth of about ${eng(effectiveHz, 'Hz')} (BW ≈ 0.35/t_r${setup.signalRiseTimeS ? `, after removing the ${eng(signalRise, 's')} source edge in quadrature` : ''})${system === undefined ? '' : `, well below the ${eng(bandwidthFromRiseTimeHz(system), 'Hz')} the recorded probe and scope give`}. Look for${limitHint} a 1x probe or switch position, a slower probe than recorded, or a slow source edge.`,
+      confirm: CONFIRM,
       fix: 'Check the channel for a bandwidth-limit filter, the probe switch for 1x, and the probe model; then measure the edge again.',
       estimates,
       detailTags: ['slow-edges'],

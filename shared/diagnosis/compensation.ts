@@ -3,6 +3,10 @@ import { add, divide, magnitude, resistorParallelCapacitor } from './complex';
 import { LOW_IMPEDANCE_INPUT_OHM } from './termination-mismatch';
 import { eng, percent } from './wording';
 
+/** The bench action that tells this cause from the others. */
+const CONFIRM =
+  "Put the probe on the scope's calibrator square wave: spiked or rounded corners there, not only on the circuit, confirm the trimmer.";
+
 /** A compensated passive divider: tip R1 ∥ C1 over the scope end R2 ∥ C2. */
 export interface DividerParams {
   /** Tip resistor R1, Ω. */
@@ -107,6 +111,7 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
           setup.tipResistanceOhm > 0
             ? 'On a low-impedance input the tip network is swamped by the termination; compensation does not apply.'
             : 'A 1x probe has no divider and no compensation trimmer.',
+        confirm: CONFIRM,
         fix: 'Nothing to adjust.',
         detailTags: [],
       },
@@ -121,6 +126,7 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
       deviation: 0,
       predicted: setup.hasEdges ? { overshootPct: 0 } : {},
       explanation: `No compensation state is recorded, so the probe is taken as adjusted: R1·C1 = R2·C2 (${eng(balanced.tipResistanceOhm, 'Ω')} · ${eng(balanced.tipCapacitanceF, 'F')} = ${eng(balanced.inputResistanceOhm, 'Ω')} · ${eng(balanced.inputCapacitanceF, 'F')}) and square-wave tops are flat. Out of adjustment, an edge would jump to C1/(C1+C2) and settle to R2/(R1+R2) = ${percent(levels.settle * 100)} with τ ≈ ${eng(levels.timeConstantS, 's')}.`,
+      confirm: CONFIRM,
       fix: "Check the probe on the scope's calibrator square wave and turn the trimmer until the top is flat.",
       estimates: { timeConstantS: levels.timeConstantS, balancedTipCapacitanceF: balanced.tipCapacitanceF },
       detailTags: [],
@@ -145,6 +151,7 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
     deviation: Math.abs(Math.log(1 + pct / 100)),
     predicted: { overshootPct: cornerOvershootPct(fitted) },
     explanation: `Corners that ${over ? 'spike' : 'round off'} by ${percent(Math.abs(pct))} and recover with τ ≈ ${eng(fittedLevels.timeConstantS, 's')} mean the probe is ${over ? 'over' : 'under'}-compensated: the fast divider C1/(C1+C2) passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(c1, 'F')} instead of the ${eng(balanced.tipCapacitanceF, 'F')} that balances R2·C2.`,
+    confirm: CONFIRM,
     fix: `On the calibrator square wave, turn the compensation trimmer to ${over ? 'reduce' : 'increase'} the high-frequency gain until the corners are square, with no spike and no rounding.`,
     estimates: {
       timeConstantS: fittedLevels.timeConstantS,

@@ -14,6 +14,7 @@ export const TYPICAL = {
   springLeadM: 0.01, // common practice: ground spring fitted over the tip barrel
   groundWireRadiusM: 0.25e-3, // common practice: ground lead wire about 0.5 mm across
   sourceResistanceOhm: 50, // common practice: generator outputs and many driver outputs
+  divisions: 8, // common practice: eight vertical divisions on most screens
 } as const;
 
 const given = <T>(value: T | null | undefined): value is T => value !== null && value !== undefined;
@@ -29,6 +30,7 @@ export function resolveSetup(input: DiagnosisInput): {
   const probe = input.probe ?? {};
   const scope = input.scope ?? {};
   const signal = input.signal ?? {};
+  const circuit = input.circuit ?? {};
   const assumptions: Assumption[] = [];
   const assume = (field: string, value: number | string, unit: string, why: string) => {
     assumptions.push({ field, value, unit, why });
@@ -174,6 +176,22 @@ export function resolveSetup(input: DiagnosisInput): {
     signalRiseTimeS,
     signalKind,
     hasEdges,
+    probeKind: probe.kind ?? 'passive',
+    probeCmrrDb: probe.cmrrDb ?? undefined,
+    scopeRiseTimeS: scope.riseTimeS ?? undefined,
+    coupling: scope.coupling ?? 'dc',
+    acCornerHz: scope.acCornerHz ?? undefined,
+    sampleRateHz: scope.sampleRateHz ?? undefined,
+    voltsPerDiv: scope.voltsPerDiv ?? undefined,
+    offsetV: scope.offsetV ?? undefined,
+    divisions: scope.divisions ?? TYPICAL.divisions,
+    loadResistanceOhm: circuit.loadResistanceOhm ?? undefined,
+    referenceV: circuit.referenceV ?? undefined,
+    highestVoltageV: circuit.highestVoltageV ?? undefined,
+    mainsConnected: circuit.mainsConnected ?? undefined,
+    mainsFrequencyHz: circuit.mainsFrequencyHz ?? undefined,
+    baseV: signal.baseV ?? undefined,
+    generatorLoad: signal.generatorLoad ?? undefined,
     assumed: new Set(assumptions.map((a) => a.field)),
   };
   return { setup, assumptions };
@@ -187,5 +205,9 @@ export function observedOf(input: DiagnosisInput): Observed {
     riseTimeS: o.riseTimeS ?? undefined,
     overshootPct: o.overshootPct ?? undefined,
     ringingFrequencyHz: o.ringingFrequencyHz ?? undefined,
+    frequencyHz: o.frequencyHz ?? undefined,
+    clipped: o.clipped ?? undefined,
+    tiltPct: o.tiltPct ?? undefined,
+    humFrequencyHz: o.humFrequencyHz ?? undefined,
   };
 }

@@ -2,6 +2,10 @@ import type { Candidate, ModelContext, ResolvedSetup } from './types';
 import { chainMagnitudeAt } from './bandwidth';
 import { eng, percent } from './wording';
 
+/** The bench action that tells this cause from the others. */
+const CONFIRM =
+  'Swap the clip lead for the ground spring at the same point: ringing that moves up in frequency or vanishes came from the lead.';
+
 /** Vacuum magnetic permeability, H/m. source: CODATA 2018 recommended values. */
 export const MU0_H_PER_M = 1.25663706212e-6;
 
@@ -157,6 +161,7 @@ export function assessGroundLead({ setup, observed }: ModelContext): Candidate[]
       deviation: Math.log(1 + (shown.pct ?? 0) / 100),
       predicted: { ringingFrequencyHz: shown.ringHz ?? ring, overshootPct: shown.pct },
       explanation: `Ringing at ${eng(ring, 'Hz')} with the ${eng(setup.tipCapacitanceF, 'F')} tip capacitance implies about ${eng(inductanceH, 'H')} in the ground loop${lengthM === undefined ? '' : `, which a straight ${eng(2 * setup.groundWireRadiusM, 'm')} wire reaches at about ${eng(lengthM, 'm')}`}${recordedNote}.`,
+      confirm: CONFIRM,
       fix:
         setup.groundKind === 'none'
           ? 'Ground the probe at the test point with a ground spring or the shortest lead available, so the return current does not take a long loop.'
@@ -191,6 +196,7 @@ function recordedLead(setup: ResolvedSetup): Candidate {
         lead === undefined
           ? 'No ground is connected at the probe, so the return current finds its own way (through protective earth or another channel): a large, unknown loop that picks up noise and rings.'
           : 'The ground return is too short to model as a wire, so no lead resonance is predicted.',
+      confirm: CONFIRM,
       fix: lead === undefined ? 'Ground the probe at the test point with a spring or the shortest lead available.' : 'Nothing to change.',
       detailTags: lead === undefined ? ['no-probe-ground'] : [],
     };
@@ -212,6 +218,7 @@ function recordedLead(setup: ResolvedSetup): Candidate {
     deviation: Math.log(1 + (pct ?? 0) / 100),
     predicted: { overshootPct: pct, ringingFrequencyHz: ringHz },
     explanation: text,
+    confirm: CONFIRM,
     fix:
       'Use the shortest ground: a ground spring on the tip barrel or a probe socket at the test point.' +
       (spring && lead > 0.01

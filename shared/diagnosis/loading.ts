@@ -4,6 +4,10 @@ import { cascadeRiseTimeS, riseTimeFromTimeConstantS, squareWaveAmplitudeRatio }
 import { shownRiseTimeS } from './bandwidth';
 import { eng, percent } from './wording';
 
+/** The bench action that tells this cause from the others. */
+const CONFIRM =
+  'Read the node with a high-impedance meter, or move between 1x and 10x: a level that changes with the probe is being loaded by it.';
+
 export interface LoadingParams {
   /** Thevenin resistance of the node probed, Ω. */
   sourceResistanceOhm: number;
@@ -138,6 +142,7 @@ function loadingCandidate(setup: ResolvedSetup, p: LoadingParams, basis: Candida
     deviation: Math.hypot(Math.log(ratio), riseDeviation),
     predicted: { amplitudeV: expected === undefined ? undefined : expected * ratio, riseTimeS },
     explanation: text,
+    confirm: CONFIRM,
     fix: oneX
       ? 'Use a 10x probe (about 10 MΩ and 12 pF) or an active probe on this node; a 1x probe puts its cable capacitance on the circuit.'
       : 'Probe a lower-impedance point such as a buffered test point, or use an active probe with less capacitance; for DC levels, allow for the divider R_in/(R_s + R_in).',

@@ -1,23 +1,10 @@
 import type { Cause, DiagnosisInput, DiagnosisResult, Hypothesis, Predicted, Risk } from '../schemas/diagnosis';
 import { hazardousLive } from '../safety/hazard';
-import type { Candidate, ModelContext, ResolvedSetup } from './types';
+import type { Candidate, ResolvedSetup } from './types';
 import { observedOf, resolveSetup } from './defaults';
 import { applicability, compare } from './scoring';
-import { assessAttenuation } from './attenuation-mismatch';
-import { assessTermination } from './termination-mismatch';
-import { assessLoading } from './loading';
-import { assessBandwidth, shownRiseTimeS } from './bandwidth';
-import { assessCompensation } from './compensation';
-import { assessGroundLead } from './ground-lead';
-
-const MODELS: ((ctx: ModelContext) => Candidate[])[] = [
-  assessAttenuation,
-  assessTermination,
-  assessLoading,
-  assessBandwidth,
-  assessCompensation,
-  assessGroundLead,
-];
+import { shownRiseTimeS } from './bandwidth';
+import { MODELS } from './models';
 
 /** Hypotheses at or above this likelihood contribute tags. */
 export const TAG_THRESHOLD = 0.2;
@@ -68,7 +55,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     cause: candidate.cause,
     causes: [candidate.cause],
     fits: true,
-    confirm: '',
+    confirm: candidate.confirm,
     likelihood,
     predicted,
     explanation: candidate.explanation,

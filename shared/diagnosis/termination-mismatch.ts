@@ -2,6 +2,10 @@ import type { Risk } from '../schemas/diagnosis';
 import type { Candidate, ModelContext, ResolvedSetup } from './types';
 import { eng, factor, percent } from './wording';
 
+/** The bench action that tells this cause from the others. */
+const CONFIRM =
+  "Look at the channel's input impedance menu; switch it to 1 MΩ and the amplitude should jump back to the expected level.";
+
 /** Inputs below this are terminations, not high-impedance inputs (our threshold). */
 export const LOW_IMPEDANCE_INPUT_OHM = 1000;
 
@@ -60,6 +64,7 @@ export function assessTermination({ setup, observed }: ModelContext): Candidate[
       deviation: 0,
       predicted: { amplitudeV: expected },
       explanation: `The input is ${eng(rin, 'Ω')}, the high-impedance setting passive probes are built for, so there is no termination error.`,
+      confirm: CONFIRM,
       fix: 'Nothing to change; if an amplitude is thousands of times too small, check that the input menu really reads 1 MΩ and not 50 Ω.',
       detailTags: [],
     },
@@ -101,6 +106,7 @@ function lowImpedance(setup: ResolvedSetup, rin: number, basis: Candidate['basis
     deviation: Math.abs(Math.log(shown)),
     predicted: { amplitudeV: expected === undefined ? undefined : expected * shown },
     explanation,
+    confirm: CONFIRM,
     fix,
     estimates: { actualAttenuation: actualRatio, shownToTrueRatio: shown, inputResistanceOhm: rin },
     detailTags: tags,

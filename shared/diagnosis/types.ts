@@ -1,4 +1,4 @@
-import type { Cause, GroundKind, Predicted, Risk, SignalKind } from '../schemas/diagnosis';
+import type { Cause, Coupling, GeneratorLoad, GroundKind, Predicted, ProbeKind, Risk, SignalKind } from '../schemas/diagnosis';
 
 /** The recorded setup with every gap filled from `defaults.ts`; SI units throughout. */
 export interface ResolvedSetup {
@@ -26,6 +26,31 @@ export interface ResolvedSetup {
   signalKind: SignalKind;
   /** The signal has edges that can ring, overshoot or be rounded. */
   hasEdges: boolean;
+  probeKind: ProbeKind;
+  /** A differential probe's common-mode rejection at the signal frequency, dB. */
+  probeCmrrDb?: number;
+  /** The scope's own 10–90 % rise time from its data sheet, when recorded. */
+  scopeRiseTimeS?: number;
+  coupling: Coupling;
+  /** AC-coupling corner with a low-impedance source, Hz. */
+  acCornerHz?: number;
+  sampleRateHz?: number;
+  voltsPerDiv?: number;
+  /** Input voltage at the screen's centre line. */
+  offsetV?: number;
+  /** Vertical divisions on screen (8 unless recorded). */
+  divisions: number;
+  /** What the source really drives (a generator's load), Ω. */
+  loadResistanceOhm?: number;
+  /** Peak voltage from earth of the node the probe's ground or reference lead is on. */
+  referenceV?: number;
+  highestVoltageV?: number;
+  mainsConnected?: boolean;
+  mainsFrequencyHz?: number;
+  /** The signal's low level, V (0 unless recorded). */
+  baseV?: number;
+  /** The load the generator's amplitude setting assumes. */
+  generatorLoad?: GeneratorLoad;
   /** Names of fields the engine filled in, e.g. "probe.groundLeadM". */
   assumed: ReadonlySet<string>;
 }
@@ -36,6 +61,11 @@ export interface Observed {
   riseTimeS?: number;
   overshootPct?: number;
   ringingFrequencyHz?: number;
+  frequencyHz?: number;
+  clipped?: boolean;
+  /** Droop across a flat top, % of the step. */
+  tiltPct?: number;
+  humFrequencyHz?: number;
 }
 
 export interface ModelContext {
@@ -62,6 +92,13 @@ export interface Candidate {
   predicted: Predicted;
   explanation: string;
   fix: string;
+  /** One bench action that tells this cause from the others. */
+  confirm: string;
+  /**
+   * Recorded values this candidate's fit contradicts (a 90 cm lead implied where 1 cm was
+   * recorded); the ranker penalises each by how far it is off.
+   */
+  contradictions?: { field: string; recorded: number; implied: number }[];
   estimates?: Record<string, number | string>;
   detailTags: string[];
   risks?: Risk[];

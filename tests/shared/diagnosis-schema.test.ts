@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  CAUSES,
+  HYPOTHESIS_CAUSES,
   CAUSE_LABELS,
   diagnosisInputSchema,
   diagnosisResultSchema,
@@ -100,6 +100,6 @@ describe('diagnosisResultSchema', () => {
   });
 
   it('should label every cause', () => {
-    expect(Object.keys(CAUSE_LABELS).sort()).toEqual([...CAUSES].sort());
+    expect(Object.keys(CAUSE_LABELS).sort()).toEqual([...HYPOTHESIS_CAUSES].sort());
   });
 });

@@ -59,13 +59,15 @@ describe('demo casebook seed', () => {
     expect(seeded.people).toBe(DEMO_PEOPLE.length);
   });
 
-  it('should seed at least 30 cases covering every cause, "other" and every state', async () => {
+  it('should seed at least 30 cases covering every cause (two or more of each newer one), "other" and every state', async () => {
     const rows = await first.db.selectFrom('cases').select(['cause', 'status', 'duplicate_of']).execute();
     expect(rows.length).toBe(DEMO_CASES.length);
     expect(rows.length).toBeGreaterThanOrEqual(30);
     const perCause = (c: string) => rows.filter((r) => r.cause === c).length;
-    for (const cause of CAUSES) expect(perCause(cause), cause).toBeGreaterThanOrEqual(4);
-    expect(perCause('other')).toBeGreaterThanOrEqual(3);
+    // the six probe causes have a long history in the story; the six newer ones at least two each
+    for (const cause of CAUSES.slice(0, 6)) expect(perCause(cause), cause).toBeGreaterThanOrEqual(4);
+    for (const cause of CAUSES.slice(6)) expect(perCause(cause), cause).toBeGreaterThanOrEqual(2);
+    expect(perCause('other')).toBeGreaterThanOrEqual(1);
     for (const status of CASE_STATUSES) expect(rows.filter((r) => r.status === status).length, status).toBeGreaterThanOrEqual(3);
     expect(rows.filter((r) => r.status === 'retired' && r.duplicate_of !== null)).toHaveLength(1);
     expect(rows.filter((r) => r.status === 'verified').length).toBeGreaterThanOrEqual(15);
@@ -82,11 +84,14 @@ describe('demo casebook seed', () => {
     expect(kinds.map((k) => k.kind).sort()).toEqual(['capture', 'screenshot']);
   });
 
-  it('should have the engine agree with the stated cause of every verified case of the six causes', async () => {
-    const verified = await first.db.selectFrom('cases').select(['id', 'stated_cause', 'engine_cause']).where('status', '=', 'verified').execute();
-    for (const c of verified.filter((v) => (CAUSES as readonly string[]).includes(v.stated_cause ?? ''))) {
-      expect(c.engine_cause, `case ${c.id}`).toBe(c.stated_cause);
-    }
+  // The engine is being corrected in parallel (verdicts, complex termination divider, the six newer
+  // causes); the demo follows the corrected physics, so this agreement is reconciled when both land.
+  it('should have the engine agree with the stated cause of every verified case of the twelve causes', async () => {
+    const verified = await first.db.selectFrom('cases').select(['id', 'title', 'stated_cause', 'engine_cause']).where('status', '=', 'verified').execute();
+    const disagreeing = verified
+      .filter((v) => (CAUSES as readonly string[]).includes(v.stated_cause ?? '') && v.engine_cause !== v.stated_cause)
+      .map((v) => `${v.title}: stated ${v.stated_cause}, engine ${v.engine_cause}`);
+    expect(disagreeing).toEqual([]);
   });
 
   it('should hold a lived-in history: comments, send-backs with notes, revisions and pinned lessons', async () => {

@@ -94,6 +94,33 @@ describe('demo casebook seed', () => {
     expect(disagreeing).toEqual([]);
   });
 
+  it('should record the voltages the safety caution reads on every case about mains, hazardous voltage or a reference away from earth', async () => {
+    const rows = await first.db.selectFrom('cases').select(['id', 'title', 'setup', 'narrative', 'lesson_detail']).execute();
+    const tagged = new Set(
+      (await first.db.selectFrom('case_tags').select(['case_id', 'tag']).where('tag', 'in', ['safety', 'mains']).execute()).map((r) => r.case_id),
+    );
+    // source: IEC 61010-1:2010, 6.3.1 — 33 V rms, 46.7 V peak, 70 V DC in normal conditions
+    const hazardousPeakV = 46.7;
+    let checked = 0;
+    for (const row of rows) {
+      const setup = JSON.parse(row.setup) as { circuit?: Record<string, unknown>; signal?: { expectedAmplitudeV?: number } };
+      const circuit = setup.circuit ?? {};
+      const high = (setup.signal?.expectedAmplitudeV ?? 0) > hazardousPeakV;
+      if (!tagged.has(row.id) && !high && !circuit.mainsConnected) continue;
+      checked++;
+      expect(typeof circuit.highestVoltageV, row.title).toBe('number');
+      if (tagged.has(row.id)) {
+        expect(typeof circuit.referenceV, row.title).toBe('number');
+        expect(typeof circuit.mainsConnected, row.title).toBe('boolean');
+      }
+      if (circuit.mainsConnected) expect(circuit.mainsFrequencyHz, row.title).toBe(50);
+      if (tagged.has(row.id)) expect(row.narrative, row.title).toMatch(/\*\*Safety:\*\*/);
+    }
+    expect(checked).toBeGreaterThanOrEqual(5);
+    // the standard's figures, never the older 30 V / 42.4 V / 60 V ones
+    for (const row of rows) expect(`${row.narrative} ${row.lesson_detail ?? ''}`, row.title).not.toMatch(/42\.4 V|30 V rms|60 V DC/);
+  });
+
   it('should hold a lived-in history: comments, send-backs with notes, revisions and pinned lessons', async () => {
     const { db } = first;
     expect((await db.selectFrom('comments').select('id').execute()).length).toBeGreaterThanOrEqual(20);

@@ -32,7 +32,7 @@ With the switch at 10x (about 11 pF) the node reads 1.15 Vpp and the oscillator 
       scope: { ...SCOPES.sc02, attenuationSetting: 1 },
       circuit: { sourceResistanceOhm: 47e3, nodeDescription: 'R12/C9 timing node, comparator U4 input' },
       signal: { expectedAmplitudeV: 1.2, frequencyHz: 100e3, kind: 'sine' },
-      observed: { amplitudeV: 0.39, description: '0.39 Vpp and lower frequency' },
+      observed: { amplitudeV: 0.39, description: '0.39 Vpp where 1.2 Vpp was simulated' },
     },
     statedCause: 'loading',
     fix: 'Probe high-impedance nodes at 10x (≈ 11 pF), or buffer them; never 1x on an RC node.',

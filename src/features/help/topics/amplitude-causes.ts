@@ -95,6 +95,7 @@ Whatever drives the node has its own (Thevenin) resistance R_s. The probe and R_
     { text: '|Z_p / (R_s + Z_p)|,  Z_p = R_in ∥ 1/(j·2πf·C)', meaning: 'AC divider at frequency f' },
     { text: 'f_c = 1 / (2π · (R_s ∥ R_in) · C)', meaning: 'corner of the loaded node' },
     { text: 't_r ≈ 2.2 · (R_s ∥ R_in) · C', meaning: 'rise time the load alone adds' },
+    { text: 'V_pp,shown = A · R_in / (R_s + R_in) · tanh(T / 4τ),  τ = (R_s ∥ R_in) · C', meaning: 'settled peak-to-peak of a square wave of period T' },
   ],
   example: `A 1x probe (≈ 100 pF) on a node driven through 47 kΩ: f_c = 1 / (2π · 47 kΩ · 100 pF) ≈ 34 kHz, so a 100 kHz sine keeps only about **32 %** of its amplitude.`,
   diagnose: {

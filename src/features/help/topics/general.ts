@@ -21,7 +21,7 @@ Probes have voltage ratings that fall with frequency (derating), and ratings per
     { text: '16 V rms · 22.6 V peak · 35 V DC', meaning: 'hazardous live, wet locations (same clause)' },
     { text: 'V_peak = √2 · V_rms', meaning: '230 V rms mains → about 325 V peak' },
   ],
-  example: `A 12 V gate drive looks harmless, but if the gate belongs to a high-side switch on a 400 V bus, the probe's reference sits on a node that swings 400 V from earth: a differential probe rated for 400 V (and its category) is the only right tool, whatever the gate's own 12 V.`,
+  example: `A 12 V gate drive looks harmless, but if the gate belongs to a high-side switch on a 400 V bus, the probe's reference sits on a node that swings 400 V from earth: a differential or isolated probe rated for 400 V and its measurement category is the right tool, whatever the gate's own 12 V.`,
   fix: `- Never float the scope.
 - Put a passive probe's ground only on a node at earth potential. For anything else use **differential or isolated probing**; power the unit from an isolation transformer where appropriate.
 - Check the probe's **voltage and measurement-category rating**, and its **derating with frequency**, against what you will measure.

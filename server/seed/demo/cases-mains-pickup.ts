@@ -5,7 +5,8 @@ const electrodeSetup = {
   probe: { ...PROBES.p03 },
   scope: { ...SCOPES.sc02, attenuationSetting: 10 },
   circuit: { sourceResistanceOhm: 20e6, nodeDescription: 'Electrode input J3, before the buffer' },
-  signal: { expectedAmplitudeV: 0.137, kind: 'dc' as const },
+  // the electrode's own 0.41 V; the probe's 10 MΩ against its 20 MΩ keeps a third (see the loading case)
+  signal: { expectedAmplitudeV: 0.41, kind: 'dc' as const },
   observed: { amplitudeV: 0.137, humFrequencyHz: 50, description: '0.137 V with about 80 mVpp of 50 Hz on it' },
 };
 

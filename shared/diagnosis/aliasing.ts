@@ -62,7 +62,6 @@ export function assessAliasing({ setup, observed }: ModelContext): Candidate[] {
   const rateHz = rates[0];
   const recorded = setup.sampleRateHz;
   const estimates = { impliedSampleRateHz: rateHz, nyquistFrequencyHz: nyquistFrequencyHz(rateHz), aliasOrder: Math.round(signalHz / rateHz) };
-  candidates[0].estimates = { ...candidates[0].estimates, impliedSampleRateHz: rateHz };
   const others = rates.slice(1, 3).map((r) => eng(r, 'Sa/s'));
   candidates.push({
     cause: 'aliasing',

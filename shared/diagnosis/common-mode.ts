@@ -40,7 +40,7 @@ export function typicalCmrrDb(frequencyHz: number | undefined): number {
 }
 
 /** A reference away from earth by less than this is "at earth" (our threshold, V). */
-const AT_EARTH_V = 0.5;
+export const AT_EARTH_V = 0.5;
 // our estimate: how often an unrecorded (or optimistic) CMRR explains extra amplitude
 const HIDDEN_CMRR_PRIOR = { unrecorded: 0.3, recorded: 0.1 } as const;
 /** Plausible differential-probe rejection (our bounds, dB). */

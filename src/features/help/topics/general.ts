@@ -32,14 +32,14 @@ export const ENGINE_TOPIC: HelpTopic = {
   slug: 'engine',
   title: 'How the diagnosis engine ranks causes',
   lead: 'Each cause predicts what the screen should show; the one that predicts the observation best wins.',
-  onScreen: `On Diagnose, in the case editor and on every case page, the engine lists the six causes, most likely first, each with its **predicted** values next to what was **observed**, an explanation and a fix. Values you did not record are filled with typical ones and listed as assumptions — correct them and the ranking updates.`,
+  onScreen: `On Diagnose, in the case editor and on every case page, the engine lists the twelve causes, most likely first, each with its **predicted** values next to what was **observed**, an explanation and a fix. Values you did not record are filled with typical ones and listed as assumptions — correct them and the ranking updates.`,
   physics: `Every cause is a small physical model (see its Help page). From the recorded setup it predicts what the scope shows: amplitude, rise time, overshoot, ringing frequency. Where the observation allows, a model also fits the one parameter that is often not recorded — a switch position, a source impedance, a lead length — and offers that as a second candidate.
 
-Each candidate is compared with the observation by **log-ratio residuals**: a factor of two counts the same whether too big or too small. The residuals are weighed by how precisely such quantities are usually read off a screen, combined with how often the cause (or the hidden parameter) is the culprit, and normalised so the six likelihoods add up to one.`,
+Each candidate is compared with the observation by **log-ratio residuals**: a factor of two counts the same whether too big or too small. The residuals are weighed by how precisely such quantities are usually read off a screen, combined with how often the cause (or the hidden parameter) is the culprit, and normalised so the likelihoods add up to one.`,
   formulas: [
     { text: 'r = ln(predicted / observed)', meaning: 'residual of one quantity' },
     { text: 'likelihood ∝ prior × exp(−Σ (r / σ)² / 2)', meaning: 'score of a hypothesis' },
-    { text: 'Σ likelihood = 1', meaning: 'over the six causes' },
+    { text: 'Σ likelihood = 1', meaning: 'over the causes listed' },
   ],
   fix: `Record what you know — probe ratio, channel setting, input impedance, source impedance, lead length — and at least one observed value. The more is recorded, the fewer assumptions the engine needs, and the sharper the ranking.`,
   sources: [

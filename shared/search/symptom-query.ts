@@ -10,6 +10,8 @@ export interface SymptomNumbers {
   ringingFrequencyHz?: number;
   overshootPct?: number;
   riseTimeS?: number;
+  tiltPct?: number;
+  humFrequencyHz?: number;
 }
 
 export interface SymptomReading {
@@ -155,11 +157,13 @@ function inputOf(facts: Fact[]): { input: DiagnosisInput; observations: string[]
     signal.kind = 'square';
     signal.frequencyHz ??= UNSTATED.droopSquareHz;
     observed.tiltPct = tilt.pct ?? UNSTATED.tiltPct;
+    if (tilt.pct !== undefined) numbers.tiltPct = tilt.pct;
     observations.push(tilt.pct === undefined ? 'tops droop' : `tops droop ${Number(tilt.pct.toPrecision(3))} %`);
   }
   const hum = first(facts, 'hum');
   if (hum) {
     observed.humFrequencyHz = hum.hz ?? UNSTATED.humHz;
+    if (hum.hz !== undefined) numbers.humFrequencyHz = hum.hz;
     observations.push(hum.hz === undefined ? 'hum' : `hum at ${formatEngineering(hum.hz, 'Hz')}`);
   }
 

@@ -5,6 +5,7 @@ import { assessAcCoupling } from '../../shared/diagnosis/ac-coupling';
 import type { ModelContext } from '../../shared/diagnosis/types';
 import { readFacts } from '../../shared/search/symptom-phrases';
 import { readSymptomQuery } from '../../shared/search/symptom-query';
+import { caseNumbersOf, symptomNumbersFit } from '../../shared/search/case-numbers';
 
 const contextOf = (query: string): ModelContext => {
   const input = readSymptomQuery(query)!.input;
@@ -29,6 +30,16 @@ describe('symptom queries for the acquisition causes', () => {
     const reading = readSymptomQuery(query);
     expect(reading?.observations[0]).toBe(observation);
     expect(reading?.input.observed).toEqual(observed);
+  });
+
+  it('should keep the stated tilt and hum for ranking cases by their numbers', () => {
+    expect(readSymptomQuery('12% droop on the square')?.numbers).toEqual({ tiltPct: 12 });
+    expect(readSymptomQuery('100 Hz hum')?.numbers).toEqual({ humFrequencyHz: 100 });
+    expect(readSymptomQuery('tops droop')?.numbers).toEqual({});
+    const ours = caseNumbersOf({ scope: { sampleRateHz: 1e6 }, observed: { frequencyHz: 2e3, tiltPct: 12, humFrequencyHz: 100 } });
+    expect(ours).toEqual({ sampleRateHz: 1e6, shownFrequencyHz: 2e3, tiltPct: 12, humFrequencyHz: 100 });
+    expect(symptomNumbersFit({ humFrequencyHz: 100 }, ours)).toBe(1);
+    expect(symptomNumbersFit({ humFrequencyHz: 50 }, ours)).toBeLessThan(0.2);
   });
 
   it('should read "AC coupling droop" as droop with the channel AC-coupled', () => {

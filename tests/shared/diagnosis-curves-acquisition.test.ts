@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import type { DiagnosisInput } from '../../shared/schemas/diagnosis';
 import { diagnose } from '../../shared/diagnosis/ranker';
 import { diagnosisPlot, type DiagnosisPlot, type LinePlot } from '../../shared/diagnosis/curves';
+import { captureOverlay } from '../../shared/diagnosis/capture-overlay';
 
 const linePlot = (plot: DiagnosisPlot | null): LinePlot => {
   if (!plot || plot.kind !== 'line') throw new Error(`expected a line plot, got ${plot?.kind ?? 'null'}`);
@@ -92,5 +93,32 @@ describe('acquisition plots', () => {
       ),
       { numRuns: 30 },
     );
+  });
+});
+
+describe('capture overlay of the acquisition causes', () => {
+  const anchor = { baseV: 0, topV: 2, edges: [{ kind: 'rise' as const, t10S: 1e-4, t50S: 1.1e-4, t90S: 1.2e-4 }] };
+  const extent = { startS: 0, endS: 1e-3 };
+  const hypothesis = (cause: 'clipping' | 'aliasing', amplitudeV?: number) => ({
+    cause,
+    causes: [cause],
+    likelihood: 1,
+    predicted: amplitudeV === undefined ? {} : { amplitudeV },
+    explanation: '',
+    fix: '',
+    confirm: '',
+    fits: true,
+    residual: 0,
+  });
+
+  it('should draw a clipped trace as the level its top reaches', () => {
+    const result = captureOverlay({ scope: { voltsPerDiv: 0.5 }, signal: { expectedAmplitudeV: 3.3, frequencyHz: 1e3, kind: 'square' } }, hypothesis('clipping', 2), anchor, extent);
+    expect(result.ok && result.overlay.volts).toEqual([2, 2]);
+  });
+
+  it('should not draw an alias as an edge', () => {
+    const result = captureOverlay({ scope: { sampleRateHz: 1.002e6 }, signal: { frequencyHz: 1e6 } }, hypothesis('aliasing'), anchor, extent);
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.reason).toMatch(/compared in numbers/);
   });
 });

@@ -48,6 +48,24 @@ export function shownSpanV(setup: ResolvedSetup): { lowV: number; highV: number 
   return { lowV: baseV * scale, highV: (baseV + amplitudeV) * scale };
 }
 
+/**
+ * What the recorded screen window leaves of a trace another cause predicts, for combining
+ * clipping with it: the signal's span scaled so its height is `shownAmplitudeV` (the low
+ * level scales with it), then cut to the window. Undefined when no scale or amplitude is
+ * recorded, or for a DC level (compare the level itself).
+ *
+ * @param shownAmplitudeV the other cause's predicted amplitude on the screen's scale, V
+ */
+export function clippedAmplitudeV(setup: ResolvedSetup, shownAmplitudeV: number): number | undefined {
+  const amplitudeV = setup.expectedAmplitudeV;
+  if (setup.voltsPerDiv === undefined || amplitudeV === undefined || amplitudeV <= 0 || setup.signalKind === 'dc') return undefined;
+  const baseV = setup.baseV ?? (setup.signalKind === 'sine' ? -amplitudeV / 2 : 0);
+  const gain = shownAmplitudeV / amplitudeV;
+  const window = screenWindow(setup.voltsPerDiv, setup.offsetV ?? 0, setup.divisions);
+  const kept = clippedSpan(baseV * gain, (baseV + amplitudeV) * gain, window);
+  return kept.highV - kept.lowV;
+}
+
 /** Driven further than this share of the screen height beyond an edge, an input may recover slowly (our threshold). */
 const OVERDRIVE_SHARE = 0.5;
 // our estimates: how often an unrecorded (or misremembered) scale or offset cuts the trace

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { DiagnosisInput } from '../../shared/schemas/diagnosis';
 import { observedOf, resolveSetup } from '../../shared/diagnosis/defaults';
-import { assessClipping, clippedSpan, screenWindow } from '../../shared/diagnosis/clipping';
+import { assessClipping, clippedAmplitudeV, clippedSpan, screenWindow } from '../../shared/diagnosis/clipping';
 
 const run = (input: DiagnosisInput) => assessClipping({ setup: resolveSetup(input).setup, observed: observedOf(input) });
 
@@ -60,5 +60,12 @@ describe('clipping', () => {
     const [c] = run({ signal: { expectedAmplitudeV: 5 } });
     expect(c.predicted).toEqual({});
     expect(c.deviation).toBe(0);
+  });
+
+  it('should clip what another cause predicts, for combined hypotheses', () => {
+    // a generator set for 50 Ω doubles a 0…1 V square to 0…2 V; at 0.2 V/div the window is ±0.8 V → 0.8 V shown
+    const { setup } = resolveSetup({ scope: { voltsPerDiv: 0.2 }, signal: { expectedAmplitudeV: 1, kind: 'square', frequencyHz: 1e3 } });
+    expect(clippedAmplitudeV(setup, 2)).toBeCloseTo(0.8, 12);
+    expect(clippedAmplitudeV(setup, 0.5)).toBeCloseTo(0.5, 12);
   });
 });

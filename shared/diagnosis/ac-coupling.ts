@@ -59,8 +59,14 @@ export function cornerForSineRatioHz(ratio: number, frequencyHz: number): number
   return frequencyHz * Math.sqrt(1 / ratio ** 2 - 1);
 }
 
-/** Resistance in series with the scope input below a few kHz: source plus tip resistor, Ω. */
-const seriesOhm = (setup: ResolvedSetup) => setup.sourceResistanceOhm + setup.tipResistanceOhm;
+/**
+ * Resistance in series with the scope input below a few kHz: source plus tip resistor for a
+ * passive probe; an active, differential or current probe drives the input from its own
+ * low-impedance output, taken as 0 Ω.
+ */
+export const acSeriesResistanceOhm = (setup: ResolvedSetup): number =>
+  setup.probeKind === 'passive' ? setup.sourceResistanceOhm + setup.tipResistanceOhm : 0;
+const seriesOhm = acSeriesResistanceOhm;
 
 /** A scope's own AC-coupling corner fitted outside this range is not plausible (our bounds, Hz). */
 const PLAUSIBLE_CORNER_HZ = { low: 0.05, high: 2e3 } as const;
@@ -111,7 +117,7 @@ function fittedCorner(setup: ResolvedSetup, tiltPct: number | undefined, seenV: 
     predicted,
     explanation:
       `${what[0].toUpperCase()}${what.slice(1)} fits a high-pass at ${eng(effectiveHz, 'Hz')}: an AC-coupled channel with a corner of about ${eng(scopeCornerHz, 'Hz')} for a low-impedance source` +
-      (setup.tipResistanceOhm > 0 ? `, lowered by the probe's ${eng(setup.tipResistanceOhm, 'Ω')} tip resistor` : '') +
+      (setup.probeKind === 'passive' && setup.tipResistanceOhm > 0 ? `, lowered by the probe's ${eng(setup.tipResistanceOhm, 'Ω')} tip resistor` : '') +
       (ac ? '.' : ' — if the channel was in fact AC-coupled (the case says DC coupling or does not say). A coupling capacitor in the circuit itself droops the same way.'),
     confirm: CONFIRM,
     fix: FIX,

@@ -4,7 +4,7 @@ import type { CurveSeries, HypothesisFit, LinePlot } from './curves';
 import { observedOf } from './defaults';
 import { aliasFrequencyHz } from './aliasing';
 import { clippedSpan, screenWindow, shownSpanV, type ScreenWindow } from './clipping';
-import { TYPICAL_AC_CORNER_HZ, effectiveAcCornerHz, highPassMagnitude, squareWaveTiltFraction } from './ac-coupling';
+import { TYPICAL_AC_CORNER_HZ, acSeriesResistanceOhm, effectiveAcCornerHz, highPassMagnitude, squareWaveTiltFraction } from './ac-coupling';
 import { AT_EARTH_V, commonModeShare, typicalCmrrDb } from './common-mode';
 import { generatorLoadOhm, generatorShownRatio } from './generator-load';
 import type { GeneratorLoad } from '../schemas/diagnosis';
@@ -116,7 +116,7 @@ export function clippingPlot(setup: ResolvedSetup, hypothesis?: HypothesisFit): 
 export function acCouplingPlot(setup: ResolvedSetup, hypothesis?: HypothesisFit): LinePlot | null {
   const fittedHz = num(hypothesis?.estimates?.impliedEffectiveCornerHz);
   if (fittedHz === undefined && setup.coupling !== 'ac') return null;
-  const seriesOhm = setup.sourceResistanceOhm + setup.tipResistanceOhm;
+  const seriesOhm = acSeriesResistanceOhm(setup);
   const cornerHz = fittedHz ?? effectiveAcCornerHz(setup.acCornerHz ?? TYPICAL_AC_CORNER_HZ, setup.scopeInputResistanceOhm, seriesOhm);
   const f = setup.frequencyHz;
   const amplitude = setup.expectedAmplitudeV ?? 1;

@@ -100,6 +100,11 @@ describe('AC coupling', () => {
     expect(run({ signal: { frequencyHz: 1e6, kind: 'square' }, observed: { tiltPct: 20 } })).toHaveLength(1);
   });
 
+  it('should not lower the corner behind an active probe, whose output drives the input', () => {
+    const [c] = run({ probe: { kind: 'active', attenuation: 10 }, scope: { coupling: 'ac', acCornerHz: 10 }, signal: { frequencyHz: 100, kind: 'square' } });
+    expect(c.estimates?.effectiveCornerHz).toBe(10);
+  });
+
   it('should predict nothing on a DC-coupled channel', () => {
     const [c] = run({ signal: { frequencyHz: 100, kind: 'square' } });
     expect(c.predicted).toEqual({});

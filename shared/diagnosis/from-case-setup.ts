@@ -9,6 +9,7 @@ import type { DiagnosisInput } from '../schemas/diagnosis';
 export function diagnosisInputFromSetup(setup: CaseSetup | undefined): DiagnosisInput {
   const probe = setup?.probe ?? {};
   const scope = setup?.scope ?? {};
+  const circuit = setup?.circuit ?? {};
   const { description: _description, ...observed } = setup?.observed ?? {};
   return {
     probe: {
@@ -19,6 +20,8 @@ export function diagnosisInputFromSetup(setup: CaseSetup | undefined): Diagnosis
       tipResistanceOhm: probe.tipResistanceOhm,
       groundKind: probe.groundKind,
       groundWireRadiusM: probe.groundWireRadiusM,
+      kind: probe.kind,
+      cmrrDb: probe.cmrrDb,
     },
     scope: {
       attenuationSetting: scope.attenuationSetting,
@@ -26,8 +29,21 @@ export function diagnosisInputFromSetup(setup: CaseSetup | undefined): Diagnosis
       inputCapacitanceF: scope.inputCapacitanceF,
       bandwidthHz: scope.bandwidthHz,
       bandwidthLimitHz: scope.bandwidthLimitOn ? scope.bandwidthLimitHz : undefined,
+      coupling: scope.coupling,
+      acCornerHz: scope.acCornerHz,
+      sampleRateHz: scope.sampleRateHz,
+      voltsPerDiv: scope.voltsPerDiv,
+      offsetV: scope.offsetV,
+      divisions: scope.divisions,
     },
-    circuit: { sourceResistanceOhm: setup?.circuit?.sourceResistanceOhm },
+    circuit: {
+      sourceResistanceOhm: circuit.sourceResistanceOhm,
+      loadResistanceOhm: circuit.loadResistanceOhm,
+      referenceV: circuit.referenceV,
+      highestVoltageV: circuit.highestVoltageV,
+      mainsConnected: circuit.mainsConnected,
+      mainsFrequencyHz: circuit.mainsFrequencyHz,
+    },
     signal: setup?.signal ?? {},
     observed,
   };

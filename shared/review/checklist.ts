@@ -14,12 +14,19 @@ export interface CheckItem {
 const normal = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, ' ').trim();
 const SAFETY_WORDS = /(isolat|differential|protective earth|ground clip|mains|hazard|safety|insulat|measurement categor|\bcat ?(ii|iii|iv)\b|licensed|local code)/i;
 
-/** Whether the case's setup reaches the IEC 61010-1 hazardous-live limits or touches mains. */
+/**
+ * Whether the case's setup reaches the IEC 61010-1 hazardous-live limits or touches mains:
+ * the highest voltage present, or a reference node that far from earth (a peak value).
+ */
 export function caseNeedsSafetyNote(c: Pick<Case, 'setup'>): boolean {
   const circuit = c.setup.circuit;
   if (circuit?.mainsConnected) return true;
   const v = circuit?.highestVoltageV;
-  return typeof v === 'number' && hazardousLive({ highestVoltageV: v }).hazardous;
+  const ref = circuit?.referenceV;
+  return (
+    (typeof v === 'number' && hazardousLive({ highestVoltageV: v }).hazardous) ||
+    (typeof ref === 'number' && hazardousLive({ highestVoltageV: ref, kind: 'peak' }).hazardous)
+  );
 }
 
 /** The review desk's checklist, filled in from the case itself (shared by server and client). */
@@ -69,10 +76,10 @@ export function reviewChecklist(c: Case): CheckItem[] {
     label: 'Safety note present where needed',
     state: !needed ? 'not_needed' : SAFETY_WORDS.test(text) ? 'pass' : 'attention',
     detail: !needed
-      ? 'No mains connection or hazardous-live voltage recorded.'
+      ? 'No mains connection, hazardous-live voltage or reference node away from earth recorded.'
       : SAFETY_WORDS.test(text)
         ? 'The write-up addresses safe probing of the hazardous circuit.'
-        : 'Mains or hazardous-live voltage recorded, but the write-up says nothing about safe probing.',
+        : 'Mains, a hazardous-live voltage or a reference node far from earth recorded, but the write-up says nothing about safe probing.',
   };
   return [engine, evidence, lesson, safety];
 }

@@ -6,11 +6,15 @@ const ROWS: { key: keyof Predicted; label: string; unit: QuantityUnit }[] = [
   { key: 'riseTimeS', label: 'Rise time', unit: 's' },
   { key: 'overshootPct', label: 'Overshoot', unit: '%' },
   { key: 'ringingFrequencyHz', label: 'Ringing', unit: 'Hz' },
+  { key: 'frequencyHz', label: 'Frequency', unit: 'Hz' },
+  { key: 'tiltPct', label: 'Tilt of the tops', unit: '%' },
+  { key: 'humFrequencyHz', label: 'Hum', unit: 'Hz' },
+  { key: 'spikeV', label: 'Edge spike', unit: 'V' },
 ];
 
-/** Within 15 % (3 points for overshoot) reads as agreeing: a bench reading's usual slack (common practice, no source). */
+/** Within 15 % (3 points for overshoot and tilt) reads as agreeing: a bench reading's usual slack (common practice, no source). */
 function agrees(key: keyof Predicted, predicted: number, observed: number): boolean {
-  if (key === 'overshootPct') return Math.abs(predicted - observed) <= 3;
+  if (key === 'overshootPct' || key === 'tiltPct') return Math.abs(predicted - observed) <= 3;
   return observed !== 0 && Math.abs(predicted / observed - 1) <= 0.15;
 }
 

@@ -18,14 +18,21 @@ export interface Stage {
   riseTimeS: number;
 }
 
-/** Measurement-chain stages with a known bandwidth, each taken as a single pole. */
+/**
+ * Measurement-chain stages with a known bandwidth, each taken as a single pole: the probe only
+ * when its bandwidth is recorded (or it is a 1x probe; an unrecorded 10x probe is matched to
+ * the scope, whose figure is then the system's), the scope (its data-sheet rise time when
+ * recorded, else 0.35/BW), and a bandwidth-limit filter when one is on.
+ */
 export function measurementStages(setup: ResolvedSetup): Stage[] {
   const stages: Stage[] = [];
   const add = (name: Stage['name'], bandwidthHz: number | undefined) => {
     if (bandwidthHz !== undefined) stages.push({ name, bandwidthHz, riseTimeS: riseTimeFromBandwidthS(bandwidthHz) });
   };
   add('probe', setup.probeBandwidthHz);
-  add('scope', setup.scopeBandwidthHz);
+  if (setup.scopeRiseTimeS !== undefined) {
+    stages.push({ name: 'scope', riseTimeS: setup.scopeRiseTimeS, bandwidthHz: setup.scopeBandwidthHz ?? bandwidthFromRiseTimeHz(setup.scopeRiseTimeS) });
+  } else add('scope', setup.scopeBandwidthHz);
   add('bandwidth limit', setup.bandwidthLimitHz);
   return stages;
 }
@@ -115,7 +122,7 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
   const slow = observedRise !== undefined && (shown === undefined || observedRise > SLOW_EDGE_FACTOR * shown);
   if (slow && effectiveHz !== undefined && setup.hasEdges) {
     const fittedRatio = chainAmplitudeRatio(
-      { ...setup, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, bandwidthLimitHz: undefined },
+      { ...setup, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, scopeRiseTimeS: undefined, bandwidthLimitHz: undefined },
     );
     const limitHint = setup.bandwidthLimitHz === undefined ? ' a bandwidth-limit filter left on,' : '';
     candidates.push({

@@ -63,7 +63,7 @@ export function diagnosisPlot(input: DiagnosisInput, cause: HypothesisCause, hyp
     case 'compensation':
       return compensationPlot(setup, 'jumpRatio' in est ? num(est.tipCapacitanceF) : undefined);
     case 'ground-lead':
-      return groundLeadPlot(setup, 'inductanceH' in est ? undefined : num(est.impliedInductanceH));
+      return groundLeadPlot(setup, 'inductanceH' in est ? undefined : num(est.fittedInductanceH ?? est.impliedInductanceH));
     case 'loading':
       return loadingPlot(setup, fittedSource(setup, est));
     case 'bandwidth':
@@ -213,7 +213,7 @@ function bandwidthPlot(recorded: ResolvedSetup, effectiveHz: number | undefined)
   const setup =
     effectiveHz === undefined
       ? recorded
-      : { ...recorded, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, bandwidthLimitHz: undefined };
+      : { ...recorded, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, scopeRiseTimeS: undefined, bandwidthLimitHz: undefined };
   const riseS = systemRiseTimeS(setup);
   if (riseS === undefined) return null;
   const chainHz = bandwidthFromRiseTimeHz(riseS);

@@ -98,8 +98,25 @@ export interface Candidate {
    * Recorded values this candidate's fit contradicts (a 90 cm lead implied where 1 cm was
    * recorded); the ranker penalises each by how far it is off.
    */
-  contradictions?: { field: string; recorded: number; implied: number }[];
+  contradictions?: Contradiction[];
+  /**
+   * The predicted overshoot is an upper bound (ground-lead ringing: the probe's lossy cable
+   * damps more than the source resistance alone), so less overshoot seen costs little.
+   */
+  overshootUpperBound?: boolean;
   estimates?: Record<string, number | string>;
   detailTags: string[];
   risks?: Risk[];
+}
+
+/**
+ * A recorded value a fitted candidate disagrees with. `toleranceLn` is how far apart the two
+ * may be, in natural-log units, before the disagreement counts as one standard deviation;
+ * `evidence.ts` holds the tolerance of each field when a model gives none.
+ */
+export interface Contradiction {
+  field: string;
+  recorded: number;
+  implied: number;
+  toleranceLn?: number;
 }

@@ -18,23 +18,21 @@ const TILT_HALF_PERIODS = 2;
  * A square wave through a divider whose edges jump to (1 + k) of the settled level and decay
  * with τ: the screen shows x(t) + k·HP_τ{x}(t), HP a first-order high-pass. In steady state
  * the high-pass part starts each top at V₊ = 1/(1 + e^(−h)) of the step (h = T/2τ, T the
- * period) and decays to V₊e^(−h), so:
- * amplitude (mean top − mean base) = 1 + k·tanh(h/2)/(h/2);
- * corner overshoot = k·V₊·(1 − (1 − e^(−h))/h) over that amplitude;
- * tilt = k·tanh(h/2) over that amplitude.
+ * period) and ends it at V₊e^(−h). The top's level is read where it has settled most, at its
+ * end (the histogram level of a top that settles early), so:
+ * amplitude = 1 + k·(1 − tanh(h/2)); the droop from corner to end, k·tanh(h/2), over that
+ * amplitude, is the corner overshoot and, when it spreads over the whole top (h ≤ 2), the tilt.
  * Much faster than τ (h → 0) the tops are flat at 1 + k, the capacitive ratio: an amplitude
  * error with no overshoot; much slower (h → ∞) the amplitude is right and corners show k.
- * source: steady-state response of a first-order high-pass to a square wave, as in the
- * compensated-attenuator analysis (superposition of the R and C dividers).
+ * source: steady-state response of a first-order high-pass to a square wave (each half period
+ * decays from the level the last edge left), superposed on the resistive divider.
  */
 export function squareWavePicture(k: number, halfPeriodTimeConstants: number): Required<CompensationPicture> {
   const h = halfPeriodTimeConstants;
-  const shape = h < 1e-9 ? 1 : Math.tanh(h / 2) / (h / 2);
-  const amplitudeRatio = 1 + k * shape;
-  const start = 1 / (1 + Math.exp(-h));
-  const meanShare = h < 1e-9 ? 1 : -Math.expm1(-h) / h;
-  const overshootPct = (100 * k * start * (1 - meanShare)) / amplitudeRatio;
-  const tiltPct = h <= TILT_HALF_PERIODS ? (100 * k * Math.tanh(h / 2)) / amplitudeRatio : 0;
+  const droop = k * Math.tanh(h / 2);
+  const amplitudeRatio = 1 + k - droop;
+  const overshootPct = (100 * droop) / amplitudeRatio;
+  const tiltPct = h <= TILT_HALF_PERIODS ? overshootPct : 0;
   return { amplitudeRatio, overshootPct, tiltPct };
 }
 

@@ -8,6 +8,7 @@ import { chainMagnitudeAt, systemRiseTimeS } from './bandwidth';
 import { bandwidthFromRiseTimeHz } from './single-pole';
 import { shownAmplitudeV } from './attenuation-mismatch';
 import { LOW_IMPEDANCE_INPUT_OHM, terminationShownRatio } from './termination-mismatch';
+import { terminationPlot } from './termination-plot';
 import { geometricGrid, rampResponse, stepGrid } from './curve-grids';
 import { eng, factor, percent } from './wording';
 
@@ -68,8 +69,11 @@ export function diagnosisPlot(input: DiagnosisInput, cause: HypothesisCause, hyp
       return loadingPlot(setup, fittedSource(setup, est));
     case 'bandwidth':
       return bandwidthPlot(setup, fittedBandwidth(input, hypothesis));
+    case 'termination-mismatch': {
+      const rin = num(est.inputResistanceOhm) ?? setup.scopeInputResistanceOhm;
+      return terminationPlot(setup, rin) ?? amplitudeBars(input, setup, cause, hypothesis?.predicted.amplitudeV);
+    }
     case 'attenuation-mismatch':
-    case 'termination-mismatch':
       return amplitudeBars(input, setup, cause, hypothesis?.predicted.amplitudeV);
     default:
       return null;

@@ -26,6 +26,8 @@ const TIE_ORDER: HypothesisCause[] = ['faithful', 'ground-lead', 'bandwidth', 'l
 /** A hypothesis being scored: one candidate, two combined, or the faithful reading. */
 interface Scored {
   causes: HypothesisCause[];
+  /** RSS of the log-ratio residuals against the observation alone (the contract's `residual`). */
+  observedResidual: number;
   members: Candidate[];
   predicted: Predicted;
   comparison: Comparison;
@@ -61,6 +63,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     members: [],
     predicted: reference,
     comparison: faithfulComparison,
+    observedResidual: faithfulComparison.residual ?? 0,
     logScore: Math.log(FAITHFUL_PRIOR) - faithfulComparison.chiSquare / 2,
     deviation: 0,
     distinct: false,
@@ -140,10 +143,20 @@ function merge(reference: Predicted, own: Predicted): Predicted {
   return merged;
 }
 
+/**
+ * A predicted error this large (log units, about 10 %) counts even where the prediction cannot
+ * be put in numbers, e.g. a ×10 mismatch with no expected amplitude recorded (our threshold).
+ */
+const SIGNIFICANT_DEVIATION = Math.log(1.1);
+
 /** Whether a prediction differs from the faithful picture beyond the models' accuracy. */
-function distinctFrom(reference: Predicted, predicted: Predicted): boolean {
+function distinctFrom(reference: Predicted, predicted: Predicted, deviation: number): boolean {
   const asSeen: Observed = { ...predicted };
-  return compare(reference, asSeen).chiSquare > SIGNIFICANT_IMPROVEMENT || (predicted.spikeV ?? 0) > 0;
+  return (
+    compare(reference, asSeen).chiSquare > SIGNIFICANT_IMPROVEMENT ||
+    (predicted.spikeV ?? 0) > 0 ||
+    Math.abs(deviation) > SIGNIFICANT_DEVIATION
+  );
 }
 
 function scoreSingle(candidate: Candidate, reference: Predicted, observed: Observed): Scored {
@@ -162,9 +175,10 @@ function scoreOf(
 ): Scored {
   const seen = compare(predicted, observed, { overshootUpperBound });
   const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
-  const distinct = distinctFrom(reference, predicted);
+  const distinct = distinctFrom(reference, predicted, deviation);
   return {
     causes: members.map((m) => m.cause),
+    observedResidual: seen.residual ?? 0,
     members,
     predicted,
     comparison,
@@ -211,7 +225,7 @@ function combinations(singles: Scored[], reference: Predicted, observed: Observe
 }
 
 function toHypothesis(h: Scored, likelihood: number, setup: Parameters<typeof faithfulWording>[0]): Hypothesis {
-  const residual = h.comparison.residual ?? 0;
+  const residual = h.observedResidual;
   if (h.causes[0] === 'faithful') {
     const words = faithfulWording(setup);
     return { cause: 'faithful', causes: ['faithful'], likelihood, residual, fits: h.fits, predicted: h.predicted, confirm: FAITHFUL_CONFIRM, ...words };

@@ -39,8 +39,9 @@ describe('compensation step curve', () => {
     const plot = linePlot(diagnosisPlot(input, 'compensation', h));
     const y = model(plot);
     const at0 = y[plot.x.indexOf(0)];
-    // source: charge sharing sets the edge: 15 % corner overshoot over the settled level
-    expect(at0).toBeCloseTo(5 * 1.15, 6);
+    // source: charge sharing sets the edge: 15 % corner overshoot over the settled level; at
+    // 1 kHz the top still holds e^(−T/2τ) ≈ 1.5 % of the decay, so within 1 %
+    expect(Math.abs(at0 / (5 * 1.15) - 1)).toBeLessThan(0.01);
     // source: voltage-divider rule, R2/(R1 + R2) = 1 MΩ/(9 MΩ + 1 MΩ), times the 10x setting
     const settled = 5 * (1e6 / (9e6 + 1e6)) * 10;
     const tau = h.estimates!.timeConstantS as number;
@@ -206,7 +207,7 @@ describe('every curve', () => {
       ),
       { numRuns: 20 },
     );
-    expect(CAUSES.length).toBe(6);
+    expect(CAUSES.length).toBe(12);
   });
 
   it('should space a log axis in equal ratios', () => {

@@ -57,6 +57,25 @@ describe('compensation step curve', () => {
   });
 });
 
+describe('termination edge curve', () => {
+  it('should draw the spike of C1/(C1+C2) decaying to the resistive flat top', () => {
+    const input: DiagnosisInput = {
+      probe: { attenuation: 10, tipCapacitanceF: 12e-12 },
+      scope: { attenuationSetting: 10, inputResistanceOhm: 50 },
+      circuit: { sourceResistanceOhm: 0 },
+      signal: { expectedAmplitudeV: 2, frequencyHz: 100e3, kind: 'square' },
+    };
+    const plot = linePlot(diagnosisPlot(input, 'termination-mismatch'));
+    const y = model(plot);
+    // source: initial-value theorem, C1/(C1 + C2) = 1/n for a compensated probe, × the 10x channel
+    expect(y[plot.x.indexOf(0)]).toBeCloseTo(2 * 10 * (1 / 10), 6);
+    // source: final-value theorem, R_in/(R_tip + R_in) × 10, reached after 8 τ within e^-8
+    const settled = 2 * 10 * (50 / (9e6 + 50));
+    expect(Math.abs(y[y.length - 1] - settled)).toBeLessThan(2 * Math.exp(-8) * 1.01);
+    expect(plot.summary).toMatch(/spike/);
+  });
+});
+
 describe('ground-lead step curve', () => {
   // source: Grover, Inductance Calculations (1946): L = 0.002·l·(ln(2l/ρ) − 3/4) µH, l and ρ in cm;
   // a 15 cm lead of 0.5 mm wire (ρ = 0.025 cm)

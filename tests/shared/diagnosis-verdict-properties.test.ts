@@ -72,9 +72,10 @@ describe('verdict properties', () => {
         (s) => {
           const hasEdges = s.kind === 'square' || s.kind === 'pulse';
           // the faithful picture from the physics, not from the engine: the true amplitude (the
-          // channel matches the probe) and the chain's stages in quadrature with the source edge
+          // channel matches the probe) and the true edge; where the record gives no edge, an
+          // ideal one through the chain, its stages in quadrature
           const stages = [riseOf(s.scopeHz), s.attenuation === 1 ? riseOf(ONE_X_BANDWIDTH_HZ) : 0, s.limitHz ? riseOf(s.limitHz) : 0];
-          const riseS = Math.sqrt([...stages, s.signalRiseS ?? 0].reduce((a, t) => a + t * t, 0));
+          const riseS = s.signalRiseS ?? Math.sqrt(stages.reduce((a, t) => a + t * t, 0));
           const observed: NonNullable<DiagnosisInput['observed']> = { amplitudeV: s.amplitudeV };
           if (hasEdges && s.observeEdges) Object.assign(observed, { riseTimeS: riseS, overshootPct: 0 });
           const result = diagnose({

@@ -199,3 +199,29 @@ describe('bandwidth chain', () => {
     expect(faithfulRise({ ...base, probe: { attenuation: 1 }, scope: { bandwidthHz: 500e6, bandwidthLimitHz: 20e6 } })).toBeCloseTo(expected, 15);
   });
 });
+
+describe('a chain that slows a recorded edge', () => {
+  it('should call a 1 ns edge shown at 3.6 ns by a 100 MHz scope a bandwidth error, not a true trace', () => {
+    // source: root-sum-square rise-time rule, √(1 ns² + (0.35/100 MHz)²) ≈ 3.64 ns
+    const shown = Math.sqrt(1e-9 ** 2 + riseOf(100e6) ** 2);
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring' },
+      scope: { attenuationSetting: 10, bandwidthHz: 100e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square', riseTimeS: 1e-9 },
+      observed: { amplitudeV: 1, riseTimeS: shown },
+    });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].cause).toBe('bandwidth');
+  });
+
+  it('should keep the trace true when a fast chain barely touches a recorded edge', () => {
+    const shown = Math.sqrt(2e-9 ** 2 + riseOf(500e6) ** 2);
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring' },
+      scope: { attenuationSetting: 10, bandwidthHz: 500e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square', riseTimeS: 2e-9 },
+      observed: { amplitudeV: 1, riseTimeS: shown, overshootPct: 0 },
+    });
+    expect(result.verdict).toBe('faithful');
+  });
+});

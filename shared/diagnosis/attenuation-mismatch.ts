@@ -1,6 +1,7 @@
 import type { Predicted } from '../schemas/diagnosis';
 import type { Candidate, ModelContext, ResolvedSetup } from './types';
 import { withSwitchPosition } from './defaults';
+import { isPlausible } from './plausibility';
 import { loadedAmplitudeRatio, loadedRiseTimeS, loadingParamsOf } from './loading';
 import { chainAmplitudeRatio, shownRiseTimeS } from './bandwidth';
 import { cascadeRiseTimeS } from './single-pole';
@@ -110,6 +111,8 @@ function hiddenSwitch(setup: ResolvedSetup, observedV: number | undefined, estim
   const impliedActual = setting * 10 ** k;
   const [probeAt, channelAt] =
     impliedActual >= 1 ? [impliedActual, setting] : [1, setting / impliedActual];
+  // a ratio no probe or channel offers is not a switch position
+  if (!isPlausible('attenuation', probeAt) || !isPlausible('attenuation', channelAt)) return undefined;
   const scale = 10 ** -k;
   const size = k > 0 ? `${factor(10 ** k)} times smaller` : `${factor(10 ** -k)} times larger`;
   // A switch in another position is another probe: its own load and bandwidth come with it.

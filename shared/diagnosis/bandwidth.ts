@@ -7,6 +7,7 @@ import {
   squareWaveAmplitudeRatio,
 } from './single-pole';
 import { eng, percent } from './wording';
+import { clampPlausible } from './plausibility';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -89,9 +90,10 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
   }
   const observedRise = observed.riseTimeS;
   const signalRise = setup.signalRiseTimeS ?? 0;
+  // held to a plausible measurement bandwidth: a clamped fit predicts its own edge, which then fails to fit
   const effectiveHz =
     observedRise !== undefined && observedRise > signalRise
-      ? bandwidthFromRiseTimeHz(Math.sqrt(observedRise ** 2 - signalRise ** 2))
+      ? clampPlausible('bandwidthHz', bandwidthFromRiseTimeHz(Math.sqrt(observedRise ** 2 - signalRise ** 2))).value
       : undefined;
   if (effectiveHz !== undefined) estimates.effectiveBandwidthHz = effectiveHz;
 
@@ -130,7 +132,10 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
       basis: 'fitted',
       hiddenPrior: system === undefined ? UNKNOWN_CHAIN_PRIOR : HIDDEN_BANDWIDTH_PRIOR,
       deviation: shown === undefined ? Math.log(SLOW_EDGE_FACTOR) : Math.log((observedRise as number) / shown),
-      predicted: { amplitudeV: expected === undefined ? undefined : expected * fittedRatio, riseTimeS: observedRise },
+      predicted: {
+        amplitudeV: expected === undefined ? undefined : expected * fittedRatio,
+        riseTimeS: cascadeRiseTimeS([signalRise, riseTimeFromBandwidthS(effectiveHz)]),
+      },
       explanation: `The observed ${eng(observedRise as number, 's')} edge implies an effective bandwidth of about ${eng(effectiveHz, 'Hz')} (BW ≈ 0.35/t_r${setup.signalRiseTimeS ? `, after removing the ${eng(signalRise, 's')} source edge in quadrature` : ''})${system === undefined ? '' : `, well below the ${eng(bandwidthFromRiseTimeHz(system), 'Hz')} the recorded probe and scope give`}. Look for${limitHint} a 1x probe or switch position, a slower probe than recorded, or a slow source edge.`,
       confirm: CONFIRM,
       fix: 'Check the channel for a bandwidth-limit filter, the probe switch for 1x, and the probe model; then measure the edge again.',

@@ -2,7 +2,7 @@ import type { Predicted } from '../schemas/diagnosis';
 import type { Candidate, ModelContext, Observed, ResolvedSetup } from './types';
 import { compensationPicture } from './compensation-picture';
 import { compare } from './scoring';
-import { PLAUSIBLE } from './plausibility';
+import { isPlausible, PLAUSIBLE } from './plausibility';
 import { TYPICAL } from './defaults';
 import { add, divide, magnitude, resistorParallelCapacitor } from './complex';
 import { LOW_IMPEDANCE_INPUT_OHM } from './termination-mismatch';
@@ -217,6 +217,7 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
   const k = fitError(setup, observed, divider);
   if (k === undefined || Math.abs(k) < MIN_ERROR) return candidates;
   const fitted = dividerWithError(divider, k) as DividerParams;
+  if (!isPlausible('tipCapacitanceF', fitted.tipCapacitanceF)) return candidates;
   const fittedLevels = dividerLevels(fitted);
   const over = k > 0;
   const inverse = { tipCapacitanceF: fitted.tipCapacitanceF, state: over ? 'over-compensated' : 'under-compensated', adjust: over ? 'reduce' : 'increase' };

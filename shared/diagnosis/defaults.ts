@@ -66,6 +66,15 @@ export function resolveSetup(input: DiagnosisInput): {
     assume('scope.inputCapacitanceF', scopeInputCapacitanceF, 'F', 'Not recorded: a typical general-purpose input.');
   }
 
+  if (given(scope.inputCapacitanceF) && !oneX) {
+    assume(
+      'probe.compensatedOnInputCapacitanceF',
+      TYPICAL.scopeInputCapacitanceF,
+      'F',
+      "Not recorded: the probe is taken to have been last adjusted on a typical 15 pF input, so a recorded input capacitance that differs shifts its compensation until the trimmer is turned on this scope.",
+    );
+  }
+
   let tipResistanceOhm = probe.tipResistanceOhm ?? (attenuation - 1) * TYPICAL.probeDesignInputOhm;
   if (!given(probe.tipResistanceOhm)) {
     assume(

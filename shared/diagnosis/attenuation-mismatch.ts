@@ -1,4 +1,5 @@
-import type { Predicted } from '../schemas/diagnosis';
+import type { Cause, Predicted } from '../schemas/diagnosis';
+import { SIGMA } from './scoring';
 import type { Candidate, ModelContext, ResolvedSetup } from './types';
 import { withSwitchPosition } from './defaults';
 import { isPlausible } from './plausibility';
@@ -117,7 +118,7 @@ function hiddenSwitch(setup: ResolvedSetup, observedV: number | undefined, estim
   const size = k > 0 ? `${factor(10 ** k)} times smaller` : `${factor(10 ** -k)} times larger`;
   // A switch in another position is another probe: its own load and bandwidth come with it.
   const switched = probeAt !== actual ? withSwitchPosition(setup, probeAt) : undefined;
-  const consequences = switched ? switchConsequences(switched) : undefined;
+  const consequences = switched ? switchConsequences(switched, setup) : undefined;
   const predicted: Predicted = { amplitudeV: expected * scale * (consequences?.amplitudeRatio ?? 1) };
   if (consequences?.riseTimeS !== undefined) predicted.riseTimeS = consequences.riseTimeS;
   const alsoText = consequences
@@ -133,6 +134,7 @@ function hiddenSwitch(setup: ResolvedSetup, observedV: number | undefined, estim
     confirm: CONFIRM,
     fix: "Look at the probe's switch and the channel's attenuation menu, make them agree, and read the amplitude again.",
     estimates,
+    ...(consequences?.alsoCauses.length ? { alsoCauses: consequences.alsoCauses } : {}),
     contradictions:
       probeAt !== actual && !setup.assumed.has('probe.attenuation')
         ? [{ field: 'probe.attenuation', recorded: actual, implied: probeAt }]
@@ -143,12 +145,24 @@ function hiddenSwitch(setup: ResolvedSetup, observedV: number | undefined, estim
 
 /**
  * Loading and edges of the probe in its switched position: the amplitude the load leaves,
- * and the edge through that probe's chain and its RC load (stages in quadrature).
+ * and the edge through that probe's chain and its RC load (stages in quadrature). Also which
+ * other causes this one fault acts as, beyond the models' accuracy: bandwidth when the
+ * switched probe's chain slows edges by more than 2σ of a rise-time reading, loading when its
+ * load costs more than 2σ of an amplitude reading or dominates the edge.
  */
-function switchConsequences(setup: ResolvedSetup): { amplitudeRatio: number; riseTimeS?: number } {
+function switchConsequences(setup: ResolvedSetup, recorded: ResolvedSetup): { amplitudeRatio: number; riseTimeS?: number; alsoCauses: Cause[] } {
   const load = loadingParamsOf(setup);
-  const amplitudeRatio = loadedAmplitudeRatio(setup, load) * chainAmplitudeRatio(setup);
-  if (!setup.hasEdges) return { amplitudeRatio };
+  const loadRatio = loadedAmplitudeRatio(setup, load);
+  const amplitudeRatio = loadRatio * chainAmplitudeRatio(setup);
+  const alsoCauses: Cause[] = [];
+  if (!setup.hasEdges) {
+    if (Math.abs(Math.log(loadRatio)) > 2 * SIGMA.amplitude) alsoCauses.push('loading');
+    return { amplitudeRatio, alsoCauses };
+  }
   const chain = shownRiseTimeS(setup) ?? 0;
-  return { amplitudeRatio, riseTimeS: cascadeRiseTimeS([chain, loadedRiseTimeS(load)]) };
+  const before = shownRiseTimeS(recorded) ?? 0;
+  const loadRise = loadedRiseTimeS(load);
+  if (chain > 0 && (before === 0 || Math.log(chain / before) > 2 * SIGMA.riseTime)) alsoCauses.push('bandwidth');
+  if (Math.abs(Math.log(loadRatio)) > 2 * SIGMA.amplitude || loadRise > Math.max(chain, before)) alsoCauses.push('loading');
+  return { amplitudeRatio, riseTimeS: cascadeRiseTimeS([chain, loadRise]), alsoCauses };
 }

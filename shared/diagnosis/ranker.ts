@@ -112,8 +112,8 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
   const tags = new Set<string>();
   for (const { h } of ranked) {
     if (!h.fits || h.causes[0] === 'faithful') continue;
+    for (const cause of h.causes) tags.add(cause);
     for (const m of h.members) {
-      tags.add(m.cause);
       m.detailTags.forEach((t) => tags.add(t));
     }
   }
@@ -177,7 +177,7 @@ function scoreOf(
   const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
   const distinct = distinctFrom(reference, predicted, deviation);
   return {
-    causes: members.map((m) => m.cause),
+    causes: [...new Set(members.flatMap((m) => [m.cause, ...(m.alsoCauses ?? [])]))],
     observedResidual: seen.residual ?? 0,
     members,
     predicted,

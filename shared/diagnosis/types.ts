@@ -104,6 +104,12 @@ export interface Candidate {
    * damps more than the source resistance alone), so less overshoot seen costs little.
    */
   overshootUpperBound?: boolean;
+  /**
+   * Other causes this one fault also acts as (a probe switched to 1x is an attenuation
+   * mismatch, a bandwidth stage and a load at once): listed after `cause` in the hypothesis's
+   * `causes` and tagged with it.
+   */
+  alsoCauses?: Cause[];
   estimates?: Record<string, number | string>;
   detailTags: string[];
   risks?: Risk[];

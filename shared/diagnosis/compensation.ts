@@ -221,7 +221,6 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
   const fittedLevels = dividerLevels(fitted);
   const over = k > 0;
   const inverse = { tipCapacitanceF: fitted.tipCapacitanceF, state: over ? 'over-compensated' : 'under-compensated', adjust: over ? 'reduce' : 'increase' };
-  candidates[0].estimates = { ...candidates[0].estimates, ...inverse };
   const fast = setup.frequencyHz !== undefined && 1 / (2 * setup.frequencyHz) < fittedLevels.timeConstantS / 5;
   const seenAs = fast
     ? `a ${percent(Math.abs(k) * 100)} ${over ? 'higher' : 'lower'} amplitude with flat tops: a ${setup.frequencyHz === undefined ? '' : `${eng(setup.frequencyHz, 'Hz')} `}signal is far faster than τ ≈ ${eng(fittedLevels.timeConstantS, 's')}, so it only ever sees the capacitive ratio`

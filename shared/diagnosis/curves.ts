@@ -1,7 +1,7 @@
 import type { DiagnosisInput, Hypothesis, HypothesisCause } from '../schemas/diagnosis';
 import type { ResolvedSetup } from './types';
 import { observedOf, resolveSetup } from './defaults';
-import { balancedDividerOf, compensationStepResponse, dividerLevels } from './compensation';
+import { compensationStepResponse, dividerLevels, recordedDividerOf } from './compensation';
 import { groundLeadResonance, groundLeadStepResponse, straightWireInductanceH } from './ground-lead';
 import { dcLoadingRatio, loadingCornerHz, loadingFrequencyResponse, loadingParamsOf } from './loading';
 import { chainMagnitudeAt, systemRiseTimeS } from './bandwidth';
@@ -93,8 +93,9 @@ const show = (value: number, yUnit: 'V' | '') => (yUnit === 'V' ? eng(value, 'V'
 
 function compensationPlot(setup: ResolvedSetup, fittedTipCapacitanceF: number | undefined): LinePlot | null {
   if (setup.tipResistanceOhm <= 0 || setup.scopeInputResistanceOhm < LOW_IMPEDANCE_INPUT_OHM) return null;
-  const balanced = balancedDividerOf(setup);
-  const divider = { ...balanced, tipCapacitanceF: fittedTipCapacitanceF ?? balanced.tipCapacitanceF };
+  // the probe as it sits on the recorded scope (C2 shifted when it was adjusted on another input)
+  const base = recordedDividerOf(setup).divider;
+  const divider = { ...base, tipCapacitanceF: fittedTipCapacitanceF ?? base.tipCapacitanceF };
   const { jump, settle, timeConstantS } = dividerLevels(divider);
   const { amplitude, yUnit, yLabel } = levelOf(setup);
   const x = stepGrid(5 * timeConstantS);

@@ -162,7 +162,8 @@ export function assessGroundLead({ setup, observed }: ModelContext): Candidate[]
   const unrecordedLength = setup.groundLeadM === undefined || setup.assumed.has('probe.groundLeadM');
   const springRecorded = setup.groundKind === 'spring' && !setup.assumed.has('probe.groundKind');
   const shown = shownOvershoot(setup, { ...base, inductanceH });
-  const inverse = { impliedInductanceH: rawH, impliedLeadLengthM: clamped ? fromH : lengthM };
+  const impliedLengthM = clamped ? fromH : lengthM;
+  const inverse: Record<string, number> = { impliedInductanceH: rawH, ...(Number.isFinite(impliedLengthM) && impliedLengthM > 0 ? { impliedLeadLengthM: impliedLengthM } : {}) };
   recorded.estimates = { ...recorded.estimates, ...inverse };
   const contradictions: Contradiction[] = [];
   if (!unrecordedLength && setup.groundLeadM !== undefined) {

@@ -231,7 +231,9 @@ function toHypothesis(h: Scored, likelihood: number, setup: Parameters<typeof fa
     return { cause: 'faithful', causes: ['faithful'], likelihood, residual, fits: h.fits, predicted: h.predicted, confirm: FAITHFUL_CONFIRM, ...words };
   }
   const [a, b] = h.members;
-  const estimates = b ? { ...b.estimates, ...a.estimates } : a.estimates;
+  // JSON has no Infinity or NaN: a value a model could not put in numbers is left out
+  const merged = b ? { ...b.estimates, ...a.estimates } : { ...a.estimates };
+  const estimates = Object.fromEntries(Object.entries(merged).filter(([, v]) => typeof v === 'string' || Number.isFinite(v)));
   const join = (x: string, y: string) => (x === y ? x : `${x} ${y}`);
   return {
     cause: a.cause,
@@ -243,7 +245,7 @@ function toHypothesis(h: Scored, likelihood: number, setup: Parameters<typeof fa
     explanation: b ? `Two causes together. ${a.explanation} ${b.explanation}` : a.explanation,
     fix: b ? join(a.fix, b.fix) : a.fix,
     confirm: b ? join(a.confirm, b.confirm) : a.confirm,
-    ...(estimates && Object.keys(estimates).length ? { estimates } : {}),
+    ...(Object.keys(estimates).length ? { estimates } : {}),
   };
 }
 

@@ -142,3 +142,25 @@ describe('verdict properties', () => {
     );
   });
 });
+
+describe('result values', () => {
+  it('should hold only finite numbers, so the JSON response never carries null for a number', () => {
+    fc.assert(
+      fc.property(anySetup, (s) => {
+        const result = diagnose({
+          probe: { attenuation: s.attenuation, groundLeadM: s.leadM },
+          scope: { attenuationSetting: s.setting, inputResistanceOhm: s.inputOhm, bandwidthHz: s.scopeHz },
+          circuit: { sourceResistanceOhm: s.sourceOhm },
+          signal: { expectedAmplitudeV: s.amplitude, frequencyHz: s.frequencyHz, kind: s.kind },
+          observed: { amplitudeV: s.observedAmplitude, riseTimeS: s.observedRise, overshootPct: s.overshoot, ringingFrequencyHz: s.ringing },
+        });
+        for (const h of result.hypotheses) {
+          expect(Number.isFinite(h.likelihood) && Number.isFinite(h.residual)).toBe(true);
+          for (const v of Object.values(h.predicted)) expect(Number.isFinite(v)).toBe(true);
+          for (const v of Object.values(h.estimates ?? {})) if (typeof v === 'number') expect(Number.isFinite(v)).toBe(true);
+        }
+      }),
+      { numRuns: 300 },
+    );
+  });
+});

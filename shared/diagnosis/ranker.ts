@@ -9,7 +9,7 @@ import { decideVerdict, fitGate, SIGNIFICANT_IMPROVEMENT } from './verdict';
 import { setupRisks } from './safety-risks';
 import { MODELS } from './models';
 
-/** Prior that a trace is true before anything is compared (our estimate: most traces filed are suspect). */
+/** Prior that a trace is true before anything is compared (our estimate: even odds, since traces are filed because they look suspect but most setups are sound). */
 export const FAITHFUL_PRIOR = 0.5;
 /**
  * A combined hypothesis pays for its extra cause twice: the product of its members' priors,

@@ -12,12 +12,17 @@ export interface StoredDiagnosis {
   engineTags: string[];
 }
 
-/** The engine's top cause, or null when nothing was recorded that sets one cause apart (a tie at the top). */
+/**
+ * The engine's top cause, or null when it names none: a faithful or unexplained verdict, a
+ * top hypothesis that does not fit, or a tie at the top. A combined hypothesis gives its
+ * first cause.
+ */
 export function clearTopCause(diagnosis: DiagnosisResult | null): Cause | null {
-  const [top, second] = diagnosis?.hypotheses ?? [];
-  if (!top || top.likelihood <= 0) return null;
-  if (top.cause === 'faithful') return null;
-  return second && top.likelihood - second.likelihood < 1e-3 ? null : top.cause;
+  if (!diagnosis || diagnosis.verdict !== 'measurement-error') return null;
+  const [top, second] = diagnosis.hypotheses;
+  if (!top || top.likelihood <= 0 || !top.fits || top.cause === 'faithful') return null;
+  if (second && second.cause !== top.cause && top.likelihood - second.likelihood < 1e-3) return null;
+  return top.cause;
 }
 
 /** The server's own recomputation on every save, so a stored diagnosis never trusts the client. */

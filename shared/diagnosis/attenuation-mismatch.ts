@@ -1,4 +1,11 @@
-import type { Candidate, ModelContext } from './types';
+import type { Cause, Predicted } from '../schemas/diagnosis';
+import { SIGMA } from './scoring';
+import type { Candidate, ModelContext, ResolvedSetup } from './types';
+import { withSwitchPosition } from './defaults';
+import { isPlausible } from './plausibility';
+import { loadedAmplitudeRatio, loadedRiseTimeS, loadingParamsOf } from './loading';
+import { chainAmplitudeRatio, shownRiseTimeS } from './bandwidth';
+import { cascadeRiseTimeS } from './single-pole';
 import { eng, factor } from './wording';
 
 /** The bench action that tells this cause from the others. */
@@ -54,7 +61,7 @@ export function assessAttenuation({ setup, observed }: ModelContext): Candidate[
     estimates.impliedProbeAttenuation = impliedProbeAttenuation(expected, observed.amplitudeV, setting);
   }
   const candidates: Candidate[] = [recorded(setting, actual, expected, estimates)];
-  const hidden = hiddenSwitch(setting, actual, expected, observed.amplitudeV, estimates);
+  const hidden = hiddenSwitch(setup, observed.amplitudeV, estimates);
   if (hidden) candidates.push(hidden);
   return candidates;
 }
@@ -96,13 +103,8 @@ function recorded(
   };
 }
 
-function hiddenSwitch(
-  setting: number,
-  actual: number,
-  expected: number | undefined,
-  observedV: number | undefined,
-  estimates: Record<string, number | string>,
-): Candidate | undefined {
+function hiddenSwitch(setup: ResolvedSetup, observedV: number | undefined, estimates: Record<string, number | string>): Candidate | undefined {
+  const { channelSetting: setting, probeAttenuation: actual, expectedAmplitudeV: expected } = setup;
   if (setting !== actual || expected === undefined || observedV === undefined) return undefined;
   const decades = Math.log10(expected / observedV);
   const k = Math.round(decades);
@@ -110,18 +112,57 @@ function hiddenSwitch(
   const impliedActual = setting * 10 ** k;
   const [probeAt, channelAt] =
     impliedActual >= 1 ? [impliedActual, setting] : [1, setting / impliedActual];
+  // a ratio no probe or channel offers is not a switch position
+  if (!isPlausible('attenuation', probeAt) || !isPlausible('attenuation', channelAt)) return undefined;
   const scale = 10 ** -k;
   const size = k > 0 ? `${factor(10 ** k)} times smaller` : `${factor(10 ** -k)} times larger`;
+  // A switch in another position is another probe: its own load and bandwidth come with it.
+  const switched = probeAt !== actual ? withSwitchPosition(setup, probeAt) : undefined;
+  const consequences = switched ? switchConsequences(switched, setup) : undefined;
+  const predicted: Predicted = { amplitudeV: expected * scale * (consequences?.amplitudeRatio ?? 1) };
+  if (consequences?.riseTimeS !== undefined) predicted.riseTimeS = consequences.riseTimeS;
+  const alsoText = consequences
+    ? ` A probe at ${factor(probeAt)}x also brings its own load (${eng(switched!.tipCapacitanceF, 'F')}${switched!.tipResistanceOhm > 0 ? ` and ${eng(switched!.tipResistanceOhm + switched!.scopeInputResistanceOhm, 'Ω')}` : ''})${switched!.probeBandwidthHz ? ` and bandwidth (about ${eng(switched!.probeBandwidthHz, 'Hz')})` : ''}${predicted.riseTimeS !== undefined ? `, so edges show at about ${eng(predicted.riseTimeS, 's')}` : ''}.`
+    : '';
   return {
     cause: 'attenuation-mismatch',
     basis: 'fitted',
     hiddenPrior: HIDDEN_SWITCH_PRIOR,
     deviation: Math.abs(Math.log(scale)),
-    predicted: { amplitudeV: expected * scale },
-    explanation: `The trace is ${size} than expected (${eng(observedV, 'V')} against ${eng(expected, 'V')}), a round factor: the mark of a probe switch or channel menu that is not where the record says. It fits a ${factor(probeAt)}x probe read as ${factor(channelAt)}x.`,
+    predicted,
+    explanation: `The trace is ${size} than expected (${eng(observedV, 'V')} against ${eng(expected, 'V')}), a round factor: the mark of a probe switch or channel menu that is not where the record says. It fits a ${factor(probeAt)}x probe read as ${factor(channelAt)}x.${alsoText}`,
     confirm: CONFIRM,
     fix: "Look at the probe's switch and the channel's attenuation menu, make them agree, and read the amplitude again.",
     estimates,
+    ...(consequences?.alsoCauses.length ? { alsoCauses: consequences.alsoCauses } : {}),
+    contradictions:
+      probeAt !== actual && !setup.assumed.has('probe.attenuation')
+        ? [{ field: 'probe.attenuation', recorded: actual, implied: probeAt }]
+        : undefined,
     detailTags: [ratioTag(probeAt, channelAt)],
   };
+}
+
+/**
+ * Loading and edges of the probe in its switched position: the amplitude the load leaves,
+ * and the edge through that probe's chain and its RC load (stages in quadrature). Also which
+ * other causes this one fault acts as, beyond the models' accuracy: bandwidth when the
+ * switched probe's chain slows edges by more than 2σ of a rise-time reading, loading when its
+ * load costs more than 2σ of an amplitude reading or dominates the edge.
+ */
+function switchConsequences(setup: ResolvedSetup, recorded: ResolvedSetup): { amplitudeRatio: number; riseTimeS?: number; alsoCauses: Cause[] } {
+  const load = loadingParamsOf(setup);
+  const loadRatio = loadedAmplitudeRatio(setup, load);
+  const amplitudeRatio = loadRatio * chainAmplitudeRatio(setup);
+  const alsoCauses: Cause[] = [];
+  if (!setup.hasEdges) {
+    if (Math.abs(Math.log(loadRatio)) > 2 * SIGMA.amplitude) alsoCauses.push('loading');
+    return { amplitudeRatio, alsoCauses };
+  }
+  const chain = shownRiseTimeS(setup) ?? 0;
+  const before = shownRiseTimeS(recorded) ?? 0;
+  const loadRise = loadedRiseTimeS(load);
+  if (chain > 0 && (before === 0 || Math.log(chain / before) > 2 * SIGMA.riseTime)) alsoCauses.push('bandwidth');
+  if (Math.abs(Math.log(loadRatio)) > 2 * SIGMA.amplitude || loadRise > Math.max(chain, before)) alsoCauses.push('loading');
+  return { amplitudeRatio, riseTimeS: cascadeRiseTimeS([chain, loadRise]), alsoCauses };
 }

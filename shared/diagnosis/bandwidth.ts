@@ -7,6 +7,7 @@ import {
   squareWaveAmplitudeRatio,
 } from './single-pole';
 import { eng, percent } from './wording';
+import { clampPlausible } from './plausibility';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -18,14 +19,21 @@ export interface Stage {
   riseTimeS: number;
 }
 
-/** Measurement-chain stages with a known bandwidth, each taken as a single pole. */
+/**
+ * Measurement-chain stages with a known bandwidth, each taken as a single pole: the probe only
+ * when its bandwidth is recorded (or it is a 1x probe; an unrecorded 10x probe is matched to
+ * the scope, whose figure is then the system's), the scope (its data-sheet rise time when
+ * recorded, else 0.35/BW), and a bandwidth-limit filter when one is on.
+ */
 export function measurementStages(setup: ResolvedSetup): Stage[] {
   const stages: Stage[] = [];
   const add = (name: Stage['name'], bandwidthHz: number | undefined) => {
     if (bandwidthHz !== undefined) stages.push({ name, bandwidthHz, riseTimeS: riseTimeFromBandwidthS(bandwidthHz) });
   };
   add('probe', setup.probeBandwidthHz);
-  add('scope', setup.scopeBandwidthHz);
+  if (setup.scopeRiseTimeS !== undefined) {
+    stages.push({ name: 'scope', riseTimeS: setup.scopeRiseTimeS, bandwidthHz: setup.scopeBandwidthHz ?? bandwidthFromRiseTimeHz(setup.scopeRiseTimeS) });
+  } else add('scope', setup.scopeBandwidthHz);
   add('bandwidth limit', setup.bandwidthLimitHz);
   return stages;
 }
@@ -82,9 +90,10 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
   }
   const observedRise = observed.riseTimeS;
   const signalRise = setup.signalRiseTimeS ?? 0;
+  // held to a plausible measurement bandwidth: a clamped fit predicts its own edge, which then fails to fit
   const effectiveHz =
     observedRise !== undefined && observedRise > signalRise
-      ? bandwidthFromRiseTimeHz(Math.sqrt(observedRise ** 2 - signalRise ** 2))
+      ? clampPlausible('bandwidthHz', bandwidthFromRiseTimeHz(Math.sqrt(observedRise ** 2 - signalRise ** 2))).value
       : undefined;
   if (effectiveHz !== undefined) estimates.effectiveBandwidthHz = effectiveHz;
 
@@ -115,7 +124,7 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
   const slow = observedRise !== undefined && (shown === undefined || observedRise > SLOW_EDGE_FACTOR * shown);
   if (slow && effectiveHz !== undefined && setup.hasEdges) {
     const fittedRatio = chainAmplitudeRatio(
-      { ...setup, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, bandwidthLimitHz: undefined },
+      { ...setup, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, scopeRiseTimeS: undefined, bandwidthLimitHz: undefined },
     );
     const limitHint = setup.bandwidthLimitHz === undefined ? ' a bandwidth-limit filter left on,' : '';
     candidates.push({
@@ -123,7 +132,10 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
       basis: 'fitted',
       hiddenPrior: system === undefined ? UNKNOWN_CHAIN_PRIOR : HIDDEN_BANDWIDTH_PRIOR,
       deviation: shown === undefined ? Math.log(SLOW_EDGE_FACTOR) : Math.log((observedRise as number) / shown),
-      predicted: { amplitudeV: expected === undefined ? undefined : expected * fittedRatio, riseTimeS: observedRise },
+      predicted: {
+        amplitudeV: expected === undefined ? undefined : expected * fittedRatio,
+        riseTimeS: cascadeRiseTimeS([signalRise, riseTimeFromBandwidthS(effectiveHz)]),
+      },
       explanation: `The observed ${eng(observedRise as number, 's')} edge implies an effective bandwidth of about ${eng(effectiveHz, 'Hz')} (BW ≈ 0.35/t_r${setup.signalRiseTimeS ? `, after removing the ${eng(signalRise, 's')} source edge in quadrature` : ''})${system === undefined ? '' : `, well below the ${eng(bandwidthFromRiseTimeHz(system), 'Hz')} the recorded probe and scope give`}. Look for${limitHint} a 1x probe or switch position, a slower probe than recorded, or a slow source edge.`,
       confirm: CONFIRM,
       fix: 'Check the channel for a bandwidth-limit filter, the probe switch for 1x, and the probe model; then measure the edge again.',

@@ -91,6 +91,10 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   if (NO_EDGE_CAUSES.has(hypothesis.cause)) {
     return { ok: false, reason: `the ${name.toLowerCase()} model predicts a frequency, droop or hum rather than an edge, so it is compared in numbers (see its plot) and not drawn over the capture` };
   }
+  if (hypothesis.cause === 'termination-mismatch') {
+    const drawn = terminationOverlay(input, hypothesis, anchor, extent);
+    if (drawn) return { ok: true, overlay: drawn };
+  }
   if (LEVEL_CAUSES.has(hypothesis.cause)) {
     const predictedV = hypothesis.predicted.amplitudeV;
     if (predictedV === undefined) return { ok: false, reason: 'record the expected amplitude so the engine can predict how tall the trace should be' };
@@ -139,5 +143,36 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
       timesS,
       volts,
     },
+  };
+}
+
+/**
+ * Termination draws the spikes it predicts in volts, not a shape stretched to the capture's
+ * levels: from the capture's base, the model's screen voltage after each rising edge, which
+ * starts at the edge's 10 % time. Undefined when the model draws no edge for this setup.
+ */
+function terminationOverlay(input: DiagnosisInput, hypothesis: Hypothesis, anchor: OverlayAnchor, extent: { startS: number; endS: number }): CaptureOverlay | undefined {
+  const plot = diagnosisPlot(input, 'termination-mismatch', hypothesis);
+  if (plot?.kind !== 'line' || plot.xUnit !== 's' || plot.yUnit !== 'V') return undefined;
+  const model = plot.series.find((s) => s.role === 'model');
+  const rises = anchor.edges.filter((e) => e.kind === 'rise');
+  if (!model || rises.length === 0 || anchor.baseV === null) return undefined;
+  const baseV = anchor.baseV;
+  const timesS: number[] = [extent.startS];
+  const volts: number[] = [baseV];
+  for (const edge of rises) {
+    plot.x.forEach((t, i) => {
+      const at = edge.t10S + t;
+      if (at > timesS[timesS.length - 1] && at <= extent.endS) {
+        timesS.push(at);
+        volts.push(baseV + model.values[i]);
+      }
+    });
+  }
+  return {
+    label: `Model (${CAUSE_LABELS['termination-mismatch'].toLowerCase()}): spikes at each rising edge`,
+    summary: `${plot.summary} Drawn from the capture's ${eng(baseV, 'V')} base at each rising edge.`,
+    timesS,
+    volts,
   };
 }

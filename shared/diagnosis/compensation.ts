@@ -1,4 +1,9 @@
-import type { Candidate, ModelContext, ResolvedSetup } from './types';
+import type { Predicted } from '../schemas/diagnosis';
+import type { Candidate, ModelContext, Observed, ResolvedSetup } from './types';
+import { compensationPicture } from './compensation-picture';
+import { compare } from './scoring';
+import { isPlausible, PLAUSIBLE } from './plausibility';
+import { TYPICAL } from './defaults';
 import { add, divide, magnitude, resistorParallelCapacitor } from './complex';
 import { LOW_IMPEDANCE_INPUT_OHM } from './termination-mismatch';
 import { eng, percent } from './wording';
@@ -94,10 +99,79 @@ export function balancedDividerOf(setup: ResolvedSetup): DividerParams {
   return { tipResistanceOhm: r1, tipCapacitanceF: (c2 * r2) / r1, inputResistanceOhm: r2, inputCapacitanceF: c2 };
 }
 
-const MIN_OVERSHOOT_PCT = 2; // smaller corners are within trace noise (our threshold)
+/** Smaller errors are within trace noise (our threshold, % of the level). */
+const MIN_ERROR = 0.02;
 const HIDDEN_TRIMMER_PRIOR = 0.35; // our estimate: probes moved between scopes are often not re-adjusted
+/**
+ * The input capacitance a probe is taken to have been compensated on when only the scope it
+ * is used with now is recorded: a general-purpose 1 MΩ input (common practice, 10–20 pF).
+ */
+export const DESIGN_INPUT_CAPACITANCE_F = TYPICAL.scopeInputCapacitanceF;
 
-/** Compensation candidates: the probe as adjusted, and a mis-adjustment read off the corners. */
+/**
+ * The probe as it sits on the recorded scope. Compensated, unless the scope's input
+ * capacitance is recorded and differs from the input the probe is taken to have been adjusted
+ * on (`DESIGN_INPUT_CAPACITANCE_F`): moving a probe changes C2 by the difference.
+ */
+export function recordedDividerOf(setup: ResolvedSetup): { divider: DividerParams; deltaC2F: number } {
+  const balanced = balancedDividerOf(setup);
+  const recordedInput = !setup.assumed.has('scope.inputCapacitanceF');
+  const deltaC2F = recordedInput ? setup.scopeInputCapacitanceF - DESIGN_INPUT_CAPACITANCE_F : 0;
+  return { divider: { ...balanced, inputCapacitanceF: balanced.inputCapacitanceF + deltaC2F }, deltaC2F };
+}
+
+/** The divider whose edges jump to (1 + k) of the settled level, C1 = j·C2/(1 − j) with j = (1 + k)·settle. */
+function dividerWithError(base: DividerParams, k: number): DividerParams | undefined {
+  const settle = base.inputResistanceOhm / (base.tipResistanceOhm + base.inputResistanceOhm);
+  const jump = (1 + k) * settle;
+  if (!(jump > 0 && jump < 1)) return undefined;
+  return { ...base, tipCapacitanceF: (jump * base.inputCapacitanceF) / (1 - jump) };
+}
+
+const errorOf = (d: DividerParams) => {
+  const { jump, settle } = dividerLevels(d);
+  return jump / settle - 1;
+};
+
+function predictedFor(setup: ResolvedSetup, d: DividerParams): Predicted {
+  const pic = compensationPicture(setup, d);
+  const expected = setup.expectedAmplitudeV;
+  return {
+    ...(expected === undefined ? {} : { amplitudeV: expected * pic.amplitudeRatio }),
+    ...(pic.overshootPct === undefined ? {} : { overshootPct: pic.overshootPct }),
+    ...(pic.tiltPct === undefined ? {} : { tiltPct: pic.tiltPct }),
+  };
+}
+
+/**
+ * The trimmer error that best explains the amplitude, corners and tilt seen, searched over the
+ * plausible range (`PLAUSIBLE.compensationError`); undefined when nothing it predicts was seen.
+ */
+function fitError(setup: ResolvedSetup, observed: Observed, base: DividerParams): number | undefined {
+  const seen: Observed = {
+    amplitudeV: setup.expectedAmplitudeV === undefined ? undefined : observed.amplitudeV,
+    overshootPct: observed.overshootPct,
+    tiltPct: observed.tiltPct,
+  };
+  if (seen.amplitudeV === undefined && seen.overshootPct === undefined && seen.tiltPct === undefined) return undefined;
+  const { min, max }: { min: number; max: number } = PLAUSIBLE.compensationError;
+  const cost = (k: number) => {
+    const d = dividerWithError(base, k);
+    return d ? compare(predictedFor(setup, d), seen).chiSquare : Infinity;
+  };
+  let bestK = 0;
+  let bestCost = Infinity;
+  for (let step = (max - min) / 200, lo = min, hi = max, round = 0; round < 3; round++, step /= 40) {
+    for (let k = lo; k <= hi + 1e-12; k += step) {
+      const c = cost(k);
+      if (c < bestCost) [bestK, bestCost] = [k, c];
+    }
+    [lo, hi] = [Math.max(min, bestK - step), Math.min(max, bestK + step)];
+  }
+  return bestK;
+}
+
+/** Compensation candidates: the probe as it sits on the recorded scope, and a trimmer error read off the trace. */
 export function assessCompensation({ setup, observed }: ModelContext): Candidate[] {
   const applicable = setup.tipResistanceOhm > 0 && setup.scopeInputResistanceOhm >= LOW_IMPEDANCE_INPUT_OHM;
   if (!applicable) {
@@ -117,45 +191,52 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
       },
     ];
   }
-  const balanced = balancedDividerOf(setup);
-  const levels = dividerLevels(balanced);
+  const { divider, deltaC2F } = recordedDividerOf(setup);
+  const recordedK = errorOf(divider);
+  const levels = dividerLevels(divider);
+  const moved = Math.abs(recordedK) >= 1e-6;
+  const movedText = moved
+    ? ` The probe is taken to have been adjusted on a ${eng(DESIGN_INPUT_CAPACITANCE_F, 'F')} input (a typical one; no earlier scope is recorded); this scope's ${eng(setup.scopeInputCapacitanceF, 'F')} changes C2 by ${eng(deltaC2F, 'F')}, so edges jump to ${percent((1 + recordedK) * 100)} of the settled level until the trimmer is turned again.`
+    : '';
   const candidates: Candidate[] = [
     {
       cause: 'compensation',
       basis: 'recorded',
-      deviation: 0,
-      predicted: setup.hasEdges ? { overshootPct: 0 } : {},
-      explanation: `No compensation state is recorded, so the probe is taken as adjusted: R1·C1 = R2·C2 (${eng(balanced.tipResistanceOhm, 'Ω')} · ${eng(balanced.tipCapacitanceF, 'F')} = ${eng(balanced.inputResistanceOhm, 'Ω')} · ${eng(balanced.inputCapacitanceF, 'F')}) and square-wave tops are flat. Out of adjustment, an edge would jump to C1/(C1+C2) and settle to R2/(R1+R2) = ${percent(levels.settle * 100)} with τ ≈ ${eng(levels.timeConstantS, 's')}.`,
+      deviation: Math.abs(Math.log(1 + recordedK)),
+      predicted: setup.hasEdges || moved ? predictedFor(setup, divider) : {},
+      explanation: moved
+        ? `A compensated probe keeps R1·C1 = R2·C2.${movedText} Signals much faster than τ ≈ ${eng(levels.timeConstantS, 's')} show that capacitive ratio as an amplitude error with flat tops; slower ones show it at the corners.`
+        : `No compensation state is recorded, so the probe is taken as adjusted: R1·C1 = R2·C2 (${eng(divider.tipResistanceOhm, 'Ω')} · ${eng(divider.tipCapacitanceF, 'F')} = ${eng(divider.inputResistanceOhm, 'Ω')} · ${eng(divider.inputCapacitanceF, 'F')}) and square-wave tops are flat. Out of adjustment, an edge would jump to C1/(C1+C2) and settle to R2/(R1+R2) = ${percent(levels.settle * 100)} with τ ≈ ${eng(levels.timeConstantS, 's')}; signals much faster than τ would show the capacitive ratio as an amplitude error.`,
       confirm: CONFIRM,
-      fix: "Check the probe on the scope's calibrator square wave and turn the trimmer until the top is flat.",
-      estimates: { timeConstantS: levels.timeConstantS, balancedTipCapacitanceF: balanced.tipCapacitanceF },
-      detailTags: [],
+      fix: "Check the probe on this scope's calibrator square wave and turn the trimmer until the top is flat.",
+      estimates: { timeConstantS: levels.timeConstantS, balancedTipCapacitanceF: balancedDividerOf(setup).tipCapacitanceF, ...(moved ? { scopeChangeDeltaC2F: deltaC2F, jumpRatio: levels.jump, settleRatio: levels.settle } : {}) },
+      detailTags: moved ? ['probe-moved-between-scopes'] : [],
     },
   ];
-  const pct = observed.overshootPct;
-  if (!setup.hasEdges || pct === undefined || Math.abs(pct) < MIN_OVERSHOOT_PCT) return candidates;
-  const c1 = tipCapacitanceForOvershootF(balanced, pct);
-  if (c1 === undefined) return candidates;
-  const fitted = { ...balanced, tipCapacitanceF: c1 };
+  if (setup.signalKind === 'dc' || (!setup.hasEdges && setup.frequencyHz === undefined)) return candidates;
+  const k = fitError(setup, observed, divider);
+  if (k === undefined || Math.abs(k) < MIN_ERROR) return candidates;
+  const fitted = dividerWithError(divider, k) as DividerParams;
+  if (!isPlausible('tipCapacitanceF', fitted.tipCapacitanceF)) return candidates;
   const fittedLevels = dividerLevels(fitted);
-  const over = pct > 0;
-  const inverse = { tipCapacitanceF: c1, state: over ? 'over-compensated' : 'under-compensated', adjust: over ? 'reduce' : 'increase' };
-  candidates[0].estimates = { ...candidates[0].estimates, ...inverse };
-  // A square wave much faster than τ never shows the decay, only a shifted level.
-  const halfPeriodS = setup.frequencyHz === undefined ? Infinity : 1 / (2 * setup.frequencyHz);
-  const visible = halfPeriodS >= fittedLevels.timeConstantS / 20 ? 1 : 0.1;
+  const over = k > 0;
+  const inverse = { tipCapacitanceF: fitted.tipCapacitanceF, state: over ? 'over-compensated' : 'under-compensated', adjust: over ? 'reduce' : 'increase' };
+  const fast = setup.frequencyHz !== undefined && 1 / (2 * setup.frequencyHz) < fittedLevels.timeConstantS / 5;
+  const seenAs = fast
+    ? `a ${percent(Math.abs(k) * 100)} ${over ? 'higher' : 'lower'} amplitude with flat tops: a ${setup.frequencyHz === undefined ? '' : `${eng(setup.frequencyHz, 'Hz')} `}signal is far faster than τ ≈ ${eng(fittedLevels.timeConstantS, 's')}, so it only ever sees the capacitive ratio`
+    : `corners that ${over ? 'spike' : 'round off'} by about ${percent(Math.abs(k) * 100)} and recover with τ ≈ ${eng(fittedLevels.timeConstantS, 's')}`;
   candidates.push({
     cause: 'compensation',
     basis: 'fitted',
-    hiddenPrior: HIDDEN_TRIMMER_PRIOR * visible,
-    deviation: Math.abs(Math.log(1 + pct / 100)),
-    predicted: { overshootPct: cornerOvershootPct(fitted) },
-    explanation: `Corners that ${over ? 'spike' : 'round off'} by ${percent(Math.abs(pct))} and recover with τ ≈ ${eng(fittedLevels.timeConstantS, 's')} mean the probe is ${over ? 'over' : 'under'}-compensated: the fast divider C1/(C1+C2) passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(c1, 'F')} instead of the ${eng(balanced.tipCapacitanceF, 'F')} that balances R2·C2.`,
+    hiddenPrior: HIDDEN_TRIMMER_PRIOR,
+    deviation: Math.abs(Math.log(1 + k)),
+    predicted: predictedFor(setup, fitted),
+    explanation: `The trace fits a probe ${over ? 'over' : 'under'}-compensated by ${percent(Math.abs(k) * 100)}: ${seenAs}. The fast divider C1/(C1+C2) passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(fitted.tipCapacitanceF, 'F')} instead of the ${eng(divider.tipCapacitanceF, 'F')} that balances R2·C2.`,
     confirm: CONFIRM,
     fix: `On the calibrator square wave, turn the compensation trimmer to ${over ? 'reduce' : 'increase'} the high-frequency gain until the corners are square, with no spike and no rounding.`,
     estimates: {
       timeConstantS: fittedLevels.timeConstantS,
-      balancedTipCapacitanceF: balanced.tipCapacitanceF,
+      balancedTipCapacitanceF: divider.tipCapacitanceF,
       jumpRatio: fittedLevels.jump,
       settleRatio: fittedLevels.settle,
       ...inverse,

@@ -1,13 +1,14 @@
 import type { DiagnosisInput, Hypothesis, HypothesisCause } from '../schemas/diagnosis';
 import type { ResolvedSetup } from './types';
 import { observedOf, resolveSetup } from './defaults';
-import { balancedDividerOf, compensationStepResponse, dividerLevels } from './compensation';
+import { compensationStepResponse, dividerLevels, recordedDividerOf } from './compensation';
 import { groundLeadResonance, groundLeadStepResponse, straightWireInductanceH } from './ground-lead';
 import { dcLoadingRatio, loadingCornerHz, loadingFrequencyResponse, loadingParamsOf } from './loading';
 import { chainMagnitudeAt, systemRiseTimeS } from './bandwidth';
 import { bandwidthFromRiseTimeHz } from './single-pole';
 import { shownAmplitudeV } from './attenuation-mismatch';
 import { LOW_IMPEDANCE_INPUT_OHM, terminationShownRatio } from './termination-mismatch';
+import { terminationPlot } from './termination-plot';
 import { geometricGrid, rampResponse, stepGrid } from './curve-grids';
 import { eng, factor, percent } from './wording';
 import { acCouplingPlot, aliasingPlot, clippingPlot, commonModePlot, generatorLoadPlot } from './curves-acquisition';
@@ -64,13 +65,16 @@ export function diagnosisPlot(input: DiagnosisInput, cause: HypothesisCause, hyp
     case 'compensation':
       return compensationPlot(setup, 'jumpRatio' in est ? num(est.tipCapacitanceF) : undefined);
     case 'ground-lead':
-      return groundLeadPlot(setup, 'inductanceH' in est ? undefined : num(est.impliedInductanceH));
+      return groundLeadPlot(setup, 'inductanceH' in est ? undefined : num(est.fittedInductanceH ?? est.impliedInductanceH));
     case 'loading':
       return loadingPlot(setup, fittedSource(setup, est));
     case 'bandwidth':
       return bandwidthPlot(setup, fittedBandwidth(input, hypothesis));
+    case 'termination-mismatch': {
+      const rin = num(est.inputResistanceOhm) ?? setup.scopeInputResistanceOhm;
+      return terminationPlot(setup, rin) ?? amplitudeBars(input, setup, cause, hypothesis?.predicted.amplitudeV);
+    }
     case 'attenuation-mismatch':
-    case 'termination-mismatch':
       return amplitudeBars(input, setup, cause, hypothesis?.predicted.amplitudeV);
     case 'aliasing':
       return aliasingPlot(input, setup, hypothesis);
@@ -100,8 +104,9 @@ const show = (value: number, yUnit: 'V' | '') => (yUnit === 'V' ? eng(value, 'V'
 
 function compensationPlot(setup: ResolvedSetup, fittedTipCapacitanceF: number | undefined): LinePlot | null {
   if (setup.tipResistanceOhm <= 0 || setup.scopeInputResistanceOhm < LOW_IMPEDANCE_INPUT_OHM) return null;
-  const balanced = balancedDividerOf(setup);
-  const divider = { ...balanced, tipCapacitanceF: fittedTipCapacitanceF ?? balanced.tipCapacitanceF };
+  // the probe as it sits on the recorded scope (C2 shifted when it was adjusted on another input)
+  const base = recordedDividerOf(setup).divider;
+  const divider = { ...base, tipCapacitanceF: fittedTipCapacitanceF ?? base.tipCapacitanceF };
   const { jump, settle, timeConstantS } = dividerLevels(divider);
   const { amplitude, yUnit, yLabel } = levelOf(setup);
   const x = stepGrid(5 * timeConstantS);
@@ -224,7 +229,7 @@ function bandwidthPlot(recorded: ResolvedSetup, effectiveHz: number | undefined)
   const setup =
     effectiveHz === undefined
       ? recorded
-      : { ...recorded, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, bandwidthLimitHz: undefined };
+      : { ...recorded, probeBandwidthHz: effectiveHz, scopeBandwidthHz: undefined, scopeRiseTimeS: undefined, bandwidthLimitHz: undefined };
   const riseS = systemRiseTimeS(setup);
   if (riseS === undefined) return null;
   const chainHz = bandwidthFromRiseTimeHz(riseS);

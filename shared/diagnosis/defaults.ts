@@ -66,6 +66,15 @@ export function resolveSetup(input: DiagnosisInput): {
     assume('scope.inputCapacitanceF', scopeInputCapacitanceF, 'F', 'Not recorded: a typical general-purpose input.');
   }
 
+  if (given(scope.inputCapacitanceF) && !oneX) {
+    assume(
+      'probe.compensatedOnInputCapacitanceF',
+      TYPICAL.scopeInputCapacitanceF,
+      'F',
+      "Not recorded: the probe is taken to have been last adjusted on a typical 15 pF input, so a recorded input capacitance that differs shifts its compensation until the trimmer is turned on this scope.",
+    );
+  }
+
   let tipResistanceOhm = probe.tipResistanceOhm ?? (attenuation - 1) * TYPICAL.probeDesignInputOhm;
   if (!given(probe.tipResistanceOhm)) {
     assume(
@@ -95,18 +104,22 @@ export function resolveSetup(input: DiagnosisInput): {
     );
   }
 
+  // An unrecorded probe bandwidth means a probe matched to its scope: the scope's figure is the
+  // system's, so the probe is not a second stage. A 1x probe is the exception: its own few MHz.
   let probeBandwidthHz = probe.bandwidthHz ?? undefined;
   if (!given(probeBandwidthHz)) {
     if (oneX) {
       probeBandwidthHz = TYPICAL.oneXBandwidthHz;
       assume('probe.bandwidthHz', probeBandwidthHz, 'Hz', 'Not recorded: 1x passive probes reach only a few MHz.');
-    } else if (given(scope.bandwidthHz)) {
-      probeBandwidthHz = scope.bandwidthHz;
-      assume('probe.bandwidthHz', probeBandwidthHz, 'Hz', "Not recorded: a 10x probe is normally chosen to match the scope's bandwidth.");
+    } else if (given(scope.bandwidthHz) || given(scope.riseTimeS)) {
+      assume('probe.bandwidthHz', 'matched to the scope', '', "Not recorded: the probe is taken to be matched to the scope, so the scope's bandwidth is the system's and the probe adds no stage of its own.");
     }
   }
 
   const groundKind = probe.groundKind ?? 'clip-lead';
+  if (!given(probe.groundKind)) {
+    assume('probe.groundKind', groundKind, '', 'Not recorded: the clip lead that comes with the probe.');
+  }
   let groundLeadM = probe.groundLeadM ?? undefined;
   if (!given(groundLeadM) && groundKind !== 'none') {
     groundLeadM = groundKind === 'spring' ? TYPICAL.springLeadM : TYPICAL.clipLeadM;
@@ -209,5 +222,25 @@ export function observedOf(input: DiagnosisInput): Observed {
     clipped: o.clipped ?? undefined,
     tiltPct: o.tiltPct ?? undefined,
     humFrequencyHz: o.humFrequencyHz ?? undefined,
+  };
+}
+
+/**
+ * The recorded setup with a switchable probe in another position: a 1x position is a plain
+ * wire with the cable's ~100 pF and a few MHz of bandwidth; an attenuating one has its tip
+ * resistor into the 1 MΩ design input and typical tip capacitance, matched to the scope.
+ * Values recorded for the probe describe the position the record believed in, so they give way.
+ */
+export function withSwitchPosition(setup: ResolvedSetup, ratio: number): ResolvedSetup {
+  if (ratio === setup.probeAttenuation) return setup;
+  const oneX = ratio === 1;
+  return {
+    ...setup,
+    probeAttenuation: ratio,
+    tipResistanceOhm: (ratio - 1) * TYPICAL.probeDesignInputOhm,
+    tipCapacitanceF: oneX
+      ? TYPICAL.oneXTipCapacitanceF - TYPICAL.scopeInputCapacitanceF + setup.scopeInputCapacitanceF
+      : TYPICAL.attenuatingTipCapacitanceF,
+    probeBandwidthHz: oneX ? TYPICAL.oneXBandwidthHz : undefined,
   };
 }

@@ -1,4 +1,6 @@
-import type { Candidate, ModelContext, ResolvedSetup } from './types';
+import type { Candidate, Contradiction, ModelContext, ResolvedSetup } from './types';
+import { clampPlausible, PLAUSIBLE } from './plausibility';
+import { TYPICAL } from './defaults';
 import { chainMagnitudeAt } from './bandwidth';
 import { eng, percent } from './wording';
 
@@ -136,40 +138,60 @@ export function edgeRingingFactor(ringingFrequencyHz: number, edgeRiseTimeS: num
 }
 
 const LONG_LEAD_M = 0.05; // our threshold for the 'long-ground-lead' tag
+/** Ringing that overshoots less than this is lost in the trace (our threshold). */
+const VISIBLE_OVERSHOOT_PCT = 1;
 // our estimates: an assumed lead length is a guess, so a length fitted to the ringing beats it
 const HIDDEN_LEAD_PRIOR = { unrecorded: 0.6, recorded: 0.25 };
+/** A recorded spring still varies with how it sits: its 1 cm is held to about a factor of 2. */
+const SPRING_TOLERANCE_LN = Math.log(2);
 
 /** Ground-lead candidates: the recorded lead, and the lead an observed ringing implies. */
 export function assessGroundLead({ setup, observed }: ModelContext): Candidate[] {
   const recorded = recordedLead(setup);
   const candidates: Candidate[] = [recorded];
   const ring = observed.ringingFrequencyHz;
-  if (ring !== undefined) {
-    const base = { sourceResistanceOhm: setup.sourceResistanceOhm, capacitanceF: setup.tipCapacitanceF };
-    const inductanceH = inductanceForDampedRingingH(base, ring);
-    const lengthM = leadLengthForInductanceM(inductanceH, setup.groundWireRadiusM);
-    const unrecorded = setup.groundLeadM === undefined || setup.assumed.has('probe.groundLeadM');
-    const shown = shownOvershoot(setup, { ...base, inductanceH });
-    const inverse = { impliedInductanceH: inductanceH, ...(lengthM === undefined ? {} : { impliedLeadLengthM: lengthM }) };
-    recorded.estimates = { ...recorded.estimates, ...inverse };
-    const recordedNote =
-      setup.groundLeadM !== undefined && !setup.assumed.has('probe.groundLeadM') ? ` (the case records ${eng(setup.groundLeadM, 'm')})` : '';
-    candidates.push({
-      cause: 'ground-lead',
-      basis: 'fitted',
-      hiddenPrior: unrecorded ? HIDDEN_LEAD_PRIOR.unrecorded : HIDDEN_LEAD_PRIOR.recorded,
-      deviation: Math.log(1 + (shown.pct ?? 0) / 100),
-      predicted: { ringingFrequencyHz: shown.ringHz ?? ring, overshootPct: shown.pct },
-      explanation: `Ringing at ${eng(ring, 'Hz')} with the ${eng(setup.tipCapacitanceF, 'F')} tip capacitance implies about ${eng(inductanceH, 'H')} in the ground loop${lengthM === undefined ? '' : `, which a straight ${eng(2 * setup.groundWireRadiusM, 'm')} wire reaches at about ${eng(lengthM, 'm')}`}${recordedNote}.`,
-      confirm: CONFIRM,
-      fix:
-        setup.groundKind === 'none'
-          ? 'Ground the probe at the test point with a ground spring or the shortest lead available, so the return current does not take a long loop.'
-          : 'Replace the clip lead with a ground spring on the tip barrel or a probe socket at the test point, and keep the loop between tip and ground as small as possible.',
-      estimates: inverse,
-      detailTags: lengthM !== undefined && lengthM >= LONG_LEAD_M ? ['long-ground-lead'] : [],
-    });
+  if (ring === undefined) return candidates;
+  const base = { sourceResistanceOhm: setup.sourceResistanceOhm, capacitanceF: setup.tipCapacitanceF };
+  const r = setup.groundWireRadiusM;
+  const rawH = inductanceForDampedRingingH(base, ring);
+  const rawLengthM = leadLengthForInductanceM(rawH, r);
+  // Bounded to a lead someone could have used: a clamped lead predicts its own ringing, which then fails to fit.
+  const fromH = rawLengthM ?? (rawH > straightWireInductanceH(PLAUSIBLE.leadLengthM.max, r) ? Infinity : 0);
+  const { value: lengthM, clamped } = clampPlausible('leadLengthM', fromH);
+  const inductanceH = clamped ? straightWireInductanceH(lengthM, r) : rawH;
+  const unrecordedLength = setup.groundLeadM === undefined || setup.assumed.has('probe.groundLeadM');
+  const springRecorded = setup.groundKind === 'spring' && !setup.assumed.has('probe.groundKind');
+  const shown = shownOvershoot(setup, { ...base, inductanceH });
+  const impliedLengthM = clamped ? fromH : lengthM;
+  const inverse: Record<string, number> = { impliedInductanceH: rawH, ...(Number.isFinite(impliedLengthM) && impliedLengthM > 0 ? { impliedLeadLengthM: impliedLengthM } : {}) };
+  recorded.estimates = { ...recorded.estimates, ...inverse };
+  const contradictions: Contradiction[] = [];
+  if (!unrecordedLength && setup.groundLeadM !== undefined) {
+    contradictions.push({ field: 'probe.groundLeadM', recorded: setup.groundLeadM, implied: lengthM });
+  } else if (springRecorded) {
+    contradictions.push({ field: 'probe.groundLeadM', recorded: TYPICAL.springLeadM, implied: lengthM, toleranceLn: SPRING_TOLERANCE_LN });
   }
+  const recordedNote = contradictions.length ? ` The case records ${springRecorded && unrecordedLength ? 'a ground spring' : eng(setup.groundLeadM ?? 0, 'm')}, which contradicts this.` : '';
+  const implied = clamped
+    ? ` No plausible lead reaches that: it needs ${Number.isFinite(fromH) && fromH > 0 ? `about ${eng(fromH, 'm')} of wire` : `${eng(rawH, 'H')}`}, so the fit is held at ${eng(lengthM, 'm')}, which rings near ${eng(shown.ringHz ?? groundLeadResonance({ ...base, inductanceH }).naturalFrequencyHz, 'Hz')}; the ringing comes from something else.`
+    : `, which a straight ${eng(2 * r, 'm')} wire reaches at about ${eng(lengthM, 'm')}.`;
+  candidates.push({
+    cause: 'ground-lead',
+    basis: 'fitted',
+    hiddenPrior: unrecordedLength && !springRecorded ? HIDDEN_LEAD_PRIOR.unrecorded : HIDDEN_LEAD_PRIOR.recorded,
+    deviation: Math.log(1 + (shown.pct ?? 0) / 100),
+    predicted: { ringingFrequencyHz: shown.ringHz ?? groundLeadResonance({ ...base, inductanceH }).naturalFrequencyHz, overshootPct: shown.pct },
+    overshootUpperBound: true,
+    explanation: `Ringing at ${eng(ring, 'Hz')} with the ${eng(setup.tipCapacitanceF, 'F')} tip capacitance implies about ${eng(rawH, 'H')} in the ground loop${clamped ? '.' : ''}${implied}${recordedNote}`,
+    confirm: CONFIRM,
+    fix:
+      setup.groundKind === 'none'
+        ? 'Ground the probe at the test point with a ground spring or the shortest lead available, so the return current does not take a long loop.'
+        : 'Replace the clip lead with a ground spring on the tip barrel or a probe socket at the test point, and keep the loop between tip and ground as small as possible.',
+    estimates: { ...inverse, fittedInductanceH: inductanceH },
+    contradictions,
+    detailTags: !clamped && lengthM >= LONG_LEAD_M ? ['long-ground-lead'] : [],
+  });
   return candidates;
 }
 
@@ -213,10 +235,12 @@ function recordedLead(setup: ResolvedSetup): Candidate {
     text += setup.signalRiseTimeS === undefined ? ' (the edge is taken as ideal)' : '';
     text += `; on screen about ${percent(pct ?? 0)}.`;
   }
+  const visible = pct !== undefined && pct >= VISIBLE_OVERSHOOT_PCT;
   return {
     ...common,
     deviation: Math.log(1 + (pct ?? 0) / 100),
-    predicted: { overshootPct: pct, ringingFrequencyHz: ringHz },
+    predicted: { overshootPct: pct, ringingFrequencyHz: visible ? ringHz : undefined },
+    overshootUpperBound: true,
     explanation: text,
     confirm: CONFIRM,
     fix:

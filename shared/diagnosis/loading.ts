@@ -3,6 +3,7 @@ import { add, complex, divide, magnitude, resistorParallelCapacitor } from './co
 import { cascadeRiseTimeS, riseTimeFromTimeConstantS, squareWaveAmplitudeRatio } from './single-pole';
 import { shownRiseTimeS } from './bandwidth';
 import { eng, percent } from './wording';
+import { clampPlausible } from './plausibility';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -98,15 +99,22 @@ export function assessLoading({ setup, observed }: ModelContext): Candidate[] {
     const ratio = observed.amplitudeV / expected;
     const sineLike = setup.signalKind === 'sine' || setup.signalKind === 'other';
     const atHz = sineLike ? (setup.frequencyHz ?? 0) : 0;
-    const fitted = ratio > 1e-4 && ratio < 0.95 ? impliedSourceResistanceOhm(loadingParamsOf(setup), ratio, atHz) : undefined;
-    if (fitted !== undefined) {
+    const raw = ratio > 1e-4 && ratio < 0.95 ? impliedSourceResistanceOhm(loadingParamsOf(setup), ratio, atHz) : undefined;
+    if (raw !== undefined) {
+      // held to a plausible node impedance: beyond it the clamped fit predicts its own, wrong amplitude
+      const { value: fitted, clamped } = clampPlausible('sourceResistanceOhm', raw);
       const recordedSource = !setup.assumed.has('circuit.sourceResistanceOhm');
-      const prior = HIDDEN_SOURCE_PRIOR * (fitted <= 1e6 ? 1 : 0.3) * (recordedSource ? 0.5 : 1);
+      const prior = HIDDEN_SOURCE_PRIOR * (fitted <= 1e6 ? 1 : 0.3);
       const candidate = loadingCandidate(setup, loadingParamsOf(setup, fitted), 'fitted');
       candidate.hiddenPrior = prior;
-      candidate.estimates = { ...candidate.estimates, impliedSourceResistanceOhm: fitted };
-      candidates[0].estimates = { ...candidates[0].estimates, impliedSourceResistanceOhm: fitted };
-      candidate.explanation = `The observed ${percent(ratio * 100)} of the expected amplitude fits a source impedance of about ${eng(fitted, 'Ω')} against the probe's load. ${candidate.explanation}`;
+      candidate.estimates = { ...candidate.estimates, impliedSourceResistanceOhm: raw };
+      candidates[0].estimates = { ...candidates[0].estimates, impliedSourceResistanceOhm: raw };
+      if (recordedSource) {
+        candidate.contradictions = [{ field: 'circuit.sourceResistanceOhm', recorded: setup.sourceResistanceOhm, implied: fitted }];
+      }
+      const heldText = clamped ? ` No plausible node reaches that (above ${eng(fitted, 'Ω')}), so the fit is held there.` : '';
+      const recordedText = recordedSource ? ` The case records ${eng(setup.sourceResistanceOhm, 'Ω')}.` : '';
+      candidate.explanation = `The observed ${percent(ratio * 100)} of the expected amplitude fits a source impedance of about ${eng(raw, 'Ω')} against the probe's load.${heldText}${recordedText} ${candidate.explanation}`;
       candidates.push(candidate);
     }
   }

@@ -1,93 +1,142 @@
-import type { Cause, DiagnosisInput, DiagnosisResult, Hypothesis, Predicted, Risk } from '../schemas/diagnosis';
-import { hazardousLive } from '../safety/hazard';
-import type { Candidate, ResolvedSetup } from './types';
+import type { DiagnosisInput, DiagnosisResult, Hypothesis, HypothesisCause, Predicted, Risk } from '../schemas/diagnosis';
+import type { Candidate, Observed } from './types';
 import { observedOf, resolveSetup } from './defaults';
-import { applicability, compare } from './scoring';
-import { shownRiseTimeS } from './bandwidth';
+import { applicability, compare, summarise, type Comparison } from './scoring';
+import { contradictionTerms } from './evidence';
+import { faithfulPicture, faithfulWording, FAITHFUL_CONFIRM } from './faithful';
+import { composePredictions } from './combination';
+import { decideVerdict, fitGate, SIGNIFICANT_IMPROVEMENT } from './verdict';
+import { setupRisks } from './safety-risks';
 import { MODELS } from './models';
 
-/** Hypotheses at or above this likelihood contribute tags. */
-export const TAG_THRESHOLD = 0.2;
+/** Prior that a trace is true before anything is compared (our estimate: even odds, since traces are filed because they look suspect but most setups are sound). */
+export const FAITHFUL_PRIOR = 0.5;
+/**
+ * A combined hypothesis pays for its extra cause twice: the product of its members' priors,
+ * and one unit of log-likelihood for the extra freedom (Akaike's penalty of one per added
+ * parameter; source: Akaike, IEEE Trans. Automatic Control 19 (1974), AIC = 2k − 2 ln L).
+ */
+export const COMBINATION_LOG_PENALTY = 1;
+/** At most this many combined hypotheses are returned (the best by score). */
+const MAX_COMBINATIONS = 3;
 
 /** On equal scores, prefer what every setup has over a mismatch someone would have to make. */
-const TIE_ORDER: Cause[] = ['ground-lead', 'bandwidth', 'loading', 'compensation', 'termination-mismatch', 'attenuation-mismatch'];
+const TIE_ORDER: HypothesisCause[] = ['faithful', 'ground-lead', 'bandwidth', 'loading', 'compensation', 'termination-mismatch', 'attenuation-mismatch'];
+
+/** A hypothesis being scored: one candidate, two combined, or the faithful reading. */
+interface Scored {
+  causes: HypothesisCause[];
+  /** RSS of the log-ratio residuals against the observation alone (the contract's `residual`). */
+  observedResidual: number;
+  members: Candidate[];
+  predicted: Predicted;
+  comparison: Comparison;
+  logScore: number;
+  deviation: number;
+  /** Predicts something the faithful picture does not, beyond the models' accuracy. */
+  distinct: boolean;
+  fits: boolean;
+}
 
 /**
- * Runs every cause model on a case and ranks them against what was observed.
+ * Runs every cause model on a case and ranks the hypotheses against what was observed.
  *
- * Each model predicts what the scope shows (quantities it does not model take the reference
- * picture: the expected amplitude, the recorded chain's rise time, no overshoot, no ringing).
- * Likelihood ∝ prior × exp(−Σ(rᵢ/σᵢ)²/2) with rᵢ = ln(predicted/observed); the prior is the
- * cause's applicability (from the size of the error it predicts) or, for a fitted candidate,
- * how often its hidden parameter is the culprit. Likelihoods are normalised over the six
- * returned hypotheses, most likely first. With nothing observed, the ranking is by the size
- * of the predicted error.
+ * Each model predicts what the scope shows; quantities it does not model take the faithful
+ * picture (`faithful.ts`). Score = ln prior − χ²/2, χ² = Σ(rᵢ/σᵢ)² over log-ratio residuals
+ * against the observation and against recorded values a fit contradicts (`evidence.ts`). The
+ * prior is the cause's applicability (from the size of the error it predicts) or, for a fitted
+ * candidate, how often its hidden parameter is the culprit. A hypothesis fits when its χ² is
+ * under the gate (`verdict.ts`) and, for a cause, it predicts something the faithful picture
+ * does not. Returned: the faithful reading, the best candidate of each cause, and combined
+ * causes that explain materially more than either alone; likelihoods are normalised over all
+ * of them. The verdict's leading hypothesis comes first; no other is given more belief than it.
  */
 export function diagnose(input: DiagnosisInput): DiagnosisResult {
   const { setup, assumptions } = resolveSetup(input);
   const observed = observedOf(input);
-  const reference = referencePicture(setup);
+  const reference = faithfulPicture(setup);
+  const candidates = MODELS.flatMap((model) => model({ setup, observed }));
 
-  const best = new Map<Cause, { candidate: Candidate; predicted: Predicted; residual?: number; logScore: number }>();
-  for (const candidate of MODELS.flatMap((model) => model({ setup, observed }))) {
-    const predicted = merge(reference, candidate.predicted);
-    const { chiSquare, residual } = compare(predicted, observed);
-    const prior = candidate.basis === 'fitted' ? (candidate.hiddenPrior ?? 0.1) : applicability(candidate.deviation);
-    const logScore = Math.log(prior) - chiSquare / 2;
-    const current = best.get(candidate.cause);
-    if (!current || logScore > current.logScore) best.set(candidate.cause, { candidate, predicted, residual, logScore });
+  const faithfulComparison = compare(reference, observed);
+  const faithful: Scored = {
+    causes: ['faithful'],
+    members: [],
+    predicted: reference,
+    comparison: faithfulComparison,
+    observedResidual: faithfulComparison.residual ?? 0,
+    logScore: Math.log(FAITHFUL_PRIOR) - faithfulComparison.chiSquare / 2,
+    deviation: 0,
+    distinct: false,
+    fits: faithfulComparison.chiSquare <= fitGate(faithfulComparison.count),
+  };
+
+  const singles = candidates.map((c) => scoreSingle(c, reference, observed));
+  const bestPerCause = new Map<HypothesisCause, Scored>();
+  for (const s of singles) {
+    const current = bestPerCause.get(s.causes[0]);
+    if (!current || s.logScore > current.logScore) bestPerCause.set(s.causes[0], s);
   }
+  const anyObserved = faithfulComparison.count > 0;
+  const combos = combinations(singles, reference, observed, anyObserved);
+  const causeHypotheses = [...bestPerCause.values(), ...combos];
 
-  const entries = [...best.values()];
-  const top = Math.max(...entries.map((e) => e.logScore));
-  const weights = entries.map((e) => Math.exp(e.logScore - top));
+  const verdict = decideVerdict({
+    faithfulFits: faithful.fits,
+    faithfulChiSquare: faithful.comparison.chiSquare,
+    fittingCauseChiSquares: causeHypotheses.filter((h) => h.fits).map((h) => h.comparison.chiSquare),
+    observed: anyObserved,
+    setupPredictsError: singles.some((s) => s.members[0].basis === 'recorded' && s.distinct),
+  });
+
+  const all = [faithful, ...causeHypotheses];
+  const leader =
+    verdict === 'faithful'
+      ? faithful
+      : best(verdict === 'measurement-error' ? causeHypotheses.filter((h) => h.fits) : all) ?? faithful;
+  const capped = all.map((h) => ({ h, score: h === leader ? h.logScore : Math.min(h.logScore, leader.logScore) }));
+  const top = leader.logScore;
+  const weights = capped.map((c) => Math.exp(c.score - top));
   const total = weights.reduce((a, b) => a + b, 0);
-  const ranked = entries
-    .map((e, i) => ({ ...e, likelihood: weights[i] / total }))
+  const ranked = capped
+    .map((c, i) => ({ ...c, likelihood: weights[i] / total }))
     .sort(
       (a, b) =>
-        b.likelihood - a.likelihood ||
-        b.candidate.deviation - a.candidate.deviation ||
-        TIE_ORDER.indexOf(a.candidate.cause) - TIE_ORDER.indexOf(b.candidate.cause),
+        Number(b.h === leader) - Number(a.h === leader) ||
+        b.score - a.score ||
+        b.h.deviation - a.h.deviation ||
+        a.h.causes.length - b.h.causes.length ||
+        tieRank(a.h.causes[0]) - tieRank(b.h.causes[0]),
     );
 
-  const hypotheses: Hypothesis[] = ranked.map(({ candidate, predicted, residual, likelihood }) => ({
-    cause: candidate.cause,
-    causes: [candidate.cause],
-    fits: true,
-    confirm: candidate.confirm,
-    likelihood,
-    predicted,
-    explanation: candidate.explanation,
-    fix: candidate.fix,
-    ...(candidate.estimates ? { estimates: candidate.estimates } : {}),
-    residual: residual ?? 0,
-  }));
-
+  const hypotheses: Hypothesis[] = ranked.map(({ h, likelihood }) => toHypothesis(h, likelihood, setup));
   const tags = new Set<string>();
-  for (const { candidate, likelihood } of ranked) {
-    if (likelihood < TAG_THRESHOLD) continue;
-    tags.add(candidate.cause);
-    candidate.detailTags.forEach((t) => tags.add(t));
+  for (const { h } of ranked) {
+    if (!h.fits || h.causes[0] === 'faithful') continue;
+    for (const cause of h.causes) tags.add(cause);
+    for (const m of h.members) {
+      m.detailTags.forEach((t) => tags.add(t));
+    }
   }
-
-  const risks: Risk[] = [...ranked.flatMap((e) => e.candidate.risks ?? []), ...safetyRisks(setup)];
-  return { verdict: 'measurement-error', hypotheses, tags: [...tags], assumptions, risks };
+  const risks = dedupe([...candidates.filter((c) => c.basis === 'recorded').flatMap((c) => c.risks ?? []), ...setupRisks(setup)]);
+  return { verdict, hypotheses, tags: [...tags], assumptions, risks };
 }
 
-/** What an error-free measurement of the recorded signal would show. */
-function referencePicture(setup: ResolvedSetup): Predicted {
-  return {
-    amplitudeV: setup.expectedAmplitudeV,
-    riseTimeS: setup.hasEdges ? shownRiseTimeS(setup) : undefined,
-    overshootPct: setup.hasEdges ? 0 : undefined,
-  };
+const tieRank = (cause: HypothesisCause) => {
+  const i = TIE_ORDER.indexOf(cause);
+  return i < 0 ? TIE_ORDER.length : i;
+};
+
+const best = (list: Scored[]) => list.reduce<Scored | undefined>((a, h) => (a && a.logScore >= h.logScore ? a : h), undefined);
+
+function priorOf(c: Candidate): number {
+  return c.basis === 'fitted' ? (c.hiddenPrior ?? 0.1) : applicability(c.deviation);
 }
 
 /** The candidate's own values over the reference, with unset fields left out. */
 function merge(reference: Predicted, own: Predicted): Predicted {
   const merged: Predicted = {};
-  for (const key of ['amplitudeV', 'riseTimeS', 'overshootPct', 'ringingFrequencyHz'] as const) {
+  const keys = new Set([...Object.keys(reference), ...Object.keys(own)] as (keyof Predicted)[]);
+  for (const key of keys) {
     const value = own[key] ?? reference[key];
     if (value !== undefined && Number.isFinite(value)) merged[key] = value;
   }
@@ -95,19 +144,113 @@ function merge(reference: Predicted, own: Predicted): Predicted {
 }
 
 /**
- * The expected amplitude is read as a peak value (a DC level for DC signals): for a
- * peak-to-peak figure that overstates the peak, which errs toward showing the caution.
+ * A predicted error this large (log units, about 10 %) counts even where the prediction cannot
+ * be put in numbers, e.g. a ×10 mismatch with no expected amplitude recorded (our threshold).
  */
-function safetyRisks(setup: ResolvedSetup): Risk[] {
-  if (setup.expectedAmplitudeV === undefined) return [];
-  const kind = setup.signalKind === 'dc' ? 'dc' : 'peak';
-  const { hazardous, reasons } = hazardousLive({ highestVoltageV: setup.expectedAmplitudeV, kind });
-  if (!hazardous) return [];
-  return [
-    {
-      id: 'hazardous-live',
-      level: 'hazard',
-      message: `${reasons.join(' ')} Follow the safety caution before probing.`,
-    },
-  ];
+const SIGNIFICANT_DEVIATION = Math.log(1.1);
+
+/** Whether a prediction differs from the faithful picture beyond the models' accuracy. */
+function distinctFrom(reference: Predicted, predicted: Predicted, deviation: number): boolean {
+  const asSeen: Observed = { ...predicted };
+  return (
+    compare(reference, asSeen).chiSquare > SIGNIFICANT_IMPROVEMENT ||
+    (predicted.spikeV ?? 0) > 0 ||
+    Math.abs(deviation) > SIGNIFICANT_DEVIATION
+  );
+}
+
+function scoreSingle(candidate: Candidate, reference: Predicted, observed: Observed): Scored {
+  const predicted = merge(reference, candidate.predicted);
+  return scoreOf([candidate], predicted, Boolean(candidate.overshootUpperBound), reference, observed, Math.log(priorOf(candidate)), candidate.deviation);
+}
+
+function scoreOf(
+  members: Candidate[],
+  predicted: Predicted,
+  overshootUpperBound: boolean,
+  reference: Predicted,
+  observed: Observed,
+  logPrior: number,
+  deviation: number,
+): Scored {
+  const seen = compare(predicted, observed, { overshootUpperBound });
+  const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
+  const distinct = distinctFrom(reference, predicted, deviation);
+  return {
+    causes: [...new Set(members.flatMap((m) => [m.cause, ...(m.alsoCauses ?? [])]))],
+    observedResidual: seen.residual ?? 0,
+    members,
+    predicted,
+    comparison,
+    logScore: logPrior - comparison.chiSquare / 2,
+    deviation,
+    distinct,
+    fits: distinct && comparison.chiSquare <= fitGate(comparison.count),
+  };
+}
+
+/**
+ * Every pair of candidates from different causes that each predict an error, composed through
+ * the chain. Kept, when something was observed, only if the pair fits and beats each member's
+ * χ² by the significance margin (it explains materially more than either alone); with nothing
+ * observed, when both members are what the recorded setup predicts. The best of each pair of
+ * causes, at most `MAX_COMBINATIONS`.
+ */
+function combinations(singles: Scored[], reference: Predicted, observed: Observed, anyObserved: boolean): Scored[] {
+  const pool = singles.filter((s) => s.distinct && (anyObserved || s.members[0].basis === 'recorded'));
+  const bestPerPair = new Map<string, Scored>();
+  for (let i = 0; i < pool.length; i++) {
+    for (let j = i + 1; j < pool.length; j++) {
+      const [first, second] = pool[i].logScore >= pool[j].logScore ? [pool[i], pool[j]] : [pool[j], pool[i]];
+      const a = first.members[0];
+      const b = second.members[0];
+      if (a.cause === b.cause) continue;
+      const { predicted, overshootUpperBound } = composePredictions(
+        reference,
+        { predicted: first.predicted, overshootUpperBound: a.overshootUpperBound },
+        { predicted: second.predicted, overshootUpperBound: b.overshootUpperBound },
+      );
+      const logPrior = Math.log(priorOf(a)) + Math.log(priorOf(b)) - COMBINATION_LOG_PENALTY;
+      const combo = scoreOf([a, b], predicted, overshootUpperBound, reference, observed, logPrior, Math.hypot(a.deviation, b.deviation));
+      if (anyObserved) {
+        const margin = Math.min(first.comparison.chiSquare, second.comparison.chiSquare) - combo.comparison.chiSquare;
+        if (!combo.fits || margin <= SIGNIFICANT_IMPROVEMENT) continue;
+      }
+      const key = [a.cause, b.cause].sort().join('+');
+      const current = bestPerPair.get(key);
+      if (!current || combo.logScore > current.logScore) bestPerPair.set(key, combo);
+    }
+  }
+  return [...bestPerPair.values()].sort((x, y) => y.logScore - x.logScore).slice(0, MAX_COMBINATIONS);
+}
+
+function toHypothesis(h: Scored, likelihood: number, setup: Parameters<typeof faithfulWording>[0]): Hypothesis {
+  const residual = h.observedResidual;
+  if (h.causes[0] === 'faithful') {
+    const words = faithfulWording(setup);
+    return { cause: 'faithful', causes: ['faithful'], likelihood, residual, fits: h.fits, predicted: h.predicted, confirm: FAITHFUL_CONFIRM, ...words };
+  }
+  const [a, b] = h.members;
+  // JSON has no Infinity or NaN: a value a model could not put in numbers is left out
+  const merged = b ? { ...b.estimates, ...a.estimates } : { ...a.estimates };
+  const estimates = Object.fromEntries(Object.entries(merged).filter(([, v]) => typeof v === 'string' || Number.isFinite(v)));
+  const join = (x: string, y: string) => (x === y ? x : `${x} ${y}`);
+  return {
+    cause: a.cause,
+    causes: h.causes,
+    likelihood,
+    residual,
+    fits: h.fits,
+    predicted: h.predicted,
+    explanation: b ? `Two causes together. ${a.explanation} ${b.explanation}` : a.explanation,
+    fix: b ? join(a.fix, b.fix) : a.fix,
+    confirm: b ? join(a.confirm, b.confirm) : a.confirm,
+    ...(Object.keys(estimates).length ? { estimates } : {}),
+  };
+}
+
+function dedupe(risks: Risk[]): Risk[] {
+  const seen = new Map<string, Risk>();
+  for (const r of risks) if (!seen.has(r.id)) seen.set(r.id, r);
+  return [...seen.values()];
 }

@@ -2,14 +2,34 @@ import type { Predicted } from '../schemas/diagnosis';
 import type { Observed } from './types';
 
 /**
- * Spread allowed between a prediction and an observation, in natural-log units: how far
- * models built from typical values and readings off a screen usually disagree (our
- * estimates). Amplitudes read well; rise times and ringing depend on geometry and edges.
+ * Spread allowed between a prediction and an observation, in natural-log units (one standard
+ * deviation): how far a model fed with the recorded setup and a reading off a screen usually
+ * disagree (our estimates, from common practice):
+ * - amplitude 3 %: general-purpose scopes quote ±1.5–3 % DC gain accuracy and cursor readings
+ *   add about 1 %; the amplitude models themselves are exact dividers.
+ * - rise time 20 %: readings of fast edges and the 0.35/BW single-pole rule each carry ~10–15 %.
+ * - overshoot and tilt 3 % of the level: read off the screen within a few percentage points.
+ *   `overshootBelowBound` applies under a prediction that is only an upper bound (ground-lead
+ *   ringing: the probe's lossy cable damps more than the source resistance alone).
+ * - ringing 30 %: lead geometry and tip capacitance are rarely known better than that.
+ * - frequency and hum 2 %: read from the timebase or a cursor, models exact.
  */
-export const SIGMA = { amplitude: 0.1, riseTime: 0.25, overshoot: 0.1, ringing: 0.3 } as const;
+export const SIGMA = {
+  amplitude: 0.03,
+  riseTime: 0.2,
+  overshoot: 0.03,
+  overshootBelowBound: 0.15,
+  tilt: 0.03,
+  ringing: 0.3,
+  frequency: 0.02,
+  hum: 0.02,
+} as const;
 
-/** Charged when ringing is seen but the hypothesis predicts none: as if off by a factor of 4. */
-export const UNEXPLAINED_RINGING = Math.log(4);
+/**
+ * Charged when a feature (ringing, hum) is seen but the hypothesis predicts none, as if the
+ * prediction were off by a factor of 4, at the ringing spread.
+ */
+export const UNEXPLAINED_FEATURE = Math.log(4);
 
 /**
  * Prior that a cause applies to the recorded setup, from the size of the error it predicts
@@ -19,37 +39,69 @@ export function applicability(deviation: number): number {
   return 0.02 + 0.88 * (1 - Math.exp(-Math.abs(deviation) / 0.5));
 }
 
+/** One compared quantity: log-ratio residual and the spread it is judged by. */
+export interface Term {
+  quantity: string;
+  residual: number;
+  sigma: number;
+}
+
 export interface Comparison {
   /** Σ (r/σ)² over the quantities compared. */
   chiSquare: number;
   /** √(Σ r²) of the log-ratio residuals, undefined when nothing was compared. */
   residual?: number;
+  /** How many quantities were compared (degrees of freedom for the fit gate). */
+  count: number;
+  terms: Term[];
 }
 
-/** Overshoot compares on the level it reaches, 1 + pct/100, kept above 1 % of the final level. */
-const overshootLevel = (pct: number) => Math.max(0.01, 1 + pct / 100);
+/** Overshoot and tilt compare on the level they reach, 1 + pct/100, kept above 1 % of the final level. */
+const level = (pct: number) => Math.max(0.01, 1 + pct / 100);
+
+export interface CompareOptions {
+  /** The predicted overshoot is an upper bound (ground-lead ringing). */
+  overshootUpperBound?: boolean;
+}
 
 /**
- * Log-ratio residuals |ln(pred/obs)| for each observed quantity the prediction covers.
+ * Log-ratio residuals ln(pred/obs) for each observed quantity the prediction covers; a
+ * feature seen (ringing, hum) that the prediction lacks is charged `UNEXPLAINED_FEATURE`.
  */
-export function compare(predicted: Predicted, observed: Observed): Comparison {
-  const terms: { residual: number; sigma: number }[] = [];
-  const ratio = (p: number | undefined, o: number | undefined, sigma: number) => {
-    if (p !== undefined && o !== undefined && p > 0 && o > 0) terms.push({ residual: Math.log(p / o), sigma });
+export function compare(predicted: Predicted, observed: Observed, options: CompareOptions = {}): Comparison {
+  const terms: Term[] = [];
+  const ratio = (quantity: string, p: number | undefined, o: number | undefined, sigma: number) => {
+    if (p !== undefined && o !== undefined && p > 0 && o > 0) terms.push({ quantity, residual: Math.log(p / o), sigma });
   };
-  ratio(predicted.amplitudeV, observed.amplitudeV, SIGMA.amplitude);
-  ratio(predicted.riseTimeS, observed.riseTimeS, SIGMA.riseTime);
+  ratio('amplitudeV', predicted.amplitudeV, observed.amplitudeV, SIGMA.amplitude);
+  ratio('riseTimeS', predicted.riseTimeS, observed.riseTimeS, SIGMA.riseTime);
   if (predicted.overshootPct !== undefined && observed.overshootPct !== undefined) {
-    const residual = Math.log(overshootLevel(predicted.overshootPct) / overshootLevel(observed.overshootPct));
-    terms.push({ residual, sigma: SIGMA.overshoot });
+    const residual = Math.log(level(predicted.overshootPct) / level(observed.overshootPct));
+    const below = options.overshootUpperBound && residual > 0;
+    terms.push({ quantity: 'overshootPct', residual, sigma: below ? SIGMA.overshootBelowBound : SIGMA.overshoot });
+  }
+  if (predicted.tiltPct !== undefined && observed.tiltPct !== undefined) {
+    terms.push({ quantity: 'tiltPct', residual: Math.log(level(predicted.tiltPct) / level(observed.tiltPct)), sigma: SIGMA.tilt });
   }
   if (observed.ringingFrequencyHz !== undefined) {
-    if (predicted.ringingFrequencyHz === undefined) terms.push({ residual: UNEXPLAINED_RINGING, sigma: SIGMA.ringing });
-    else ratio(predicted.ringingFrequencyHz, observed.ringingFrequencyHz, SIGMA.ringing);
+    if (predicted.ringingFrequencyHz === undefined) terms.push({ quantity: 'ringingFrequencyHz', residual: UNEXPLAINED_FEATURE, sigma: SIGMA.ringing });
+    else ratio('ringingFrequencyHz', predicted.ringingFrequencyHz, observed.ringingFrequencyHz, SIGMA.ringing);
   }
-  if (terms.length === 0) return { chiSquare: 0 };
+  ratio('frequencyHz', predicted.frequencyHz, observed.frequencyHz, SIGMA.frequency);
+  if (observed.humFrequencyHz !== undefined) {
+    if (predicted.humFrequencyHz === undefined) terms.push({ quantity: 'humFrequencyHz', residual: UNEXPLAINED_FEATURE, sigma: SIGMA.ringing });
+    else ratio('humFrequencyHz', predicted.humFrequencyHz, observed.humFrequencyHz, SIGMA.hum);
+  }
+  return summarise(terms);
+}
+
+/** χ², residual and count of a list of terms. */
+export function summarise(terms: Term[]): Comparison {
+  if (terms.length === 0) return { chiSquare: 0, count: 0, terms };
   return {
     chiSquare: terms.reduce((sum, t) => sum + (t.residual / t.sigma) ** 2, 0),
     residual: Math.sqrt(terms.reduce((sum, t) => sum + t.residual ** 2, 0)),
+    count: terms.length,
+    terms,
   };
 }

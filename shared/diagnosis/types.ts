@@ -98,8 +98,31 @@ export interface Candidate {
    * Recorded values this candidate's fit contradicts (a 90 cm lead implied where 1 cm was
    * recorded); the ranker penalises each by how far it is off.
    */
-  contradictions?: { field: string; recorded: number; implied: number }[];
+  contradictions?: Contradiction[];
+  /**
+   * The predicted overshoot is an upper bound (ground-lead ringing: the probe's lossy cable
+   * damps more than the source resistance alone), so less overshoot seen costs little.
+   */
+  overshootUpperBound?: boolean;
+  /**
+   * Other causes this one fault also acts as (a probe switched to 1x is an attenuation
+   * mismatch, a bandwidth stage and a load at once): listed after `cause` in the hypothesis's
+   * `causes` and tagged with it.
+   */
+  alsoCauses?: Cause[];
   estimates?: Record<string, number | string>;
   detailTags: string[];
   risks?: Risk[];
+}
+
+/**
+ * A recorded value a fitted candidate disagrees with. `toleranceLn` is how far apart the two
+ * may be, in natural-log units, before the disagreement counts as one standard deviation;
+ * `evidence.ts` holds the tolerance of each field when a model gives none.
+ */
+export interface Contradiction {
+  field: string;
+  recorded: number;
+  implied: number;
+  toleranceLn?: number;
 }

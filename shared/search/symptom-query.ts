@@ -17,7 +17,7 @@ export interface SymptomNumbers {
 export interface SymptomReading {
   /** What was read, in words: "amplitude ×0.1", "ringing at 120 MHz". */
   observations: string[];
-  /** Causes the engine says fit, most likely first. */
+  /** Causes the engine says fit, most likely first (empty when the verdict is faithful or unexplained). */
   causes: { cause: HypothesisCause; likelihood: number }[];
   /** Only the numbers the query itself stated (stand-ins for unstated ones are left out). */
   numbers: SymptomNumbers;
@@ -193,14 +193,22 @@ export function readSymptomQuery(query: string): SymptomReading | null {
   const facts = readFacts(query);
   if (!facts.some((f) => SYMPTOM_KINDS.has(f.kind)) && !suspectSetup(facts)) return null;
   const { input, observations, numbers } = inputOf(facts);
-  let hypotheses;
+  let result;
   try {
-    hypotheses = diagnose(input).hypotheses;
+    result = diagnose(input);
   } catch {
     return null;
   }
-  const named = hypotheses.filter((h, i) => i === 0 || h.likelihood >= NAME_THRESHOLD).slice(0, 2);
+  // Only hypotheses that fit name a cause; a combined one names its causes joined.
+  const fitting = result.hypotheses.filter((h) => h.fits && h.cause !== 'faithful');
+  const named = fitting.filter((h, i) => i === 0 || h.likelihood >= NAME_THRESHOLD).slice(0, 2);
   const causes = named.map((h) => ({ cause: h.cause, likelihood: h.likelihood }));
-  const text = `read as: ${observations.join(', ')} → ${causes.map((c) => CAUSE_SHORT[c.cause]).join(' or ')}`;
+  const words =
+    named.length > 0
+      ? named.map((h) => h.causes.map((c) => CAUSE_SHORT[c]).join(' + ')).join(' or ')
+      : result.verdict === 'faithful'
+        ? CAUSE_SHORT.faithful
+        : 'no model fits';
+  const text = `read as: ${observations.join(', ')} → ${words}`;
   return { observations, causes, numbers, text, input };
 }

@@ -37,7 +37,10 @@ describe('POST /api/diagnosis', () => {
     expect(res.body.tags).toContain('attenuation-mismatch');
     const sum = res.body.hypotheses.reduce((s: number, h: { likelihood: number }) => s + h.likelihood, 0);
     expect(sum).toBeCloseTo(1, 6);
-    for (const h of res.body.hypotheses) expect(CAUSES).toContain(h.cause);
+    for (const h of res.body.hypotheses) expect([...CAUSES, 'faithful']).toContain(h.cause);
+    expect(res.body.verdict).toBe('measurement-error');
+    expect(top.fits).toBe(true);
+    expect(top.causes[0]).toBe(top.cause);
   });
 
   it('should accept an empty body (everything optional)', async () => {

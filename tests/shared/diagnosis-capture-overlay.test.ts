@@ -86,3 +86,21 @@ describe('the model overlay on a capture', () => {
     expect(result).toEqual({ ok: false, reason: 'the capture has no two levels to scale a model to' });
   });
 });
+
+describe('the termination overlay', () => {
+  it('should draw the predicted spike in volts at each rising edge, not a stretched step', () => {
+    const input: DiagnosisInput = {
+      probe: { attenuation: 10, tipCapacitanceF: 12e-12 },
+      scope: { attenuationSetting: 10, inputResistanceOhm: 50 },
+      circuit: { sourceResistanceOhm: 0 },
+      signal: { expectedAmplitudeV: 2, frequencyHz: 100e3, kind: 'square' },
+    };
+    const h = diagnose(input).hypotheses.find((x) => x.causes.length === 1 && x.cause === 'termination-mismatch')!;
+    const anchor = { baseV: 0, topV: 2.2e-4, edges: [{ kind: 'rise' as const, t10S: 1e-6, t50S: 1e-6, t90S: 1e-6 }] };
+    const result = captureOverlay(input, h, anchor, { startS: 0, endS: 5e-6 });
+    if (!result.ok) throw new Error(result.reason);
+    // source: charge sharing C1/(C1 + C2) = 1/10 of the 2 V step, × the 10x channel = 2 V
+    expect(Math.max(...result.overlay.volts)).toBeCloseTo(2, 3);
+    expect(result.overlay.label).toMatch(/spikes/);
+  });
+});

@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import * as math from 'mathjs';
+import type { DiagnosisInput } from '../../shared/schemas/diagnosis';
 import {
   FIFTY_OHM_INPUT_LIMIT,
   inputPowerW,
@@ -68,5 +70,57 @@ describe('termination mismatch in diagnose', () => {
       observed: { amplitudeV: 2.8e-4 },
     });
     expect(result.hypotheses[0].cause).toBe('termination-mismatch');
+  });
+});
+
+describe('termination as a complex divider', () => {
+  // A 10x probe (9 MΩ tip, 12 pF at the tip) into a 50 Ω input. Compensated probe: C1 = n·C_tip/(n−1),
+  // C2 = n·C_tip (series capacitors and R1·C1 = R2·C2). Checked with mathjs complex arithmetic.
+  const n = 10;
+  const ctip = 12e-12;
+  const c1 = (n * ctip) / (n - 1);
+  const c2 = n * ctip;
+  const parallelRC = (r: number, c: number, f: number) => {
+    const zc = math.complex(0, -1 / (2 * Math.PI * f * c));
+    return math.divide(math.multiply(r, zc), math.add(r, zc)) as math.Complex;
+  };
+  const divider = (f: number) => {
+    const z1 = parallelRC(9e6, c1, f);
+    const z2 = parallelRC(50, c2, f);
+    return math.abs(math.divide(z2, math.add(z1, z2)) as math.Complex) as unknown as number;
+  };
+  const sine = (frequencyHz: number): DiagnosisInput => ({
+    probe: { attenuation: 10, tipCapacitanceF: ctip },
+    scope: { attenuationSetting: 10, inputResistanceOhm: 50 },
+    circuit: { sourceResistanceOhm: 0 },
+    signal: { expectedAmplitudeV: 1, frequencyHz, kind: 'sine' },
+  });
+  const termination = (input: DiagnosisInput) => diagnose(input).hypotheses.find((h) => h.causes.length === 1 && h.cause === 'termination-mismatch')!;
+
+  it('should show about 0.386 V for 1 V at 10 MHz on a 10x channel', () => {
+    // source: voltage divider with complex impedances Z2/(Z1 + Z2), Zi = Ri ∥ 1/(jωCi) (mathjs)
+    const expected = 10 * divider(10e6);
+    expect(expected).toBeCloseTo(0.386, 3);
+    expect(termination(sine(10e6)).predicted.amplitudeV).toBeCloseTo(expected, 9);
+  });
+
+  it('should follow |Z2/(Z1+Z2)| from 25 kHz to 100 MHz, far above the resistive 1/180,001', () => {
+    for (const f of [25e3, 1e6, 100e6]) {
+      expect(Math.abs((termination(sine(f)).predicted.amplitudeV as number) / (10 * divider(f)) - 1)).toBeLessThan(1e-9);
+    }
+    // at 25 kHz C1 already dominates: about 19 × the resistive ratio
+    expect(divider(25e3) / (50 / (9e6 + 50))).toBeGreaterThan(15);
+  });
+
+  it('should show flat tops at the resistive ratio and a spike of C1/(C1+C2) per edge for a square wave', () => {
+    const result = diagnose({ ...sine(100e3), signal: { expectedAmplitudeV: 2, frequencyHz: 100e3, kind: 'square' } });
+    const h = result.hypotheses.find((x) => x.causes.length === 1 && x.cause === 'termination-mismatch')!;
+    // source: final-value theorem, R_in/(R_tip + R_in), × the 10x channel
+    expect(h.predicted.amplitudeV).toBeCloseTo(2 * 10 * (50 / (9e6 + 50)), 12);
+    // source: initial-value theorem (charge sharing), C1/(C1 + C2) = 1/n, × the 10x channel
+    expect(h.predicted.spikeV).toBeCloseTo(2 * 10 * (c1 / (c1 + c2)), 9);
+    // τ = (R_tip ∥ 50 Ω)(C1 + C2)
+    expect(h.estimates?.spikeTimeConstantS as number).toBeCloseTo(((9e6 * 50) / (9e6 + 50)) * (c1 + c2), 15);
+    expect(result.verdict).toBe('measurement-error');
   });
 });

@@ -10,6 +10,17 @@ import {
 } from '../../shared/diagnosis/compensation';
 import { groundLeadResonance, type GroundLeadParams } from '../../shared/diagnosis/ground-lead';
 import { loadingFrequencyResponse, type LoadingParams } from '../../shared/diagnosis/loading';
+import {
+  spikeEdgeFactor,
+  terminationEdge,
+  terminationMagnitudeAt,
+  type TerminationDivider,
+} from '../../shared/diagnosis/termination-mismatch';
+import { squareWavePicture } from '../../shared/diagnosis/compensation-picture';
+import { balancedDividerOf } from '../../shared/diagnosis/compensation';
+import { straightWireInductanceH } from '../../shared/diagnosis/ground-lead';
+import { resolveSetup } from '../../shared/diagnosis/defaults';
+import { diagnose } from '../../shared/diagnosis/ranker';
 
 // source: ngspice (the circuit simulator) in batch mode, solving the same circuits numerically
 
@@ -151,5 +162,108 @@ describe('SPICE cross-check', () => {
       'mag(v(out))',
     );
     expect(Math.abs(loadingFrequencyResponse(p, [1e6])[0] / at1MHz[0][1] - 1)).toBeLessThan(1e-6);
+  });
+
+  // 10x probe (9 MΩ, 12 pF at the tip) into 50 Ω: C1 = n·C_tip/(n−1), C2 = n·C_tip
+  const terminated: TerminationDivider = {
+    ratio: 10,
+    tipResistanceOhm: 9e6,
+    tipSideCapacitanceF: (10 * 12e-12) / 9,
+    inputResistanceOhm: 50,
+    inputSideCapacitanceF: 120e-12,
+    sourceResistanceOhm: 0,
+  };
+  const terminatedCircuit = (d: TerminationDivider, source: string) => `V1 in 0 ${source}
+R1 in out ${spice(d.tipResistanceOhm)}
+C1 in out ${spice(d.tipSideCapacitanceF)}
+R2 out 0 ${spice(d.inputResistanceOhm)}
+C2 out 0 ${spice(d.inputSideCapacitanceF)}`;
+
+  it.skipIf(!hasNgspice)('should match the terminated probe divider |Z2/(Z1+Z2)| from 1 Hz to 1 GHz', () => {
+    const rows = simulate(terminatedCircuit(terminated, 'DC 0 AC 1'), 'ac dec 5 1 1G', 'mag(v(out))');
+    // tolerance 1e-6 relative: both solve the same linear circuit
+    rows.forEach(([f, magnitude]) => expect(Math.abs(terminationMagnitudeAt(terminated, f) / magnitude - 1)).toBeLessThan(1e-6));
+    const at10MHz = simulate(terminatedCircuit(terminated, 'DC 0 AC 1'), 'ac lin 1 10Meg 10Meg', 'mag(v(out))');
+    // ×10 on a 10x channel: about 0.386 V for 1 V
+    expect(at10MHz[0][1] * 10).toBeCloseTo(0.386, 3);
+  });
+
+  it.skipIf(!hasNgspice)('should match the terminated edge: a spike of C1/(C1+C2) decaying with 50 Ω·(C1+C2)', () => {
+    const { jump, settle, timeConstantS } = terminationEdge(terminated);
+    const edgeS = 0.1e-9;
+    const rows = simulate(
+      terminatedCircuit(terminated, `PULSE(0 1 1n ${spice(edgeS)} ${spice(edgeS)} 1 2)`),
+      `tran 1p ${spice(1e-9 + 12 * timeConstantS)} 0 1p`,
+      'v(out)',
+    );
+    const peak = Math.max(...rows.map(([, v]) => v));
+    // the ramp's share of the ideal spike, (τ/T)(1 − e^(−T/τ)); tolerance 0.5 %
+    expect(Math.abs(peak / (jump * spikeEdgeFactor(timeConstantS, 0.8 * edgeS)) - 1)).toBeLessThan(5e-3);
+    const start = 1e-9 + edgeS;
+    const t1 = start + 0.5 * timeConstantS;
+    const t2 = start + 3 * timeConstantS;
+    const tauS = (t2 - t1) / Math.log((at(rows, t1) - settle) / (at(rows, t2) - settle));
+    // tolerance 1 %: τ from the log-slope of the decay
+    expect(Math.abs(tauS / timeConstantS - 1)).toBeLessThan(0.01);
+  });
+
+  it.skipIf(!hasNgspice)('should match the capacitive ratio of an over-compensated probe at 12 MHz', () => {
+    // 8 % over-compensated: C1 chosen so C1/(C1+C2) = 1.08 × R2/(R1+R2)
+    const settle = 0.1;
+    const c2 = 120e-12;
+    const c1 = (1.08 * settle * c2) / (1 - 1.08 * settle);
+    const p: DividerParams = { tipResistanceOhm: 9e6, tipCapacitanceF: c1, inputResistanceOhm: 1e6, inputCapacitanceF: c2 };
+    const rows = simulate(dividerCircuit(p), 'ac lin 1 12Meg 12Meg', 'mag(v(out))');
+    expect(Math.abs(rows[0][1] / settle - 1.08)).toBeLessThan(1e-4);
+    // a 12 MHz square wave in steady state, started from its mean so no 120 µs settling is needed
+    const square = simulate(
+      `V1 in 0 PULSE(0 1 0 0.1n 0.1n ${spice(1 / 24e6 - 0.1e-9)} ${spice(1 / 12e6)})
+R1 in out ${spice(p.tipResistanceOhm)}
+C1 in out ${spice(p.tipCapacitanceF)}
+R2 out 0 ${spice(p.inputResistanceOhm)}
+C2 out 0 ${spice(p.inputCapacitanceF)}
+.ic v(out)=${spice((0.5 * settle * 1.08 * c2 - 0.5 * settle * 0.08 * c2) / c2)}`,
+      'tran 0.1n 2u 0 0.1n uic',
+      'v(out)',
+    );
+    const late = square.filter(([t]) => t > 1e-6);
+    const pp = Math.max(...late.map(([, v]) => v)) - Math.min(...late.map(([, v]) => v));
+    const ours = squareWavePicture(0.08, 1 / (2 * 12e6 * dividerLevels(p).timeConstantS));
+    // the flat-topped square shows the capacitive ratio: ×1.08 within 0.5 %
+    expect(Math.abs(pp / settle / ours.amplitudeRatio - 1)).toBeLessThan(5e-3);
+    expect(Math.abs(ours.overshootPct)).toBeLessThan(0.1);
+  });
+
+  it.skipIf(!hasNgspice)('should match a two-cause chain: a 10x probe read at 1x ringing on a 15 cm lead', () => {
+    const input = {
+      probe: { attenuation: 10, groundLeadM: 0.15, groundKind: 'clip-lead' as const, tipCapacitanceF: 12e-12 },
+      scope: { attenuationSetting: 1, bandwidthHz: 500e6 },
+      circuit: { sourceResistanceOhm: 25 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square' as const },
+    };
+    const inductanceH = straightWireInductanceH(0.15, 0.25e-3);
+    const { tipCapacitanceF: c1, inputCapacitanceF: c2 } = balancedDividerOf({ ...resolveSetup(input).setup });
+    // source 25 Ω, lead L in the return, compensated 9 MΩ ∥ C1 over 1 MΩ ∥ C2
+    const rows = simulate(
+      `V1 in 0 PULSE(0 1 1n 1p 1p 1 2)
+Rs in a 25
+L1 a tip ${spice(inductanceH)}
+R1 tip out 9e6
+C1 tip out ${spice(c1)}
+R2 out 0 1e6
+C2 out 0 ${spice(c2)}`,
+      'tran 2p 80n 0 2p',
+      'v(out)',
+    );
+    const settled = 0.1; // R2/(R1 + R2)
+    const downward = rows.filter((row, i) => i > 0 && rows[i - 1][1] >= settled && row[1] < settled).map(([t]) => t);
+    const measuredHz = (downward.length - 1) / (downward[downward.length - 1] - downward[0]);
+    const observed = { amplitudeV: settled * 1 /* the 1x channel multiplies by 1 */, ringingFrequencyHz: measuredHz };
+    const result = diagnose({ ...input, observed });
+    const top = result.hypotheses[0];
+    expect([...top.causes].sort()).toEqual(['attenuation-mismatch', 'ground-lead']);
+    // the combined prediction against the simulated chain: amplitude exact, ringing within 1 %
+    expect(top.predicted.amplitudeV).toBeCloseTo(0.1, 9);
+    expect(Math.abs((top.predicted.ringingFrequencyHz as number) / measuredHz - 1)).toBeLessThan(0.01);
   });
 });

@@ -1,0 +1,230 @@
+import { describe, expect, it } from 'vitest';
+import { diagnose } from '../../shared/diagnosis/ranker';
+import { CHI_SQUARE_95, decideVerdict, fitGate } from '../../shared/diagnosis/verdict';
+import type { DiagnosisInput } from '../../shared/schemas/diagnosis';
+
+// source: single-pole rise time t_r = ln 9/(2π·BW) ≈ 0.35/BW (RC step response 1 − e^(−t/τ))
+const riseOf = (bandwidthHz: number) => Math.log(9) / (2 * Math.PI * bandwidthHz);
+// source: Rosa/Grover straight round wire, L = (μ0·l/2π)(ln(2l/r) − 3/4)
+const wireH = (lengthM: number, radiusM = 0.25e-3) => ((4e-7 * Math.PI * lengthM) / (2 * Math.PI)) * (Math.log((2 * lengthM) / radiusM) - 0.75);
+
+describe('the fit gate', () => {
+  it('should use the 95 % points of chi-square', () => {
+    // source: NIST/SEMATECH e-Handbook of Statistical Methods, 1.3.6.7.4, upper-tail critical values
+    expect(CHI_SQUARE_95.slice(0, 4)).toEqual([3.841, 5.991, 7.815, 9.488]);
+    expect(fitGate(1)).toBe(3.841);
+    // Wilson–Hilferty beyond the table; χ²₀.₉₅(15) = 24.996 in the same handbook table
+    expect(fitGate(15)).toBeCloseTo(24.996, 0);
+  });
+
+  it('should decide faithful, measurement-error and unexplained from the fits', () => {
+    const base = { observed: true, setupPredictsError: false };
+    expect(decideVerdict({ ...base, faithfulFits: true, faithfulChiSquare: 1, fittingCauseChiSquares: [0.5] })).toBe('faithful');
+    expect(decideVerdict({ ...base, faithfulFits: true, faithfulChiSquare: 3.8, fittingCauseChiSquares: [] })).toBe('faithful');
+    expect(decideVerdict({ ...base, faithfulFits: false, faithfulChiSquare: 50, fittingCauseChiSquares: [0.1] })).toBe('measurement-error');
+    expect(decideVerdict({ ...base, faithfulFits: false, faithfulChiSquare: 50, fittingCauseChiSquares: [] })).toBe('unexplained');
+  });
+});
+
+describe('verdicts', () => {
+  it('should call a consistent setup faithful and put the faithful hypothesis first', () => {
+    // 10x probe on a 10x channel, ground spring, 500 MHz scope, observed = expected amplitude
+    // and the chain's own rise time (a probe matched to its scope adds no stage: DESIGN.md)
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring' },
+      scope: { attenuationSetting: 10, bandwidthHz: 500e6, inputResistanceOhm: 1e6 },
+      signal: { expectedAmplitudeV: 3.3, frequencyHz: 10e6, kind: 'square' },
+      observed: { amplitudeV: 3.3, riseTimeS: riseOf(500e6), overshootPct: 0 },
+    });
+    expect(result.verdict).toBe('faithful');
+    expect(result.hypotheses[0].cause).toBe('faithful');
+    expect(result.hypotheses[0].fits).toBe(true);
+    expect(result.hypotheses[0].causes).toEqual(['faithful']);
+    expect(result.tags).toEqual([]);
+    for (const h of result.hypotheses.slice(1)) expect(h.likelihood).toBeLessThanOrEqual(result.hypotheses[0].likelihood);
+  });
+
+  it('should call a DC level 1.7 times too high with every setting right unexplained', () => {
+    // no first-generation model raises a DC level: dividers only divide (voltage-divider rule)
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring' },
+      scope: { attenuationSetting: 10, inputResistanceOhm: 1e6 },
+      circuit: { sourceResistanceOhm: 10 },
+      signal: { expectedAmplitudeV: 5, kind: 'dc' },
+      observed: { amplitudeV: 8.5 },
+    });
+    expect(result.verdict).toBe('unexplained');
+    expect(result.hypotheses.some((h) => h.fits)).toBe(false);
+    expect(result.tags).toEqual([]);
+    // residual of the faithful reading is ln 1.7
+    expect(result.hypotheses.find((h) => h.cause === 'faithful')?.residual).toBeCloseTo(Math.log(1.7), 9);
+  });
+
+  it('should not fit ground-lead ringing at 40 MHz with a 1 cm spring recorded', () => {
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring', groundLeadM: 0.01, tipCapacitanceF: 12e-12 },
+      scope: { attenuationSetting: 10, bandwidthHz: 500e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square' },
+      observed: { amplitudeV: 1, ringingFrequencyHz: 40e6 },
+    });
+    const lead = result.hypotheses.filter((h) => h.causes.includes('ground-lead'));
+    for (const h of lead) expect(h.fits).toBe(false);
+    expect(result.tags).not.toContain('long-ground-lead');
+    expect(result.tags).not.toContain('ground-lead');
+    expect(result.verdict).not.toBe('faithful');
+  });
+
+  it('should not turn a 21 Hz "ringing" into a megahenry lead that fits', () => {
+    const result = diagnose({ probe: { attenuation: 10 }, signal: { expectedAmplitudeV: 1, frequencyHz: 1 }, observed: { ringingFrequencyHz: 21 } });
+    const lead = result.hypotheses.find((h) => h.cause === 'ground-lead')!;
+    expect(lead.fits).toBe(false);
+    // L = 1/((2πf)²C) ≈ 4.8 MH for 21 Hz on 12 pF; no plausible lead (≤ 1 m) reaches it
+    const fitted = lead.estimates?.fittedInductanceH;
+    if (typeof fitted === 'number') expect(fitted).toBeLessThanOrEqual(wireH(1) * 1.0001);
+    expect(result.tags).not.toContain('long-ground-lead');
+  });
+});
+
+describe('combined causes', () => {
+  it('should combine attenuation mismatch and ground-lead ringing for a 10x probe read at 1x on a 15 cm lead', () => {
+    const c = 12e-12;
+    const rs = 25;
+    const l = wireH(0.15);
+    // source: series RLC, f_d = f_n·√(1 − ζ²), ζ = (R/2)√(C/L)
+    const zeta = (rs / 2) * Math.sqrt(c / l);
+    const ringHz = Math.sqrt(1 - zeta ** 2) / (2 * Math.PI * Math.sqrt(l * c));
+    const input: DiagnosisInput = {
+      probe: { attenuation: 10, groundLeadM: 0.15, groundKind: 'clip-lead', tipCapacitanceF: c },
+      scope: { attenuationSetting: 1, bandwidthHz: 500e6 },
+      circuit: { sourceResistanceOhm: rs },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square' },
+      // shown = true × setting ÷ actual = 1 V × 1/10 (definition of probe attenuation)
+      observed: { amplitudeV: 0.1, ringingFrequencyHz: ringHz * 1.03 },
+    };
+    const result = diagnose(input);
+    const top = result.hypotheses[0];
+    expect([...top.causes].sort()).toEqual(['attenuation-mismatch', 'ground-lead']);
+    expect(top.cause).toBe(top.causes[0]);
+    expect(top.fits).toBe(true);
+    expect(result.verdict).toBe('measurement-error');
+    expect(top.predicted.amplitudeV).toBeCloseTo(0.1, 9);
+    expect(Math.abs((top.predicted.ringingFrequencyHz as number) / ringHz - 1)).toBeLessThan(1e-3);
+    expect(result.tags).toEqual(expect.arrayContaining(['attenuation-mismatch', 'ground-lead']));
+    const single = result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'attenuation-mismatch')!;
+    expect(single.fits).toBe(false);
+  });
+
+  it('should not prefer a combination when one cause already explains everything seen', () => {
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring' },
+      scope: { attenuationSetting: 1, bandwidthHz: 500e6 },
+      signal: { expectedAmplitudeV: 3.3, kind: 'dc' },
+      observed: { amplitudeV: 0.33 },
+    });
+    expect(result.hypotheses[0].causes).toEqual(['attenuation-mismatch']);
+  });
+
+  it('should explain amplitude, edges and loading at once by a probe switched to 1x', () => {
+    // recorded: 10x probe on a 10x channel; the probe's switch really is at 1x, so the channel
+    // shows 10× (true × 10 ÷ 1), with a 1x probe's ~100 pF load and few-MHz bandwidth (common practice)
+    const sourceOhm = 1000;
+    const loadS = Math.log(9) * ((sourceOhm * 1e6) / (sourceOhm + 1e6)) * 100e-12; // ln 9·(R_s∥R_in)·C
+    const riseS = Math.sqrt(5e-9 ** 2 + riseOf(6e6) ** 2 + riseOf(200e6) ** 2 + loadS ** 2);
+    const result = diagnose({
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 10, bandwidthHz: 200e6, inputCapacitanceF: 15e-12 },
+      circuit: { sourceResistanceOhm: sourceOhm },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 100e3, kind: 'square', riseTimeS: 5e-9 },
+      observed: { amplitudeV: 10, riseTimeS: riseS },
+    });
+    const top = result.hypotheses[0];
+    expect(top.cause).toBe('attenuation-mismatch');
+    expect(top.fits).toBe(true);
+    expect(Math.abs((top.predicted.riseTimeS as number) / riseS - 1)).toBeLessThan(0.05);
+    expect(top.explanation).toMatch(/load/);
+    // one fault acting as three causes: the 1x chain (~58 ns) dwarfs the 200 MHz scope's 1.7 ns,
+    // and the 1 kΩ·100 pF load (ln 9·RC ≈ 220 ns) dominates the edge
+    expect(top.causes).toEqual(['attenuation-mismatch', 'bandwidth', 'loading']);
+    expect(result.tags).toEqual(expect.arrayContaining(['1x-at-10x', 'attenuation-mismatch', 'bandwidth', 'loading']));
+  });
+});
+
+describe('compensation at high frequency', () => {
+  it('should rank compensation, not ground-lead, for a 12 MHz clock read 8 % high with flat tops', () => {
+    // a square wave far faster than τ = (R1∥R2)(C1+C2) ≈ 0.12 ms only sees C1/(C1+C2)
+    const result = diagnose({
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 10, bandwidthHz: 500e6 },
+      signal: { expectedAmplitudeV: 3.3, frequencyHz: 12e6, kind: 'square' },
+      observed: { amplitudeV: 3.3 * 1.08, overshootPct: 0 },
+    });
+    const top = result.hypotheses[0];
+    expect(top.cause).toBe('compensation');
+    expect(top.fits).toBe(true);
+    expect(top.estimates?.state).toBe('over-compensated');
+    // jump = 1.08 × settle = 1.08 × R2/(R1 + R2) (compensated-divider analysis)
+    expect(top.estimates?.jumpRatio as number).toBeCloseTo(1.08 * 0.1, 3);
+    expect(result.tags).not.toContain('ground-lead');
+  });
+
+  it('should predict under-compensation when the probe moves to a scope with more input capacitance', () => {
+    // C1 = n·C_tip/(n−1), C2 = n·C_tip for a 12 pF 10x probe; +5 pF on the new input adds to C2:
+    // the edge jumps to C1/(C1 + C2 + 5 pF) instead of C1/(C1 + C2)
+    const c1 = (10 * 12e-12) / 9;
+    const c2 = 10 * 12e-12;
+    const k = (c1 + c2) / (c1 + c2 + 5e-12) - 1;
+    const result = diagnose({
+      probe: { attenuation: 10, tipCapacitanceF: 12e-12 },
+      scope: { attenuationSetting: 10, inputCapacitanceF: 20e-12 },
+      signal: { expectedAmplitudeV: 1, kind: 'pulse' },
+    });
+    const comp = result.hypotheses.find((h) => h.cause === 'compensation')!;
+    expect(comp.predicted.overshootPct).toBeCloseTo(100 * k, 6);
+    expect(comp.explanation).toMatch(/adjusted on a 15 pF input/);
+  });
+});
+
+describe('bandwidth chain', () => {
+  const base = { signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square' as const } };
+  const faithfulRise = (input: DiagnosisInput) => diagnose(input).hypotheses.find((h) => h.cause === 'faithful')!.predicted.riseTimeS as number;
+
+  it('should treat a blank probe bandwidth as matched to the scope, not a second stage', () => {
+    expect(faithfulRise({ ...base, scope: { bandwidthHz: 500e6 } })).toBeCloseTo(riseOf(500e6), 15);
+  });
+
+  it("should use the scope's recorded rise time instead of 0.35/BW", () => {
+    expect(faithfulRise({ ...base, scope: { bandwidthHz: 500e6, riseTimeS: 0.8e-9 } })).toBeCloseTo(0.8e-9, 15);
+  });
+
+  it('should keep a 1x probe and a bandwidth-limit filter as stages of their own', () => {
+    // source: root-sum-square rise-time rule; common practice: 1x passive probes reach a few MHz
+    const expected = Math.sqrt(riseOf(6e6) ** 2 + riseOf(500e6) ** 2 + riseOf(20e6) ** 2);
+    expect(faithfulRise({ ...base, probe: { attenuation: 1 }, scope: { bandwidthHz: 500e6, bandwidthLimitHz: 20e6 } })).toBeCloseTo(expected, 15);
+  });
+});
+
+describe('a chain that slows a recorded edge', () => {
+  it('should call a 1 ns edge shown at 3.6 ns by a 100 MHz scope a bandwidth error, not a true trace', () => {
+    // source: root-sum-square rise-time rule, √(1 ns² + (0.35/100 MHz)²) ≈ 3.64 ns
+    const shown = Math.sqrt(1e-9 ** 2 + riseOf(100e6) ** 2);
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring' },
+      scope: { attenuationSetting: 10, bandwidthHz: 100e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square', riseTimeS: 1e-9 },
+      observed: { amplitudeV: 1, riseTimeS: shown },
+    });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].cause).toBe('bandwidth');
+  });
+
+  it('should keep the trace true when a fast chain barely touches a recorded edge', () => {
+    const shown = Math.sqrt(2e-9 ** 2 + riseOf(500e6) ** 2);
+    const result = diagnose({
+      probe: { attenuation: 10, groundKind: 'spring' },
+      scope: { attenuationSetting: 10, bandwidthHz: 500e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square', riseTimeS: 2e-9 },
+      observed: { amplitudeV: 1, riseTimeS: shown, overshootPct: 0 },
+    });
+    expect(result.verdict).toBe('faithful');
+  });
+});

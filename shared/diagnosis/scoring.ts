@@ -8,7 +8,9 @@ import type { Observed } from './types';
  * - amplitude 3 %: general-purpose scopes quote ±1.5–3 % DC gain accuracy and cursor readings
  *   add about 1 %; the amplitude models themselves are exact dividers.
  * - rise time 20 %: readings of fast edges and the 0.35/BW single-pole rule each carry ~10–15 %.
- * - overshoot and tilt 3 % of the level: read off the screen within a few percentage points.
+ * - overshoot 3 % of the level: read off the screen within a few percentage points.
+ * - tilt 1 % of the step: both ends of one flat top are read on the same trace, so the gain
+ *   error cancels and cursors resolve about a percent of a step that spans the screen.
  *   `overshootBelowBound` applies under a prediction that is only an upper bound (ground-lead
  *   ringing: the probe's lossy cable damps more than the source resistance alone).
  * - ringing 30 %: lead geometry and tip capacitance are rarely known better than that.
@@ -19,7 +21,7 @@ export const SIGMA = {
   riseTime: 0.2,
   overshoot: 0.03,
   overshootBelowBound: 0.15,
-  tilt: 0.03,
+  tilt: 0.01,
   ringing: 0.3,
   frequency: 0.02,
   hum: 0.02,

@@ -141,7 +141,7 @@ function groundedAwayFromEarth(setup: ResolvedSetup): Candidate {
     detailTags: ['ground-clip-short', 'floating-reference'],
     risks: [
       {
-        id: 'ground-clip-away-from-earth',
+        id: 'ground-clip-off-earth',
         level: 'hazard',
         message:
           `A single-ended probe's ground clip on a node ${eng(Math.abs(referenceV), 'V')} from earth shorts that node to protective earth through the scope: fault currents can destroy the probe, the scope or the circuit.` +

@@ -45,6 +45,8 @@ const SETTING_WORDS: Record<GeneratorLoad, string> = { '50-ohm': 'a 50 Ω load',
 const RATIO_TOLERANCE = Math.log(1.15);
 /** A ratio within this of 1 is no error worth a hypothesis (our threshold). */
 const NO_ERROR = Math.log(1.1);
+/** Bench generators have 50 Ω outputs, a few 600 Ω (common practice): above this, no generator. */
+const GENERATOR_OUTPUT_MAX_OHM = 600;
 /** Plausible loads (our bounds, Ω). */
 const PLAUSIBLE_LOAD_OHM = { low: 1, high: 1e9 } as const;
 // our estimates: how often an unrecorded load setting, or an unrecorded load, is the culprit
@@ -62,6 +64,8 @@ export function assessGeneratorLoad({ setup, observed }: ModelContext): Candidat
   const ratio = seen / set;
   const outOhm = setup.sourceResistanceOhm;
   if (setup.generatorLoad === undefined) {
+    // an unrecorded setting is only suspected of a source that looks like a generator output
+    if (outOhm > GENERATOR_OUTPUT_MAX_OHM) return candidates;
     const loadOhm = generatorLoadOhm(setup);
     for (const setting of ['50-ohm', 'high-z'] as const) {
       const gain = generatorShownRatio(setting, outOhm, loadOhm);

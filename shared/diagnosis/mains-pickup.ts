@@ -71,16 +71,21 @@ export function assessMainsPickup({ setup, observed }: ModelContext): Candidate[
         ? 'the mark of rectifier charging currents flowing in a shared ground'
         : 'the mark of non-linear mains loads (rectifiers, dimmers, switching supplies) coupling in';
   candidates[0].estimates = { ...candidates[0].estimates, humHarmonic: match.harmonic };
+  const expectedV = setup.expectedAmplitudeV;
+  const humAmplitudeV =
+    expectedV !== undefined && observed.amplitudeV !== undefined && observed.amplitudeV > expectedV ? observed.amplitudeV - expectedV : undefined;
   candidates.push({
     cause: 'mains-pickup',
     basis: 'fitted',
     hiddenPrior: setup.mainsConnected ? HIDDEN_HUM_PRIOR.mainsConnected : HIDDEN_HUM_PRIOR.unsaid,
     deviation: Math.log(1.1),
-    predicted: { humFrequencyHz: match.harmonicHz },
+    // The hum's size is the one free parameter (how strongly the loop couples): an amplitude read
+    // above the expected one is the signal plus the hum, so it is taken as seen.
+    predicted: { humFrequencyHz: match.harmonicHz, ...(humAmplitudeV !== undefined ? { amplitudeV: observed.amplitudeV } : {}) },
     explanation: `Hum at ${eng(humHz, 'Hz')} is ${ordinal}${setup.mainsFrequencyHz === undefined ? ' (the mains frequency is not recorded; this fits best)' : ''}: ${why}. It rides on the trace whatever the circuit does.`,
     confirm: CONFIRM,
     fix: FIX,
-    estimates: { humHarmonic: match.harmonic, mainsFrequencyHz: match.mainsFrequencyHz },
+    estimates: { humHarmonic: match.harmonic, mainsFrequencyHz: match.mainsFrequencyHz, ...(humAmplitudeV !== undefined ? { humAmplitudeV } : {}) },
     detailTags: match.harmonic === 1 ? ['mains-hum', 'ground-loop'] : ['mains-hum', 'mains-harmonic'],
     ...(setup.mainsConnected ? { risks: [earthCaution()] } : {}),
   });

@@ -173,7 +173,8 @@ function scoreOf(
   logPrior: number,
   deviation: number,
 ): Scored {
-  const seen = compare(predicted, observed, { overshootUpperBound });
+  const amplitudeSigma = Math.max(0, ...members.map((m) => m.amplitudeSigma ?? 0));
+  const seen = compare(predicted, observed, { overshootUpperBound, amplitudeSigma });
   const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
   const distinct = distinctFrom(reference, predicted, deviation);
   return {

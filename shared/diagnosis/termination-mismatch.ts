@@ -135,6 +135,15 @@ export function terminationPicture(setup: ResolvedSetup, inputResistanceOhm = se
       const spike = edge.jump > edge.settle * 1.01 ? edge.jump * spikeEdgeFactor(edge.timeConstantS, setup.signalRiseTimeS) * gain : undefined;
       return { ratio: edge.settle * gain, spikeRatio: spike, edge };
     }
+    if (edge.timeConstantS > 0 && edge.jump > edge.settle * 1.01) {
+      // Too fast to settle: the capacitive divider is a first-order high-pass, and a square's
+      // steady state swings 2·g·A/(1 + e^(−T/2τ)) peak to peak (g = C1/(C1+C2)); its needles are
+      // what the screen shows. source: first-order high-pass step response, steady state
+      const x = halfPeriodS / edge.timeConstantS;
+      const spikeFactor = spikeEdgeFactor(edge.timeConstantS, setup.signalRiseTimeS);
+      const peakToPeak = (2 * edge.jump * spikeFactor) / (1 + Math.exp(-x));
+      return { ratio: peakToPeak * gain, spikeRatio: edge.jump * spikeFactor * gain, edge };
+    }
   }
   const atHz = f !== undefined && setup.signalKind !== 'dc' ? f : 0;
   return { ratio: terminationMagnitudeAt(d, atHz) * gain, edge };
@@ -147,6 +156,7 @@ export function terminationShownRatio(setup: ResolvedSetup, inputResistanceOhm =
 
 const HIDDEN_FIFTY_OHM_PRIOR = 0.15; // our estimate: the input menu is rarely recorded wrongly
 const MATCH_TOLERANCE = 0.3; // ln units, ±35 %
+const NEEDLE_SIGMA = 0.1; // ln units: a lumped divider predicts needle heights within about 10 % (our estimate)
 
 /** Termination candidates: the recorded input, and a 50 Ω input the record missed. */
 export function assessTermination({ setup, observed }: ModelContext): Candidate[] {
@@ -228,6 +238,8 @@ function lowImpedance(setup: ResolvedSetup, rin: number, basis: Candidate['basis
       amplitudeV: expected === undefined ? undefined : expected * shown,
       ...(spikeRatio !== undefined && expected !== undefined ? { spikeV: expected * spikeRatio } : {}),
     },
+    // needle heights follow the edge's shape and the channel's bandwidth (our estimate: ±10 %)
+    ...(spikeRatio !== undefined ? { amplitudeSigma: NEEDLE_SIGMA } : {}),
     explanation,
     confirm: CONFIRM,
     fix,

@@ -92,6 +92,12 @@ export interface Candidate {
   predicted: Predicted;
   explanation: string;
   fix: string;
+  /**
+   * How well this model knows the amplitude it predicts (log units, one standard deviation),
+   * when that is looser than a screen reading: the height of needles depends on the edge's
+   * shape and the channel's bandwidth, which a lumped model only approximates.
+   */
+  amplitudeSigma?: number;
   /** One bench action that tells this cause from the others. */
   confirm: string;
   /**

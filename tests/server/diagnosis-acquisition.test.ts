@@ -14,7 +14,7 @@ describe('POST /api/diagnosis with the acquisition, reference and source fields'
     const res = await eng
       .post('/api/diagnosis', { probe: { kind: 'passive', groundKind: 'clip-lead' }, circuit: { referenceV: 325 }, signal: { expectedAmplitudeV: 5, frequencyHz: 50e3 } })
       .expect(200);
-    const risk = res.body.risks.find((r: { id: string }) => r.id === 'ground-clip-away-from-earth');
+    const risk = res.body.risks.find((r: { id: string }) => r.id === 'ground-clip-off-earth');
     expect(risk?.level).toBe('hazard');
     expect(risk?.message).toMatch(/differential or isolated probe/);
     const cm = res.body.hypotheses.find((h: { cause: string }) => h.cause === 'common-mode');

@@ -35,7 +35,7 @@ describe('common mode', () => {
     const [c] = run({ probe: { kind: 'passive' }, circuit: { referenceV: 325 }, signal: { expectedAmplitudeV: 5 } });
     expect(c.predicted).toEqual({});
     expect(c.deviation).toBe(0);
-    expect(c.risks?.[0]).toMatchObject({ id: 'ground-clip-away-from-earth', level: 'hazard' });
+    expect(c.risks?.[0]).toMatchObject({ id: 'ground-clip-off-earth', level: 'hazard' });
     expect(c.risks?.[0].message).toMatch(/never float the scope/);
     expect(c.detailTags).toContain('ground-clip-short');
   });

@@ -5,7 +5,7 @@ const biasSetup = {
   probe: { ...PROBES.p03 },
   scope: { ...SCOPES.sc02, attenuationSetting: 10 },
   signal: { expectedAmplitudeV: 2.5, kind: 'dc' as const },
-  observed: { amplitudeV: 2.38, description: 'Steady 2.38 V' },
+  observed: { amplitudeV: 2.25, description: 'Steady 2.25 V' },
 };
 
 export const LOADING_CASES: DemoCase[] = [
@@ -49,21 +49,21 @@ With the switch at 10x (about 11 pF) the node reads 1.15 Vpp and the oscillator 
     key: 'load-bias-divider',
     author: 'sunniva.dahl',
     createdAt: t('07-07 10:20'),
-    title: 'Mid-rail bias reads 2.38 V instead of 2.50 V',
-    summary: 'A 1 MΩ / 1 MΩ divider from 5 V read 2.38 V on the scope and 2.50 V on the electrometer.',
-    narrative: `The CV-12 current-sense amplifier is biased to mid-rail with two 1 MΩ resistors from 5 V (low quiescent current was the point). The scope reads **2.38 V**.
+    title: 'Mid-rail bias reads 2.25 V instead of 2.50 V',
+    summary: 'A 2.2 MΩ / 2.2 MΩ divider from 5 V read 2.25 V on the scope and 2.50 V on the electrometer.',
+    narrative: `The CV-12 current-sense amplifier is biased to mid-rail with two 2.2 MΩ resistors from 5 V (low quiescent current was the point). The scope reads **2.25 V**.
 
 | Instrument | Input resistance | Reading |
 |---|---|---|
-| handheld DMM | 10 MΩ | 2.38 V |
+| handheld DMM | 10 MΩ | 2.25 V |
 | bench electrometer | > 10 GΩ | 2.500 V |
-| scope + 10x probe | 10 MΩ | 2.38 V |
+| scope + 10x probe | 10 MΩ | 2.25 V |
 
 Both 10 MΩ instruments agree, which at first made me think the electrometer was wrong.`,
     setup: biasSetup,
     statedCause: 'loading',
     fix: 'Read high-impedance bias points with the electrometer or through a buffer; or account for the 10 MΩ load.',
-    lessonSummary: 'A 10 MΩ probe is not infinite: on a 500 kΩ node it reads 5 % low.',
+    lessonSummary: 'A 10 MΩ probe is not infinite: on a 1.1 MΩ node it reads 10 % low.',
     tags: ['bias', 'cindervale', 'high-impedance'],
     attach: ['capture'],
     steps: [
@@ -72,12 +72,12 @@ Both 10 MΩ instruments agree, which at first made me think the electrometer was
         at: t('07-07 16:00'),
         do: 'send_back',
         by: 'moderator',
-        note: 'Good table. Please record the source impedance of the node: two 1 MΩ resistors make 500 kΩ Thevenin. Without it the engine sees a 5 % error it cannot attribute, and the case will not help the next person.',
+        note: 'Good table. Please record the source impedance of the node: two 2.2 MΩ resistors make 1.1 MΩ Thevenin. Without it the engine sees a 10 % error it cannot attribute, and the case will not help the next person.',
       },
-      { at: t('07-08 09:10'), do: 'revise', patch: { setup: { ...biasSetup, circuit: { sourceResistanceOhm: 500e3, nodeDescription: 'R30/R31 mid-rail divider, 1 MΩ each from 5 V' } } } },
+      { at: t('07-08 09:10'), do: 'revise', patch: { setup: { ...biasSetup, circuit: { sourceResistanceOhm: 1.1e6, nodeDescription: 'R30/R31 mid-rail divider, 2.2 MΩ each from 5 V' } } } },
       { at: t('07-08 09:12'), do: 'submit' },
-      { at: t('07-09 08:40'), do: 'verify', by: 'rhys.tanaka', note: 'With the 500 kΩ recorded the engine agrees. Verified.' },
-      { at: t('07-09 13:30'), do: 'comment', by: 'engineer', body: 'The same thing bit me on the SN-2 battery divider. 10 MΩ / (10 MΩ + 500 kΩ) = 0.952 — exactly your 2.38 V.' },
+      { at: t('07-09 08:40'), do: 'verify', by: 'rhys.tanaka', note: 'With the 1.1 MΩ recorded the engine agrees. Verified.' },
+      { at: t('07-09 13:30'), do: 'comment', by: 'engineer', body: 'The same thing bit me on the SN-2 battery divider. 10 MΩ / (10 MΩ + 1.1 MΩ) = 0.901 — exactly your 2.25 V.' },
     ],
   },
   {

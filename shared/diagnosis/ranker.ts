@@ -174,7 +174,8 @@ function scoreOf(
   deviation: number,
 ): Scored {
   const amplitudeSigma = Math.max(0, ...members.map((m) => m.amplitudeSigma ?? 0));
-  const seen = compare(predicted, observed, { overshootUpperBound, amplitudeSigma });
+  const predictsClipping = members.some((m) => m.estimates?.screenWindow === 'clipped');
+  const seen = compare(predicted, observed, { overshootUpperBound, amplitudeSigma, predictsClipping });
   const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
   const distinct = distinctFrom(reference, predicted, deviation);
   return {

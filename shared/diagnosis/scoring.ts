@@ -67,6 +67,8 @@ export interface CompareOptions {
   overshootUpperBound?: boolean;
   /** The model's own amplitude accuracy when it is looser than a reading's (log units). */
   amplitudeSigma?: number;
+  /** The hypothesis says the trace runs off the screen (the clipping model's estimate). */
+  predictsClipping?: boolean;
 }
 
 /**
@@ -96,6 +98,10 @@ export function compare(predicted: Predicted, observed: Observed, options: Compa
   if (observed.humFrequencyHz !== undefined) {
     if (predicted.humFrequencyHz === undefined) terms.push({ quantity: 'humFrequencyHz', residual: UNEXPLAINED_FEATURE, sigma: SIGMA.ringing });
     else ratio('humFrequencyHz', predicted.humFrequencyHz, observed.humFrequencyHz, SIGMA.hum);
+  }
+  if (observed.clipped !== undefined && observed.clipped !== Boolean(options.predictsClipping)) {
+    // clipped seen but not predicted (or the reverse): charged like an unexplained feature
+    terms.push({ quantity: 'clipped', residual: UNEXPLAINED_FEATURE, sigma: SIGMA.ringing });
   }
   return summarise(terms);
 }

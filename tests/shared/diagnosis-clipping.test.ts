@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { DiagnosisInput } from '../../shared/schemas/diagnosis';
 import { observedOf, resolveSetup } from '../../shared/diagnosis/defaults';
 import { assessClipping, clippedAmplitudeV, clippedSpan, screenWindow } from '../../shared/diagnosis/clipping';
+import { diagnose } from '../../shared/diagnosis/ranker';
 
 const run = (input: DiagnosisInput) => assessClipping({ setup: resolveSetup(input).setup, observed: observedOf(input) });
 
@@ -67,5 +68,28 @@ describe('clipping', () => {
     const { setup } = resolveSetup({ scope: { voltsPerDiv: 0.2 }, signal: { expectedAmplitudeV: 1, kind: 'square', frequencyHz: 1e3 } });
     expect(clippedAmplitudeV(setup, 2)).toBeCloseTo(0.8, 12);
     expect(clippedAmplitudeV(setup, 0.5)).toBeCloseTo(0.5, 12);
+  });
+});
+
+describe('clipping in the ranking', () => {
+  // common practice: 8 divisions; a 0–5 V square at 0.5 V/div, offset 0, spans −2…+2 V on screen
+  const input = (clipped: boolean, voltsPerDiv: number): DiagnosisInput => ({
+    probe: { attenuation: 10 },
+    scope: { attenuationSetting: 10, voltsPerDiv, offsetV: 0 },
+    signal: { expectedAmplitudeV: 5, frequencyHz: 1e3, kind: 'square', baseV: 0 },
+    observed: { clipped },
+  });
+
+  it('should rank clipping first when only a clipped trace is reported and the window is too small', () => {
+    const result = diagnose(input(true, 0.5));
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].causes).toEqual(['clipping']);
+  });
+
+  it('should not let clipping fit when the trace is reported whole and the window holds it', () => {
+    // 2 V/div × 8 div = ±8 V holds 0–5 V
+    const result = diagnose(input(false, 2));
+    expect(result.hypotheses.find((h) => h.cause === 'clipping')?.fits).toBe(false);
+    expect(result.verdict).toBe('faithful');
   });
 });

@@ -88,7 +88,8 @@ describe('clipping in the ranking', () => {
 
   it('should not let clipping fit when the trace is reported whole and the window holds it', () => {
     // 2 V/div × 8 div = ±8 V holds 0–5 V
-    const result = diagnose(input(false, 2));
+    const whole = input(false, 2);
+    const result = diagnose({ ...whole, observed: { clipped: false, amplitudeV: 5 } });
     expect(result.hypotheses.find((h) => h.cause === 'clipping')?.fits).toBe(false);
     expect(result.verdict).toBe('faithful');
   });

@@ -65,6 +65,8 @@ export function fitSettle(timesS: Float64Array, volts: Float64Array, from: numbe
       span = Math.floor(span / 2);
       continue;
     }
+    // a difference within the noise leaves the ratio to chance: no fit
+    if (Math.abs(d2) <= errorV) return Math.abs(d1) <= errorV ? { kind: 'flat', startV: flatLevel, endV: flatLevel, finalV: flatLevel, tauS: Number.NaN, levelAt: () => flatLevel } : null;
     if (d1 * d2 < 0) return null;
     if (d2 === 0 || Math.abs(d1) <= Math.abs(d2) * (1 + 1e-9)) {
       // straight (or slightly accelerating) droop: a line through the outer windows
@@ -109,7 +111,7 @@ const MIN_SHARE = 0.002;
  * tilt = (level at this edge − level at the next edge)/step, the step being the jump at this
  * edge between the models either side of it; a settle between 4× the fast part and half the
  * segment is a corner: corner = (level reached at the 50 % instant − final level)/step, with its
- * τ. An edge that rings has no corner: its decaying ringing is not a settle. Source for the closed forms the tests check: a first-order high-pass (AC coupling) of a
+ * τ. Each is the median over the flats. An edge that rings has no corner: its decaying ringing is not a settle. Source for the closed forms the tests check: a first-order high-pass (AC coupling) of a
  * square of period T gives tilt = tanh(T/(4τ)); a probe's divider with mismatched time
  * constants gives a jump to k·A then e^(−t/τ) settling to A, corner = (k − 1).
  */
@@ -173,10 +175,11 @@ export function settleSummary(
       corners.push(0);
     }
   }
-  const meanTilt = tilts.length ? tilts.reduce((a, b) => a + b, 0) / tilts.length : 0;
-  const tiltPct = Math.abs(meanTilt) < 100 * MIN_SHARE ? 0 : meanTilt;
+  // medians: a droop or a corner is the same on every flat, a noisy fit of one flat is not
+  const middleTilt = median(tilts);
+  const tiltPct = Math.abs(middleTilt) < 100 * MIN_SHARE ? 0 : middleTilt;
   const withCorner = corners.filter((c) => c !== 0);
-  const cornerPct = withCorner.length * 2 >= cornerCandidates && withCorner.length > 0 ? withCorner.reduce((a, b) => a + b, 0) / withCorner.length : 0;
+  const cornerPct = withCorner.length * 2 > cornerCandidates ? median(withCorner) : 0;
   taus.sort((a, b) => a - b);
   return {
     tiltPct,
@@ -185,4 +188,11 @@ export function settleSummary(
     segments,
     tilted: Math.abs(tiltPct) >= 100 * MIN_SHARE * 5,
   };
+}
+
+function median(values: number[]): number {
+  if (values.length === 0) return 0;
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = sorted.length >> 1;
+  return sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
 }

@@ -47,7 +47,8 @@ export function classifyShape(input: ShapeInputs): WaveShape {
   }
   // a square puts at most 81 % of its power in the fundamental (8/π²), less with sharp edges;
   // a sine clipped at half its amplitude still has 95 % there
-  const sineLike = fundamentalShare !== null && fundamentalShare >= SINE_POWER_SHARE;
+  // (and repeats: a single step's spectrum also crowds into its lowest bins)
+  const sineLike = fundamentalShare !== null && fundamentalShare >= SINE_POWER_SHARE && periodS !== null;
   if (!sineLike && transitions.length > 0 && (drooped || (levels.twoStates && isTwoLevel(volts, levels, TWO_LEVEL_SHARE)))) {
     if (transitions.length === 1) return 'step';
     if (periodS === null) return transitions.length === 2 ? 'pulse' : 'other';

@@ -22,7 +22,7 @@ export interface CaptureSpectrum {
 // The FFT sees at most this many points: 65,536 keep it a few milliseconds on a million samples.
 const MAX_FFT_POINTS = 1 << 16;
 const PLOT_POINTS = 400;
-const MAX_LINES = 8;
+const MAX_LINES = 12;
 
 /**
  * Amplitude spectrum of a uniformly sampled trace (FFT by fft.js). The mean is removed and a

@@ -133,7 +133,10 @@ export class Preamble {
       this.keyLines++;
       this.settings.add(cells[0], cells[1] ?? '', cells.slice(2).filter((c) => c !== '').join(' '));
     } else this.textLines.push(lineNumber);
-    if (numericCells > 0) this.header = null;
+    if (numericCells > 0 && this.header !== null) {
+      this.settings.add(this.header.cells[0], this.header.cells.slice(1).filter((c) => c !== '').join(' '));
+      this.header = null;
+    }
     return null;
   }
 

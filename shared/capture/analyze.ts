@@ -147,11 +147,12 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
   const lowV = levels.twoStates ? levels.baseV : levels.minV;
   const highV = levels.twoStates ? levels.topV : levels.maxV;
   // edges found with the state levels; whether each rings (against the state) keeps ringing from being read as a corner
-  const ringsAtState = transitions.map((transition, index) => {
+  const ringingAtState = transitions.map((transition, index) => {
     const stopIndex = index + 1 < transitions.length ? transitions[index + 1].startIndex : points - 1;
     const stateV = transition.kind === 'rise' ? highV : lowV;
-    return ringingAfter(timesS, volts, transition, stopIndex, stateV, levels.noiseV, RINGING_BAND_SHARE * (highV - lowV)) !== null;
+    return ringingAfter(timesS, volts, transition, stopIndex, stateV, levels.noiseV, RINGING_BAND_SHARE * (highV - lowV));
   });
+  const ringsAtState = ringingAtState.map((ringing) => ringing !== null);
   const droopProbe = !levels.twoStates && hasFastEdges(transitions, timesS) ? settleSummary(timesS, volts, transitions, lowV, highV, noiseV, ringsAtState) : null;
 
   const spectral = sampleIntervalS !== null ? amplitudeSpectrum(volts, sampleIntervalS) : null;
@@ -217,7 +218,11 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
     } else {
       ({ overshootPct, undershootPct } = postTransitionAberrations(volts, transition, stopIndex, lowV, highV));
     }
-    const ringing = ringingAfter(timesS, volts, transition, stopIndex, finalV, levels.noiseV, RINGING_BAND_SHARE * amplitudeV);
+    // against the state level it was already looked for; a fitted flat moves the level it rings about
+    const ringing =
+      finalV === stateV && !settle?.tilted
+        ? ringingAtState[index]
+        : ringingAfter(timesS, volts, transition, stopIndex, finalV, levels.noiseV, RINGING_BAND_SHARE * amplitudeV);
     return {
       kind: transition.kind,
       t10S: transition.t10S,

@@ -3,6 +3,7 @@ import { selectInPlace } from './sample-interval';
 // For Gaussian noise, median(|x|) = 0.6745·σ; a second difference of white noise has variance 6σ².
 const MAD_PER_SIGMA = 0.6744897501960817;
 const SECOND_DIFFERENCE_GAIN = Math.sqrt(6);
+const MAX_DIFFERENCES = 1 << 18;
 
 /**
  * Noise rms from the median absolute second difference of the samples,
@@ -18,9 +19,11 @@ const SECOND_DIFFERENCE_GAIN = Math.sqrt(6);
 export function noiseRmsV(volts: Float64Array, skip?: (index: number) => boolean): number {
   const n = volts.length;
   if (n < 3) return 0;
-  const diffs = new Float64Array(n - 2);
+  // a quarter of a million second differences pin the median well; spread them over the whole record
+  const stride = Math.max(1, Math.ceil((n - 2) / MAX_DIFFERENCES));
+  const diffs = new Float64Array(Math.ceil((n - 2) / stride));
   let count = 0;
-  for (let i = 1; i < n - 1; i++) {
+  for (let i = 1; i < n - 1; i += stride) {
     if (skip && (skip(i - 1) || skip(i) || skip(i + 1))) continue;
     const d = volts[i + 1] - 2 * volts[i] + volts[i - 1];
     diffs[count++] = d < 0 ? -d : d;

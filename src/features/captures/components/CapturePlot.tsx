@@ -161,6 +161,7 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
             <span className="text-muted">Analysed channel</span>
             {canEdit ? (
               <select
+                aria-label="Analysed channel"
                 className="rounded border border-rule bg-paper px-2 py-1 font-mono text-sm"
                 value={analysis.channel}
                 disabled={update.isPending}
@@ -181,6 +182,7 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
           <label className="flex items-center gap-2">
             <span className="text-muted">Taken</span>
             <select
+              aria-label="Taken before or after the fix"
               className="rounded border border-rule bg-paper px-2 py-1 text-sm"
               value={attachment.captureRole ?? ''}
               disabled={update.isPending}

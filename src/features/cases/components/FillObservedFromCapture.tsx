@@ -65,7 +65,7 @@ export function FillObservedFromCapture({ form, capture }: { form: CaseFormApi; 
       </p>
       {changes.length > 0 ? (
         <Button type="button" variant="secondary" className="px-3! py-1.5!" onClick={() => setOpen(true)}>
-          Fill observed from this capture
+          Fill the observed values from this capture
         </Button>
       ) : (
         <p className="text-xs text-agree">The observed values match this capture.</p>

@@ -229,6 +229,8 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       await legend.getByText('CH2 (analysed)').waitFor();
       await legend.getByText('CH1', { exact: true }).waitFor();
       await page.getByRole('list', { name: 'Captures' }).getByText(/Shape\s*sine/).waitFor();
+      // the ink trace is now the sine of CH2 (±1 V), the amber one the square of CH1
+      await expect.poll(inkAndAmber).toBeGreaterThan(100);
       await figure.scrollIntoViewIfNeeded();
       await screenshot(page, 'capture-two-channels-switched');
     } catch (err) {

@@ -89,8 +89,8 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
   const [cursors, setCursors] = useState<{ a?: PlotCursor; b?: PlotCursor }>({});
   const summaryId = useId();
 
-  const overview = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns }), enabled: width > 0 });
-  const zoomed = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns, fromS: view?.fromS, toS: view?.toS }), enabled: width > 0 && view !== null });
+  const overview = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns, channel: analysis.channel }), enabled: width > 0 });
+  const zoomed = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns, fromS: view?.fromS, toS: view?.toS, channel: analysis.channel }), enabled: width > 0 && view !== null });
   // every other channel on the same axis, fetched for the same window
   const others = analysis.channels.filter((c) => c.index !== analysis.channel).slice(0, 4);
   const otherOverviews = useQueries({ queries: others.map((c) => ({ ...captureTraceQueryOptions(attachment.id, { columns, channel: c.index }), enabled: width > 0 })) });

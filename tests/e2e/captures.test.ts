@@ -233,6 +233,27 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       await expect.poll(inkAndAmber).toBeGreaterThan(100);
       await figure.scrollIntoViewIfNeeded();
       await screenshot(page, 'capture-two-channels-switched');
+
+      // a second capture, taken after the fix, compared with the first on one time axis
+      await page.evaluate(
+        async ([id, text]) => {
+          const { csrfToken } = await (await fetch('/api/auth/csrf')).json();
+          const body = new FormData();
+          body.append('file', new File([text], 'after-fix.csv', { type: 'text/csv' }));
+          const res = await fetch(`/api/cases/${id}/attachments`, { method: 'POST', body, headers: { 'x-csrf-token': csrfToken } });
+          if (res.status !== 201) throw new Error(`upload answered ${res.status}`);
+        },
+        [caseId, twoChannelCsv().replace(/,(\d+),(-?[\d.]+)\r?$/gm, (_, sq, sine) => `,${Math.round(Number(sq) / 10)},${sine}`)] as const,
+      );
+      await page.reload();
+      await figure.getByLabel('Taken before or after the fix').selectOption('before');
+      const afterFigure = page.getByRole('figure', { name: /Capture after-fix\.csv/ });
+      await afterFigure.getByLabel('Taken before or after the fix').selectOption('after');
+      const comparison = page.getByRole('region', { name: 'Before and after the fix' });
+      await comparison.locator('canvas').first().waitFor();
+      await comparison.getByRole('row', { name: /Amplitude/ }).waitFor();
+      await comparison.scrollIntoViewIfNeeded();
+      await screenshot(page, 'capture-before-after');
     } catch (err) {
       await screenshot(page, 'captures-two-channels-failure');
       throw err;

@@ -8,6 +8,8 @@
  *    same analyzeCapture — the baseline, measured in the same run.
  * Figures: wall time of parse + analysis (median of the runs) and peak resident set size
  * (getrusage maxRSS, the high-water mark, which a synchronous run cannot hide from a sampler).
+ * The analysis includes the new measurements (shape, clipping, tilt, corner, noise) and the
+ * spectrum (fft.js) behind hum and the strongest lines.
  * Target: under 1 s and under 250 MB on 2 cores.
  */
 import { spawnSync } from 'node:child_process';
@@ -35,7 +37,7 @@ interface ChildReport {
   startRssMB: number;
   peakRssMB: number;
   peakHeapMB: number;
-  analysis: Pick<CaptureAnalysis, 'points' | 'riseTimeS' | 'overshootPct' | 'ringingFrequencyHz' | 'periodS'>;
+  analysis: Pick<CaptureAnalysis, 'points' | 'riseTimeS' | 'overshootPct' | 'ringingFrequencyHz' | 'periodS' | 'shape' | 'noiseRmsV' | 'tiltPct' | 'cornerPct' | 'humFrequencyHz'> & { strongestLineHz: number | null };
 }
 
 async function writeCapture(file: string): Promise<void> {
@@ -102,6 +104,12 @@ async function child(mode: 'stream' | 'naive', file: string): Promise<void> {
       overshootPct: analysis.overshootPct,
       ringingFrequencyHz: analysis.ringingFrequencyHz,
       periodS: analysis.periodS,
+      shape: analysis.shape,
+      noiseRmsV: analysis.noiseRmsV,
+      tiltPct: analysis.tiltPct,
+      cornerPct: analysis.cornerPct,
+      humFrequencyHz: analysis.humFrequencyHz,
+      strongestLineHz: analysis.spectrum?.lines[0]?.frequencyHz ?? null,
     },
   };
   process.stdout.write(`${JSON.stringify(report)}\n`);
@@ -151,6 +159,10 @@ async function main(): Promise<void> {
     console.log(
       `  measured: ${a.points} points, rise ${fmt((a.riseTimeS ?? 0) * 1e9)} ns, overshoot ${fmt(a.overshootPct ?? 0, 1)} %, ` +
         `ringing ${fmt((a.ringingFrequencyHz ?? 0) / 1e6, 2)} MHz, period ${fmt((a.periodS ?? 0) * 1e6, 4)} µs`,
+    );
+    console.log(
+      `  and: shape ${a.shape}, noise ${fmt(a.noiseRmsV * 1e3, 1)} mV rms, tilt ${a.tiltPct} %, corner ${a.cornerPct} %, hum ${a.humFrequencyHz ?? 'none'}, ` +
+        `strongest spectral line ${fmt((a.strongestLineHz ?? 0) / 1e6, 3)} MHz (FFT by fft.js, included in the analysis time)`,
     );
     if (JSON.stringify(a) !== JSON.stringify(naive.analysis)) console.log('  warning: the two readings differ', naive.analysis);
     const met = ours.totalS < TARGET_S && ours.peakRssMB < TARGET_MB;

@@ -26,6 +26,7 @@ import { reviewRoutes } from './routes/review';
 import { searchRoutes, similarCaseRoutes } from './routes/search';
 import { tagRoutes } from './routes/tags';
 import { traceRoutes } from './routes/traces';
+import { captureAttachmentRoutes } from './routes/capture-attachments';
 
 export interface AppOptions {
   /** Folder of the built client (vite build); served with an SPA fallback when present. */
@@ -98,6 +99,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.use('/api/comments', commentRoutes(deps));
   app.use('/api/attachments', attachmentRoutes(deps));
   app.use('/api/attachments', traceRoutes(deps));
+  app.use('/api/attachments', captureAttachmentRoutes(deps));
   app.use('/api/diagnosis', diagnosisRoutes());
   app.use('/api/captures', captureRoutes(deps));
   app.use('/api/review', reviewRoutes(deps));

@@ -2,7 +2,13 @@ import { createReadStream } from 'node:fs';
 import type { CaptureSamples } from '../../shared/capture/types';
 import { readCaptureStream } from './read-capture-stream';
 
-export type CachedSamples = { ok: true; samples: CaptureSamples } | { ok: false; message: string };
+/** A stored capture's time axis and every channel (`samples` holds the first). */
+export type CachedSamples = { ok: true; samples: CaptureSamples; channels: Float64Array[] } | { ok: false; message: string };
+
+interface Entry {
+  samples: CaptureSamples;
+  channels: Float64Array[];
+}
 
 export interface SampleCacheOptions {
   /** Bytes of sample arrays kept at most (default 128 MiB: a few 50 MB captures). */
@@ -11,12 +17,14 @@ export interface SampleCacheOptions {
   maxEntries?: number;
 }
 
-const bytesOf = (s: CaptureSamples) => s.timesS.byteLength + s.volts.byteLength;
+const bytesOf = (e: Entry) => e.samples.timesS.byteLength + e.channels.reduce((sum, c) => sum + c.byteLength, 0);
 
 // The parser's buffers grow by doubling; trimming them keeps the cache's share honest.
-function trimmed(s: CaptureSamples): CaptureSamples {
-  const wasted = s.timesS.buffer.byteLength > s.timesS.byteLength * 1.25;
-  return wasted ? { timesS: s.timesS.slice(), volts: s.volts.slice() } : s;
+function trimmed(timesS: Float64Array, channels: Float64Array[]): Entry {
+  const wasted = timesS.buffer.byteLength > timesS.byteLength * 1.25;
+  const kept = wasted ? channels.map((c) => c.slice()) : channels;
+  const times = wasted ? timesS.slice() : timesS;
+  return { samples: { timesS: times, volts: kept[0] }, channels: kept };
 }
 
 /**
@@ -28,29 +36,29 @@ function trimmed(s: CaptureSamples): CaptureSamples {
 export function createSampleCache(options: SampleCacheOptions = {}) {
   const budgetBytes = options.budgetBytes ?? 128 * 1024 * 1024;
   const maxEntries = options.maxEntries ?? 8;
-  const entries = new Map<string, CaptureSamples>();
+  const entries = new Map<string, Entry>();
   const reading = new Map<string, Promise<CachedSamples>>();
   let usedBytes = 0;
 
   const evict = () => {
-    for (const [key, samples] of entries) {
+    for (const [key, entry] of entries) {
       if (usedBytes <= budgetBytes && entries.size <= maxEntries) break;
       entries.delete(key);
-      usedBytes -= bytesOf(samples);
+      usedBytes -= bytesOf(entry);
     }
   };
 
   const read = async (key: string, file: string): Promise<CachedSamples> => {
     const parsed = await readCaptureStream(createReadStream(file));
     if (!parsed.ok) return { ok: false, message: parsed.error.message };
-    const samples = trimmed(parsed.samples);
+    const entry = trimmed(parsed.samples.timesS, parsed.channelVolts);
     // one capture larger than the whole budget is served but not kept
-    if (bytesOf(samples) <= budgetBytes) {
-      entries.set(key, samples);
-      usedBytes += bytesOf(samples);
+    if (bytesOf(entry) <= budgetBytes) {
+      entries.set(key, entry);
+      usedBytes += bytesOf(entry);
       evict();
     }
-    return { ok: true, samples };
+    return { ok: true, ...entry };
   };
 
   return {
@@ -60,7 +68,7 @@ export function createSampleCache(options: SampleCacheOptions = {}) {
       if (hit) {
         entries.delete(key);
         entries.set(key, hit);
-        return { ok: true, samples: hit };
+        return { ok: true, ...hit };
       }
       let pending = reading.get(key);
       if (!pending) {
@@ -70,10 +78,10 @@ export function createSampleCache(options: SampleCacheOptions = {}) {
       return pending;
     },
     forget(key: string): void {
-      const samples = entries.get(key);
-      if (!samples) return;
+      const entry = entries.get(key);
+      if (!entry) return;
       entries.delete(key);
-      usedBytes -= bytesOf(samples);
+      usedBytes -= bytesOf(entry);
     },
     stats: () => ({ entries: entries.size, usedBytes }),
   };

@@ -94,6 +94,10 @@ export interface AttachmentsTable {
   height: number | null;
   /** JSON of the capture analysis */
   analysis: string | null;
+  /** A capture taken before or after the fix (migration 0004). */
+  capture_role?: 'before' | 'after' | null;
+  /** The capture's analysed channel, 1-based; null: the first (migration 0004). */
+  capture_channel?: number | null;
   created_at: string;
 }
 

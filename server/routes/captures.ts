@@ -1,18 +1,23 @@
 import { rm } from 'node:fs/promises';
 import { Router } from 'express';
-import { analyzeCaptureFile } from '../captures/analyze-file';
+import { analyzeCaptureFile, channelField } from '../captures/analyze-file';
 import type { AppDeps } from '../deps';
 import { AppError } from '../errors';
 import { requireAuth } from '../middleware/require-auth';
 import { singleUpload } from '../middleware/upload';
 
-/** Measures a capture without storing it (the Diagnose screen and the case form's "fill from capture"). */
+/**
+ * Measures a capture without storing it (the Diagnose screen and the case form's "fill from
+ * capture"). Optional multipart field `channel`: 1-based among the signal columns, or a name.
+ */
 export function captureRoutes(deps: AppDeps) {
   const r = Router();
   r.use(requireAuth);
   r.post('/analyze', singleUpload(deps.config), async (req, res) => {
     try {
-      const result = await analyzeCaptureFile(req.file!.path);
+      const field = channelField((req.body as Record<string, unknown> | undefined)?.channel);
+      if ('error' in field) throw new AppError('invalid_input', field.error, [{ path: 'channel', message: field.error }]);
+      const result = await analyzeCaptureFile(req.file!.path, field);
       if (!result.ok) throw new AppError('invalid_input', `The capture cannot be read: ${result.message}`);
       res.json(result.analysis);
     } finally {

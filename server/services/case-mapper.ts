@@ -27,6 +27,7 @@ export function toAttachment(row: AttachmentRow): Attachment {
     height: row.height,
     createdAt: row.created_at,
     analysis: parseJson(row.analysis, null),
+    captureRole: row.capture_role ?? null,
   };
 }
 

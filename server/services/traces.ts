@@ -30,9 +30,15 @@ export async function attachmentTrace(deps: AppDeps, cache: SampleCache, actor: 
   if (file.kind !== 'capture') throw notFound('This attachment is a screenshot, not a waveform capture');
   const loaded = await cache.get(file.path, file.path);
   if (!loaded.ok) throw new AppError('invalid_input', `The stored capture cannot be read: ${loaded.message}`);
-  const { timesS, volts } = loaded.samples;
+  const channelCount = loaded.channels.length;
+  const channel = query.channel ?? 1;
+  if (channel > channelCount) {
+    throw new AppError('invalid_input', `The capture has ${channelCount} channel${channelCount === 1 ? '' : 's'}; there is no channel ${channel}`, [{ path: 'channel', message: 'no such channel' }]);
+  }
+  const timesS = loaded.samples.timesS;
+  const volts = loaded.channels[channel - 1];
   const n = timesS.length;
-  if (n === 0) return { timesS: [], volts: [], fromS: 0, toS: 0, totalPoints: 0, windowPoints: 0, startS: 0, endS: 0 };
+  if (n === 0) return { timesS: [], volts: [], fromS: 0, toS: 0, totalPoints: 0, windowPoints: 0, startS: 0, endS: 0, channel, channelCount };
   const startS = timesS[0];
   const endS = timesS[n - 1];
   const fromS = Math.max(startS, query.fromS ?? startS);
@@ -48,5 +54,5 @@ export async function attachmentTrace(deps: AppDeps, cache: SampleCache, actor: 
   const lo = Math.max(0, first - 1);
   const hi = Math.min(n - 1, afterLast);
   const shown = decimateMinMax(timesS, volts, query.columns, timesS[lo], timesS[hi]);
-  return { timesS: Array.from(shown.timesS), volts: Array.from(shown.volts), fromS, toS, totalPoints: n, windowPoints, startS, endS };
+  return { timesS: Array.from(shown.timesS), volts: Array.from(shown.volts), fromS, toS, totalPoints: n, windowPoints, startS, endS, channel, channelCount };
 }

@@ -1,9 +1,14 @@
 import { postTransitionAberrations } from './aberrations';
+import { findRails, isRail } from './clipping';
 import { referenceLevels, stateLevels, type ReferenceLevels } from './levels';
+import { noisePeakV, noiseRmsV } from './noise';
+import { settleSummary, type SegmentSettle } from './settle';
+import { classifyShape, type WaveShape } from './shape';
+import { amplitudeSpectrum, humFrequencyHz as findHum, type CaptureSpectrum } from './spectrum';
 import { periodS as measurePeriodS } from './period';
 import { ringingAfter } from './ringing';
 import { medianSampleIntervalS } from './sample-interval';
-import { findTransitions, type EdgeKind } from './transitions';
+import { crossingTimeS, findTransitions, type EdgeKind, type Transition } from './transitions';
 import type { CaptureSamples } from './types';
 
 /** One transition as reported. Instants are named by reference level: a fall crosses 90 % first. */
@@ -40,11 +45,29 @@ export interface CaptureAnalysis {
   edgeCount: number;
   edges: CaptureEdge[];
   referenceLevels: ReferenceLevels | null;
+  /** What the waveform is, for the engine's signal kind. */
+  shape: WaveShape;
+  /** True when the trace sits in flat runs on its extremes (the ADC's or the screen's rails). */
+  clipped: boolean;
+  /** Droop across a flat top, % of the step (positive toward the other state); null without flats. */
+  tiltPct: number | null;
+  /** Level an edge reaches before a slow settle, % of the step, negative for rounded corners; null without edges. */
+  cornerPct: number | null;
+  /** Time constant of that settle, s; null without a corner. */
+  settleTimeConstantS: number | null;
+  /** Noise rms on the trace, V. */
+  noiseRmsV: number;
+  /** The strongest line at 50/60 Hz or a harmonic of it, Hz; null when none stands out or the record is too short. */
+  humFrequencyHz: number | null;
+  spectrum: CaptureSpectrum | null;
 }
 
 export interface AnalyzeOptions {
   /** Cap on `edges`, so a long clock capture does not answer with megabytes; default 1000. */
   maxListedEdges?: number;
+  /** The channel's V/div and offset from the file, to tell the screen's rails. */
+  voltsPerDiv?: number;
+  offsetV?: number;
 }
 
 // Ringing must stand at least this share of the amplitude clear of the settled level, above
@@ -65,11 +88,14 @@ const RINGING_EDGE_SHARE = 0.25;
  * @param samples time (s, strictly increasing) and voltage (V), as `CaptureParser` returns them
  */
 export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions = {}): CaptureAnalysis {
-  const { timesS, volts } = samples;
-  const points = Math.min(timesS.length, volts.length);
+  const { timesS: allTimesS, volts: allVolts } = samples;
+  const points = Math.min(allTimesS.length, allVolts.length);
+  const timesS = allTimesS.subarray(0, points);
+  const volts = allVolts.subarray(0, points);
+  const sampleIntervalS = medianSampleIntervalS(timesS);
   const none: CaptureAnalysis = {
     points,
-    sampleIntervalS: medianSampleIntervalS(timesS.subarray(0, points)),
+    sampleIntervalS,
     baseV: null,
     topV: null,
     amplitudeV: null,
@@ -83,35 +109,136 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
     edgeCount: 0,
     edges: [],
     referenceLevels: null,
+    shape: 'other',
+    clipped: false,
+    tiltPct: null,
+    cornerPct: null,
+    settleTimeConstantS: null,
+    noiseRmsV: 0,
+    humFrequencyHz: null,
+    spectrum: null,
   };
   if (points < 2) return none;
-  const levels = stateLevels(volts.subarray(0, points));
-  if (!levels.twoStates) return { ...none, baseV: levels.baseV, topV: levels.topV, amplitudeV: 0 };
 
-  const { baseV, topV } = levels;
+  const rails = findRails(volts);
+  const topRail = isRail(rails.atMax, rails.longestAtMax, rails.nearMax, points);
+  const bottomRail = isRail(rails.atMin, rails.longestAtMin, rails.nearMin, points);
+  const onRail = (i: number) => (topRail && volts[i] === rails.maxV) || (bottomRail && volts[i] === rails.minV);
+  const noiseV = noiseRmsV(volts, topRail || bottomRail ? onRail : undefined);
+  let meanV = 0;
+  for (let i = 0; i < points; i++) meanV += volts[i];
+  meanV /= points;
+  let variance = 0;
+  for (let i = 0; i < points; i++) variance += (volts[i] - meanV) ** 2;
+  const stdV = Math.sqrt(variance / points);
+
+  const levels = stateLevels(volts);
+  const rangeV = levels.maxV - levels.minV;
+  // Without two histogram peaks (a heavily drooping square has none) edges are still looked for
+  // between the extremes, so droop can be told from a waveform with no flats at all.
+  const reference = levels.twoStates
+    ? referenceLevels(levels.baseV, levels.topV)
+    : rangeV > 8 * noiseV
+      ? referenceLevels(levels.minV, levels.maxV)
+      : null;
+  const transitions = reference ? findTransitions(timesS, volts, reference, levels.noiseV) : [];
+  const period = measurePeriodS(transitions);
+  const clipped = isClipped(volts, rails, topRail, bottomRail, noiseV, rangeV, options);
+  const lowV = levels.twoStates ? levels.baseV : levels.minV;
+  const highV = levels.twoStates ? levels.topV : levels.maxV;
+  // edges found with the state levels; whether each rings (against the state) keeps ringing from being read as a corner
+  const ringingAtState = transitions.map((transition, index) => {
+    const stopIndex = index + 1 < transitions.length ? transitions[index + 1].startIndex : points - 1;
+    const stateV = transition.kind === 'rise' ? highV : lowV;
+    return ringingAfter(timesS, volts, transition, stopIndex, stateV, levels.noiseV, RINGING_BAND_SHARE * (highV - lowV));
+  });
+  const ringsAtState = ringingAtState.map((ringing) => ringing !== null);
+  const droopProbe = !levels.twoStates && hasFastEdges(transitions, timesS) ? settleSummary(timesS, volts, transitions, lowV, highV, noiseV, ringsAtState) : null;
+
+  const spectral = sampleIntervalS !== null ? amplitudeSpectrum(volts, sampleIntervalS) : null;
+  const fundamentalShare = spectral ? strongestLineShare(spectral.amplitudesV) : null;
+  const shape = classifyShape({ volts, levels, transitions, periodS: period, noiseV, fundamentalShare, clipped, meanV, stdV, drooped: droopProbe?.tilted ?? false });
+  const durationS = timesS[points - 1] - timesS[0];
+  const hum = spectral ? findHum(spectral.amplitudesV, spectral.spectrum.binHz, durationS, shape === 'dc' ? null : period) : null;
+  const common = {
+    ...none,
+    shape,
+    clipped,
+    noiseRmsV: noiseV,
+    humFrequencyHz: hum ? Math.round(hum.frequencyHz * 10) / 10 : null,
+    spectrum: spectral?.spectrum ?? null,
+  };
+  const hasFlats = shape === 'square' || shape === 'pulse' || shape === 'step';
+  if (shape === 'dc' || reference === null) {
+    const dcV = levels.twoStates ? meanV : levels.baseV;
+    return { ...common, baseV: shape === 'dc' ? dcV : levels.baseV, topV: shape === 'dc' ? dcV : levels.topV, amplitudeV: shape === 'dc' ? 0 : levels.twoStates ? levels.topV - levels.baseV : rangeV };
+  }
+  const periodic = { periodS: period, frequencyHz: period === null ? null : 1 / period };
+  if (!hasFlats && (shape === 'sine' || !levels.twoStates)) {
+    // no flat states: levels are the extremes, and there is no rise time, overshoot or ringing to speak of
+    return { ...common, ...periodic, baseV: levels.minV, topV: levels.maxV, amplitudeV: rangeV, referenceLevels: reference };
+  }
+
+  const settle = hasFlats ? (droopProbe ?? settleSummary(timesS, volts, transitions, lowV, highV, noiseV, ringsAtState)) : null;
+  let baseV = lowV;
+  let topV = highV;
+  if (settle?.tilted) {
+    // with droop the histogram's modes sit at the ends of the flats: take each flat's middle
+    const mids = { rise: [] as number[], fall: [] as number[] };
+    transitions.forEach((edge, i) => {
+      const segment = settle.segments[i];
+      const endS = transitions[i + 1]?.t50S;
+      if (segment && endS !== undefined) mids[edge.kind].push(segment.levelAt((edge.t50S + endS) / 2));
+    });
+    if (mids.rise.length && mids.fall.length) {
+      topV = mean(mids.rise)!;
+      baseV = mean(mids.fall)!;
+    }
+  }
   const amplitudeV = topV - baseV;
-  const reference = referenceLevels(baseV, topV);
-  const transitions = findTransitions(timesS, volts.subarray(0, points), reference, levels.noiseV);
+  if (settle?.tilted) {
+    // droop moves the flats across the fixed reference levels: time each edge between 10 % and 90 % of its own step
+    transitions.forEach((transition, i) => {
+      const after = settle.segments[i];
+      const before = i > 0 ? settle.segments[i - 1] : null;
+      if (after && before) transitions[i] = retimeEdge(timesS, volts, transition, before.levelAt(transition.t50S), after.levelAt(transition.t50S));
+    });
+  }
   const edges: CaptureEdge[] = transitions.map((transition, index) => {
     const stopIndex = index + 1 < transitions.length ? transitions[index + 1].startIndex : points - 1;
-    const finalV = transition.kind === 'rise' ? topV : baseV;
-    const aberrations = postTransitionAberrations(volts, transition, stopIndex, baseV, topV);
-    const ringing = ringingAfter(timesS, volts, transition, stopIndex, finalV, levels.noiseV, RINGING_BAND_SHARE * amplitudeV);
+    const segment: SegmentSettle | null = settle?.segments[index] ?? null;
+    const stateV = transition.kind === 'rise' ? highV : lowV;
+    const finalV = segment && segment.kind !== 'flat' ? segment.finalV : stateV;
+    const regionCount = stopIndex - transition.endIndex + 1;
+    const boundPct = (100 * noisePeakV(noiseV, regionCount)) / amplitudeV;
+    let overshootPct: number;
+    let undershootPct: number;
+    if (segment && settle?.tilted) {
+      ({ overshootPct, undershootPct } = aberrationsAgainst(timesS, volts, transition, stopIndex, segment, amplitudeV));
+    } else {
+      ({ overshootPct, undershootPct } = postTransitionAberrations(volts, transition, stopIndex, lowV, highV));
+    }
+    // against the state level it was already looked for; a fitted flat moves the level it rings about
+    const ringing =
+      finalV === stateV && !settle?.tilted
+        ? ringingAtState[index]
+        : ringingAfter(timesS, volts, transition, stopIndex, finalV, levels.noiseV, RINGING_BAND_SHARE * amplitudeV);
     return {
       kind: transition.kind,
       t10S: transition.t10S,
       t50S: transition.t50S,
       t90S: transition.t90S,
       durationS: transition.durationS,
-      overshootPct: aberrations.overshootPct,
-      undershootPct: aberrations.undershootPct,
+      overshootPct: overshootPct <= boundPct ? 0 : overshootPct,
+      // without an overshoot beyond the noise the edge approaches its level from one side: what dips below is noise
+      undershootPct: undershootPct <= boundPct || overshootPct <= boundPct ? 0 : undershootPct,
       ringingFrequencyHz: ringing?.frequencyHz ?? null,
     };
   });
-  const period = measurePeriodS(transitions);
   const ringingHz = edges.flatMap((edge) => (edge.ringingFrequencyHz === null ? [] : [edge.ringingFrequencyHz]));
   return {
-    ...none,
+    ...common,
+    ...periodic,
     baseV,
     topV,
     amplitudeV,
@@ -121,12 +248,122 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
     undershootPct: mean(edges.map((edge) => edge.undershootPct)),
     ringingFrequencyHz:
       ringingHz.length > 0 && ringingHz.length >= RINGING_EDGE_SHARE * edges.length ? median(ringingHz) : null,
-    periodS: period,
-    frequencyHz: period === null ? null : 1 / period,
     edgeCount: edges.length,
     edges: edges.slice(0, options.maxListedEdges ?? 1000),
     referenceLevels: reference,
+    tiltPct: settle ? settle.tiltPct : null,
+    cornerPct: settle ? settle.cornerPct : null,
+    settleTimeConstantS: settle ? settle.settleTimeConstantS : null,
   };
+}
+
+/**
+ * An edge timed against the levels either side of it (IEEE Std 181-2011, 5.3.3, with local
+ * state levels): from the mid crossing outward to the 10 % and 90 % points of the step
+ * `fromV` → `toV`, interpolated between samples.
+ */
+function retimeEdge(timesS: Float64Array, volts: Float64Array, transition: Transition, fromV: number, toV: number): Transition {
+  const n = volts.length;
+  const lowV = fromV + 0.1 * (toV - fromV);
+  const midV = fromV + 0.5 * (toV - fromV);
+  const highV = fromV + 0.9 * (toV - fromV);
+  const up = toV > fromV;
+  const past = (v: number, levelV: number) => (up ? v >= levelV : v <= levelV);
+  let k = transition.startIndex;
+  while (k < n - 1 && !past(volts[k + 1], midV)) k++;
+  let a = k;
+  while (a > 0 && past(volts[a], lowV)) a--;
+  let b = k + 1;
+  while (b < n - 1 && !past(volts[b], highV)) b++;
+  if (a === 0 || b >= n - 1) return transition;
+  const cross = (i: number, levelV: number) => crossingTimeS(timesS[i], volts[i], timesS[i + 1], volts[i + 1], levelV);
+  const t10S = cross(a, lowV);
+  const t50S = cross(k, midV);
+  const t90S = cross(b - 1, highV);
+  const durationS = Math.abs(t90S - t10S);
+  return { ...transition, t10S: up ? t10S : t90S, t90S: up ? t90S : t10S, t50S, durationS, startIndex: a, endIndex: b };
+}
+
+/** Edges short next to their spacing (under a tenth of it on average): a waveform of flats and jumps. */
+function hasFastEdges(transitions: Transition[], timesS: Float64Array): boolean {
+  if (transitions.length === 0) return false;
+  const spanS = transitions.length > 1 ? (transitions[transitions.length - 1].t50S - transitions[0].t50S) / (transitions.length - 1) : timesS[timesS.length - 1] - timesS[0];
+  const edgeS = transitions.reduce((sum, t) => sum + t.durationS, 0) / transitions.length;
+  return edgeS < 0.1 * spanS;
+}
+
+/**
+ * Overshoot and undershoot against a drooping flat's own level (its fitted model) rather than a
+ * fixed state level, so droop is not read as an aberration: taken over the first quarter of the flat.
+ */
+function aberrationsAgainst(
+  timesS: Float64Array,
+  volts: Float64Array,
+  transition: Transition,
+  stopIndex: number,
+  segment: SegmentSettle,
+  amplitudeV: number,
+): { overshootPct: number; undershootPct: number } {
+  const sign = transition.kind === 'rise' ? 1 : -1;
+  const last = transition.endIndex + Math.floor((stopIndex - transition.endIndex) / 4);
+  let beyondV = 0;
+  let shortV = 0;
+  for (let i = transition.endIndex; i <= last; i++) {
+    const excessV = sign * (volts[i] - segment.levelAt(timesS[i]));
+    if (excessV > beyondV) beyondV = excessV;
+    if (-excessV > shortV) shortV = -excessV;
+  }
+  return { overshootPct: (100 * beyondV) / amplitudeV, undershootPct: (100 * shortV) / amplitudeV };
+}
+
+/**
+ * Clipping: a flat run of identical samples on the maximum or minimum. On a trace with visible
+ * noise no real level is that flat, so such a run is a rail. On a noiseless trace a square's
+ * own flats look the same, so there it takes a run on only one extreme, or the extreme lying
+ * at or beyond the screen's edge (4 divisions from the centre at the file's V/div and offset).
+ */
+function isClipped(
+  volts: Float64Array,
+  rails: ReturnType<typeof findRails>,
+  top: boolean,
+  bottom: boolean,
+  noiseV: number,
+  rangeV: number,
+  options: AnalyzeOptions,
+): boolean {
+  if (!top && !bottom) return false;
+  if (options.voltsPerDiv !== undefined && options.voltsPerDiv > 0) {
+    const centerV = options.offsetV ?? 0;
+    const edgeV = 3.9 * options.voltsPerDiv;
+    if ((top && rails.maxV >= centerV + edgeV) || (bottom && rails.minV <= centerV - edgeV)) return true;
+  }
+  if (noiseV > 1e-6 * rangeV) return true;
+  // noiseless: one flat extreme and a moving other one means a rail; two flats may be a square's levels
+  if (top !== bottom) return true;
+  return slopedShare(volts, rails.minV, rails.maxV) >= 0.2;
+}
+
+/** Share of samples between 10 % and 90 % of the range: large for a sine clipped at its rails. */
+function slopedShare(volts: Float64Array, minV: number, maxV: number): number {
+  const lowV = minV + 0.1 * (maxV - minV);
+  const highV = maxV - 0.1 * (maxV - minV);
+  let count = 0;
+  for (let i = 0; i < volts.length; i++) if (volts[i] > lowV && volts[i] < highV) count++;
+  return count / volts.length;
+}
+
+/** Share of the AC power in the strongest line (±3 bins: the Hann window's main lobe). */
+function strongestLineShare(amplitudesV: Float64Array): number | null {
+  let total = 0;
+  let peak = 1;
+  for (let k = 1; k < amplitudesV.length; k++) {
+    total += amplitudesV[k] * amplitudesV[k];
+    if (amplitudesV[k] > amplitudesV[peak]) peak = k;
+  }
+  if (!(total > 0)) return null;
+  let line = 0;
+  for (let k = Math.max(1, peak - 3); k <= Math.min(amplitudesV.length - 1, peak + 3); k++) line += amplitudesV[k] * amplitudesV[k];
+  return line / total;
 }
 
 function mean(values: number[]): number | null {

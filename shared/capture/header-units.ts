@@ -1,4 +1,5 @@
-export type ColumnRole = 'time' | 'voltage';
+/** 'index' is a sample counter: time comes from a start and an increment given elsewhere. */
+export type ColumnRole = 'time' | 'voltage' | 'index';
 
 /** How a header cell reads: which quantity it names and the unit its numbers are in. */
 export interface HeaderCell {
@@ -10,14 +11,14 @@ export interface HeaderCell {
 }
 
 interface UnitSpelling {
-  role: ColumnRole;
+  role: 'time' | 'voltage';
   exp10: number;
   symbol: string;
 }
 
 // Matched after lower-casing: "MV" in a header is a shouted millivolt far more often than a megavolt.
 const UNITS: Record<string, UnitSpelling> = Object.create(null);
-function unit(role: ColumnRole, exp10: number, symbol: string, spellings: string[]) {
+function unit(role: 'time' | 'voltage', exp10: number, symbol: string, spellings: string[]) {
   for (const spelling of spellings) UNITS[spelling] = { role, exp10, symbol };
 }
 unit('time', 0, 's', ['s', 'sec', 'secs', 'second', 'seconds']);
@@ -37,6 +38,7 @@ const VOLTAGE_WORDS = new Set([
   'voltage', 'volt', 'volts', 'v', 'u', 'y', 'signal', 'ampl', 'amplitude', 'value', 'level',
   'ch', 'channel', 'chan', 'trace', 'math', 'spannung', 'tension', 'tensión', 'tensione', 'napięcie',
 ]);
+const INDEX_WORDS = new Set(['index', 'idx', 'sequence', 'seq', 'sample', 'samples', 'point', 'points', 'pt', 'no', 'nr', 'n', 'num', 'number', 'count']);
 const VOLTAGE_TOKEN = /^(?:ch|channel|chan|c|trace|v)\d+$|^v(?:out|in|o|i|sig)$/u;
 
 const BRACKETED = /[([{]\s*([^)\]}]*?)\s*[)\]}]/u;
@@ -52,9 +54,11 @@ export function readHeaderCell(cell: string): HeaderCell {
   let unitText: string | null = null;
   let words = lower;
   const bracketed = BRACKETED.exec(lower);
-  if (bracketed) {
+  if (bracketed && bracketed[1] in UNITS) {
     unitText = bracketed[1];
     words = lower.replace(bracketed[0], ' ');
+  } else if (bracketed) {
+    words = lower.replace(bracketed[0], ` ${bracketed[1]} `);
   } else {
     const suffix = SUFFIX.exec(lower);
     if (suffix && suffix[1] in UNITS) {
@@ -73,12 +77,14 @@ export function readHeaderCell(cell: string): HeaderCell {
 /** True when a cell holds nothing but a unit, as in a units row under the header ("(ms)", "[mV]", "V"). */
 export function isUnitOnly(cell: string): boolean {
   const bare = cell.trim().replace(/^"|"$/gu, '').replace(/^[([{]\s*|\s*[)\]}]$/gu, '').trim().toLowerCase();
-  return bare in UNITS;
+  return bare in UNITS || INDEX_WORDS.has(bare);
 }
 
 function roleFromWords(words: string): ColumnRole | null {
-  const tokens = words.split(/[^\p{L}\p{N}]+/u).filter((token) => token !== '');
-  if (tokens.some((token) => TIME_WORDS.has(token))) return 'time';
+  const tokens = words.split(/[^\p{L}\p{N}#]+/u).filter((token) => token !== '');
+  if (tokens.some((token) => token !== 'x' && TIME_WORDS.has(token))) return 'time';
+  if (tokens.some((token) => INDEX_WORDS.has(token) || token === '#')) return 'index';
+  if (tokens.includes('x')) return 'time';
   if (tokens.some((token) => VOLTAGE_WORDS.has(token) || VOLTAGE_TOKEN.test(token))) return 'voltage';
   return null;
 }

@@ -12,14 +12,15 @@ export function quoteCell(cell: string): string {
 
 /**
  * Says what is wrong with a data row that did not read, naming the first of its two columns
- * that failed: "line 17: expected a number in column 2 (voltage), got 'abc'". Only called on
+ * that failed (time, sample index or a channel): "line 17: expected a number in column 2 (voltage), got 'abc'". Only called on
  * the rare bad row, so it may split the line.
  */
 export function describeRowProblem(line: string, lineNumber: number, layout: DataLayout): CaptureParseError {
   const cells = line.split(layout.separator);
+  const time = layout.time;
   const columns = [
-    { what: 'time', index: layout.time.index, exp10: layout.timeExp10 },
-    { what: 'voltage', index: layout.voltage.index, exp10: layout.voltageExp10 },
+    ...(time.kind === 'rows' ? [] : [{ what: time.kind === 'index' ? 'sample index' : 'time', index: time.column.index, exp10: time.kind === 'column' ? time.exp10 : 0 }]),
+    ...layout.channels.map((channel) => ({ what: layout.channels.length > 1 ? `voltage, '${channel.name}'` : 'voltage', index: channel.column, exp10: channel.exp10 })),
   ].sort((a, b) => a.index - b.index);
   for (const { what, index, exp10 } of columns) {
     const expected = `a number in column ${index + 1} (${what})`;

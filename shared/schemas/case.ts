@@ -108,6 +108,8 @@ export const attachmentSchema = z.object({
   createdAt: z.string(),
   /** Capture analysis (the `POST /api/captures/analyze` shape) for captures, else null. */
   analysis: z.record(z.string(), z.unknown()).nullable(),
+  /** A capture marked as taken before or after the fix, else null. */
+  captureRole: z.enum(['before', 'after']).nullable().optional(),
 });
 export type Attachment = z.infer<typeof attachmentSchema>;
 

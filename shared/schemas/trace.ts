@@ -23,6 +23,8 @@ export const traceQuerySchema = z
       .default(1000),
     fromS: seconds('fromS'),
     toS: seconds('toS'),
+    /** Which channel, 1-based among the capture's signal columns (default 1). */
+    channel: z.coerce.number({ error: 'channel must be a channel number' }).int('channel must be a whole number').min(1, 'channels are numbered from 1').optional(),
   })
   .refine((q) => q.fromS === undefined || q.toS === undefined || q.fromS < q.toS, { message: 'fromS must be earlier than toS', path: ['toS'] });
 export type TraceQuery = z.infer<typeof traceQuerySchema>;
@@ -42,4 +44,7 @@ export interface Trace {
   /** Extent of the whole capture, s. */
   startS: number;
   endS: number;
+  /** The channel drawn, and how many the capture has. */
+  channel?: number;
+  channelCount?: number;
 }

@@ -25,6 +25,19 @@ function ringingCsv(): string {
   return lines.join('\n');
 }
 
+/**
+ * A two-channel bench export: a preamble saying the channel was at 1X, then CH1 a 10 kHz square
+ * 0 → 3.3 V and CH2 a 20 kHz sine of 1 V peak, 1 ms at 0.5 µs (closed forms, written in mV).
+ */
+function twoChannelCsv(): string {
+  const lines = ['Model,Bench scope', 'Vertical Units,mV', 'Probe,1X', 'Coupling,DC', 'Vertical Scale,1V', '', 'Time (s),CH1,CH2'];
+  for (let k = 0; k < 2000; k++) {
+    const t = k * 0.5e-6;
+    lines.push(`${t.toExponential(6)},${Math.floor(t / 50e-6) % 2 ? 3300 : 0},${(1000 * Math.sin(2 * Math.PI * 20e3 * t)).toFixed(2)}`);
+  }
+  return lines.join('\r\n');
+}
+
 const value = (text: string, unit: string) => {
   const r = parseEngineering(text.replace(/\s*\(.*$/, '').trim(), unit);
   if (!r.ok) throw new Error(`cannot read "${text}": ${r.error}`);
@@ -78,7 +91,7 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       const dialog = page.getByRole('dialog', { name: 'Fill the observed values from this capture?' });
       await dialog.getByRole('row', { name: /Ringing frequency/ }).waitFor();
       await viewportShot(page, 'capture-fill-dialog');
-      await dialog.getByRole('button', { name: /^Fill these 4 values$/ }).click();
+      await dialog.getByRole('button', { name: /^Fill these \d+ values$/ }).click();
       await dialog.waitFor({ state: 'detached' });
 
       // source: underdamped second-order step: overshoot exp(−πζ/√(1−ζ²)), ringing at f_n·√(1−ζ²)
@@ -154,6 +167,95 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       await phone.context().close();
     } catch (err) {
       await screenshot(page, 'captures-failure');
+      throw err;
+    } finally {
+      await context.close();
+    }
+  }, 120_000);
+
+  it('should plot both channels of a capture, switch the analysed one, and fill the setup from the preamble with a visible conflict', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    try {
+      await signIn(page, server.baseUrl, 'engineer@falsetrace.test');
+      await page.goto(`${server.baseUrl}/cases/new`);
+      await page.getByLabel('Title').fill('Square reads a tenth on the bench export');
+      await page.getByLabel('Symptom in one line').fill('The exported square is 3.3 V where the screen showed 0.33 V');
+      await page.waitForURL(/\/cases\/\d+\/edit$/);
+      const caseId = Number(/\/cases\/(\d+)\/edit/.exec(page.url())![1]);
+      await page.getByLabel('Channel attenuation setting').fill('10x');
+
+      await dropFile(page, 'two-channels.csv', twoChannelCsv());
+      const settings = page.getByRole('region', { name: 'Settings from two-channels.csv' });
+      await settings.waitFor();
+      // the file says 1X, the case says 10x: shown on the form before anything is filled
+      await settings.getByRole('alert').getByText(/The file says the channel was set to 1X; the case records 10X\./).waitFor();
+      await settings.scrollIntoViewIfNeeded();
+      await viewportShot(page, 'capture-setup-conflict');
+      await settings.getByRole('button', { name: 'Fill the setup from this file' }).click();
+      const dialog = page.getByRole('dialog', { name: 'Fill the setup from the capture file?' });
+      await dialog.getByRole('row', { name: /Channel attenuation setting/ }).waitFor();
+      await dialog.getByRole('button', { name: /^Fill / }).click();
+      await dialog.waitFor({ state: 'detached' });
+      expect(await page.getByLabel('Channel attenuation setting').inputValue()).toMatch(/^1 ?x$/i);
+      await settings.getByText("The setup matches the file's settings.").waitFor();
+      await saved(page);
+
+      await page.goto(`${server.baseUrl}/cases/${caseId}`);
+      const figure = page.getByRole('figure', { name: /Capture two-channels\.csv/ });
+      await figure.locator('canvas').first().waitFor();
+      const legend = figure.getByRole('list', { name: 'Legend' });
+      await legend.getByText('CH1 (analysed)').waitFor();
+      await legend.getByText('CH2', { exact: true }).waitFor();
+      // both traces drawn: ink for the analysed channel, amber (our caution colour) for the other
+      const inkAndAmber = () =>
+        figure.locator('canvas').first().evaluate((canvas: HTMLCanvasElement) => {
+          const { data } = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height);
+          const css = getComputedStyle(document.documentElement);
+          const rgb = (name: string) => css.getPropertyValue(name).trim().match(/[0-9a-f]{2}/gi)!.map((h) => parseInt(h, 16));
+          const count = ([r, g, b]: number[]) => {
+            let n = 0;
+            for (let i = 0; i < data.length; i += 4) if (Math.abs(data[i] - r) + Math.abs(data[i + 1] - g) + Math.abs(data[i + 2] - b) < 40) n++;
+            return n;
+          };
+          return Math.min(count(rgb('--ft-ink')), count(rgb('--ft-caution')));
+        });
+      await expect.poll(inkAndAmber).toBeGreaterThan(100);
+      await figure.getByRole('figure', { name: 'Spectrum of the analysed channel' }).waitFor();
+      await figure.scrollIntoViewIfNeeded();
+      await screenshot(page, 'capture-two-channels');
+
+      await figure.getByLabel('Analysed channel', { exact: true }).selectOption('2');
+      await legend.getByText('CH2 (analysed)').waitFor();
+      await legend.getByText('CH1', { exact: true }).waitFor();
+      await page.getByRole('list', { name: 'Captures' }).getByText(/Shape\s*sine/).waitFor();
+      // the ink trace is now the sine of CH2 (±1 V), the amber one the square of CH1
+      await expect.poll(inkAndAmber).toBeGreaterThan(100);
+      await figure.scrollIntoViewIfNeeded();
+      await screenshot(page, 'capture-two-channels-switched');
+
+      // a second capture, taken after the fix, compared with the first on one time axis
+      await page.evaluate(
+        async ([id, text]) => {
+          const { csrfToken } = await (await fetch('/api/auth/csrf')).json();
+          const body = new FormData();
+          body.append('file', new File([text], 'after-fix.csv', { type: 'text/csv' }));
+          const res = await fetch(`/api/cases/${id}/attachments`, { method: 'POST', body, headers: { 'x-csrf-token': csrfToken } });
+          if (res.status !== 201) throw new Error(`upload answered ${res.status}`);
+        },
+        [caseId, twoChannelCsv().replace(/,(\d+),(-?[\d.]+)\r?$/gm, (_, sq, sine) => `,${Math.round(Number(sq) / 10)},${sine}`)] as const,
+      );
+      await page.reload();
+      await figure.getByLabel('Taken before or after the fix').selectOption('before');
+      const afterFigure = page.getByRole('figure', { name: /Capture after-fix\.csv/ });
+      await afterFigure.getByLabel('Taken before or after the fix').selectOption('after');
+      const comparison = page.getByRole('region', { name: 'Before and after the fix' });
+      await comparison.locator('canvas').first().waitFor();
+      await comparison.getByRole('row', { name: /Amplitude/ }).waitFor();
+      await comparison.scrollIntoViewIfNeeded();
+      await screenshot(page, 'capture-before-after');
+    } catch (err) {
+      await screenshot(page, 'captures-two-channels-failure');
       throw err;
     } finally {
       await context.close();

@@ -28,6 +28,7 @@ function NoSuchCase() {
 
 // the plot code (and uPlot) is fetched only when a case with a capture is opened
 const CapturePlot = lazy(() => import('../../features/captures/components/CapturePlot'));
+const CaptureBeforeAfter = lazy(() => import('../../features/captures/components/CaptureBeforeAfter'));
 
 export const CasesRoute = CasesPage;
 
@@ -59,9 +60,18 @@ export function CaseRoute() {
       }
       renderCapturePlot={(capture, c) => (
         <Suspense fallback={<p className="text-sm text-muted">Loading the plot…</p>}>
-          <CapturePlot attachment={capture} setup={c.setup} diagnosis={c.diagnosis} />
+          <CapturePlot attachment={capture} setup={c.setup} diagnosis={c.diagnosis} canEdit={c.permissions.edit} />
         </Suspense>
       )}
+      renderCaptureComparison={(c) => {
+        const before = c.attachments.find((a) => a.kind === 'capture' && a.captureRole === 'before');
+        const after = c.attachments.find((a) => a.kind === 'capture' && a.captureRole === 'after');
+        return before && after ? (
+          <Suspense fallback={<p className="text-sm text-muted">Loading the comparison…</p>}>
+            <CaptureBeforeAfter before={before} after={after} />
+          </Suspense>
+        ) : null;
+      }}
     />
   );
 }

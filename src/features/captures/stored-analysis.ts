@@ -35,6 +35,26 @@ export const storedAnalysisSchema = z.object({
     )
     .catch([]),
   referenceLevels: z.object({ lowV: z.number(), midV: z.number(), highV: z.number() }).nullable().catch(null),
+  shape: z.enum(['square', 'pulse', 'step', 'sine', 'dc', 'other']).nullable().catch(null),
+  clipped: z.boolean().nullable().catch(null),
+  tiltPct: n,
+  cornerPct: n,
+  settleTimeConstantS: n,
+  noiseRmsV: n,
+  humFrequencyHz: n,
+  channel: z.number().catch(1),
+  channels: z.array(z.object({ index: z.number(), name: z.string(), unit: z.string() })).catch([]),
+  notes: z.array(z.string()).catch([]),
+  metadata: z.record(z.string(), z.unknown()).catch({}),
+  spectrum: z
+    .object({
+      binHz: z.number(),
+      nyquistHz: z.number(),
+      lines: z.array(z.object({ frequencyHz: z.number(), amplitudeV: z.number() })),
+      plot: z.object({ frequenciesHz: z.array(z.number()), amplitudesV: z.array(z.number()) }),
+    })
+    .nullable()
+    .catch(null),
 });
 export type StoredAnalysis = z.infer<typeof storedAnalysisSchema>;
 

@@ -8,6 +8,8 @@ export interface TraceWindow {
   /** A zoomed window, s; both undefined for the whole capture. */
   fromS?: number;
   toS?: number;
+  /** Which channel, 1-based (default 1). */
+  channel?: number;
 }
 
 /** Hierarchical keys: every trace of one attachment sits under ['captures', 'trace', id]. */
@@ -21,6 +23,7 @@ export function getCaptureTrace(attachmentId: number, window: TraceWindow, signa
   const params = new URLSearchParams({ columns: String(window.columns) });
   if (window.fromS !== undefined) params.set('fromS', String(window.fromS));
   if (window.toS !== undefined) params.set('toS', String(window.toS));
+  if (window.channel !== undefined) params.set('channel', String(window.channel));
   return api<Trace>(`/api/attachments/${attachmentId}/trace?${params}`, { signal });
 }
 

@@ -27,6 +27,8 @@ export interface PlotCursor {
 
 export interface CaptureCanvasProps {
   data: CapturePlotData;
+  /** Colours (CSS variables' values are read at draw time) and names of `data.others`. */
+  otherSeries?: { label: string; color: string }[];
   xRange: [number, number];
   yRange: [number, number];
   levels: LevelLine[];
@@ -67,6 +69,19 @@ function snap(u: uPlot, data: CapturePlotData, xPx: number, yPx: number): PlotCu
   }
   const i = best >= 0 ? best : nearestX;
   return i >= 0 ? { tS: data.x[i], v: data.capture[i] as number } : null;
+}
+
+/** The series uPlot draws: time, the analysed trace, the model, then each further trace (empty when missing). */
+function aligned(d: CapturePlotData, otherCount: number): uPlot.AlignedData {
+  const others = Array.from({ length: otherCount }, (_, k) => d.others[k] ?? d.x.map(() => null));
+  return [d.x, d.capture, d.model, ...others] as uPlot.AlignedData;
+}
+
+/** A colour given as `var(--name)` read from the page, since the canvas cannot. */
+function resolveColor(color: string): string {
+  const m = /^var\((--[\w-]+)\)$/.exec(color);
+  if (!m) return color;
+  return getComputedStyle(document.documentElement).getPropertyValue(m[1]).trim() || '#888';
 }
 
 // room right of the plot for the level names
@@ -209,6 +224,7 @@ export default function CaptureCanvas(props: CaptureCanvasProps) {
         {},
         { label: 'Capture', stroke: theme.stroke.ink, width: 1.5, points: { show: false }, spanGaps: true },
         { label: 'Model', stroke: theme.stroke.model, width: SERIES_DRAW.model.width, dash: SERIES_DRAW.model.dash, points: { show: false }, spanGaps: false },
+        ...(latest.current.otherSeries ?? []).map((o) => ({ label: o.label, stroke: resolveColor(o.color), width: 1.25, points: { show: false }, spanGaps: true })),
       ],
       hooks: {
         draw: [drawMarks],
@@ -224,7 +240,7 @@ export default function CaptureCanvas(props: CaptureCanvasProps) {
       },
     };
     const d = latest.current.data;
-    const u = new uPlot(opts, [d.x, d.capture, d.model] as uPlot.AlignedData, el);
+    const u = new uPlot(opts, aligned(d, latest.current.otherSeries?.length ?? 0), el);
     chart.current = u;
 
     let down: { x: number; y: number } | null = null;
@@ -248,7 +264,7 @@ export default function CaptureCanvas(props: CaptureCanvasProps) {
       u.destroy();
       chart.current = null;
     };
-  }, [themeVersion, narrow]);
+  }, [themeVersion, narrow, props.otherSeries?.map((o) => o.label + o.color).join()]);
 
   useEffect(() => {
     const u = chart.current;
@@ -258,7 +274,7 @@ export default function CaptureCanvas(props: CaptureCanvasProps) {
 
   useEffect(() => {
     // the range functions read the latest window, so new data or a new window both re-range here
-    chart.current?.setData([data.x, data.capture, data.model] as uPlot.AlignedData);
+    chart.current?.setData(aligned(data, latest.current.otherSeries?.length ?? 0));
   }, [data, xRange, yRange]);
 
   useEffect(() => {

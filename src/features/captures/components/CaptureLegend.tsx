@@ -20,13 +20,30 @@ function Dots() {
 }
 
 /** What each mark on the capture plot is. */
-export function CaptureLegend({ overlay, hasLevels, hasEdges }: { overlay: CaptureOverlayResult | null; hasLevels: boolean; hasEdges: boolean }) {
+export function CaptureLegend({
+  overlay,
+  hasLevels,
+  hasEdges,
+  channels,
+}: {
+  overlay: CaptureOverlayResult | null;
+  hasLevels: boolean;
+  hasEdges: boolean;
+  /** With several channels: the analysed one (ink) and the others with their colours. */
+  channels?: { analysed: string; others: { label: string; color: string }[] };
+}) {
   return (
     <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-muted" aria-label="Legend">
       <li className="flex items-center gap-1.5">
         <Line color="var(--ft-ink)" width={1.5} />
-        Capture
+        {channels ? `${channels.analysed} (analysed)` : 'Capture'}
       </li>
+      {channels?.others.map((o) => (
+        <li key={o.label} className="flex items-center gap-1.5">
+          <Line color={o.color} width={1.25} />
+          {o.label}
+        </li>
+      ))}
       {overlay?.ok ? (
         <li className="flex items-center gap-1.5">
           <Line color="var(--ft-agree)" width={SERIES_DRAW.model.width} dash={SERIES_DRAW.model.dash} />

@@ -1,5 +1,5 @@
 import { lazy, Suspense, useEffect, useId, useMemo, useRef, useState } from 'react';
-import { useQuery } from '@tanstack/react-query';
+import { useQueries, useQuery } from '@tanstack/react-query';
 import { captureOverlay, type CaptureOverlayResult } from '../../../../shared/diagnosis/capture-overlay';
 import { diagnosisInputFromSetup } from '../../../../shared/diagnosis/from-case-setup';
 import type { Attachment, CaseSetup } from '../../../../shared/schemas/case';
@@ -12,13 +12,21 @@ import { CaptureCursorReadout } from './CaptureCursorReadout';
 import { CaptureLegend } from './CaptureLegend';
 import { CapturePlotControls } from './CapturePlotControls';
 import { captureSummary, viewSummary } from './capture-summary';
-import { mergePlotData } from './plot-data';
+import { CaptureSettings } from './CaptureSettings';
+import { mergePlotData, withOtherTraces } from './plot-data';
+import { SpectrumPlot } from './SpectrumPlot';
+import { useUpdateCapture } from '../api/update-capture';
 import { clampWindow, panWindow, zoomWindow, type ViewWindow } from './view-window';
 
 const CaptureCanvas = lazy(() => import('./CaptureCanvas'));
 
+/** Our colours for the channels not analysed (never an instrument's channel colours). */
+export const OTHER_TRACE_COLORS = ['var(--ft-caution)', 'var(--ft-muted)'];
+
 export interface CapturePlotProps {
-  attachment: Pick<Attachment, 'id' | 'originalName' | 'analysis'>;
+  attachment: Pick<Attachment, 'id' | 'originalName' | 'analysis'> & { captureRole?: Attachment['captureRole'] };
+  /** The author (or a moderator) may switch the analysed channel and mark the capture before/after the fix. */
+  canEdit?: boolean;
   /** The case's recorded setup and the engine's diagnosis of it, for the model overlay. */
   setup: CaseSetup;
   diagnosis: DiagnosisResult | null;
@@ -72,7 +80,7 @@ function overlayFor(setup: CaseSetup, diagnosis: DiagnosisResult | null, a: Stor
  * then fetched again at full resolution), pan, two cursors, the IEEE 181 levels and measured
  * edges, and the engine's top hypothesis overlaid, dashed, at the first rising edge.
  */
-export default function CapturePlot({ attachment, setup, diagnosis, height = 300 }: CapturePlotProps) {
+export default function CapturePlot({ attachment, setup, diagnosis, height = 300, canEdit = false }: CapturePlotProps) {
   const analysis = useMemo(() => readStoredAnalysis(attachment.analysis), [attachment.analysis]);
   const { ref, width } = useWidth();
   // a few column counts only, so a window being resized does not refetch every pixel
@@ -81,8 +89,16 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
   const [cursors, setCursors] = useState<{ a?: PlotCursor; b?: PlotCursor }>({});
   const summaryId = useId();
 
-  const overview = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns }), enabled: width > 0 });
-  const zoomed = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns, fromS: view?.fromS, toS: view?.toS }), enabled: width > 0 && view !== null });
+  const overview = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns, channel: analysis.channel }), enabled: width > 0 });
+  const zoomed = useQuery({ ...captureTraceQueryOptions(attachment.id, { columns, fromS: view?.fromS, toS: view?.toS, channel: analysis.channel }), enabled: width > 0 && view !== null });
+  // every other channel on the same axis, fetched for the same window
+  const others = analysis.channels.filter((c) => c.index !== analysis.channel).slice(0, 4);
+  const otherOverviews = useQueries({ queries: others.map((c) => ({ ...captureTraceQueryOptions(attachment.id, { columns, channel: c.index }), enabled: width > 0 })) });
+  const otherZoomed = useQueries({
+    queries: others.map((c) => ({ ...captureTraceQueryOptions(attachment.id, { columns, fromS: view?.fromS, toS: view?.toS, channel: c.index }), enabled: width > 0 && view !== null })),
+  });
+  const otherSeries = useMemo(() => others.map((c, k) => ({ label: c.name, color: OTHER_TRACE_COLORS[k % OTHER_TRACE_COLORS.length] })), [others.map((c) => c.name).join()]);
+  const update = useUpdateCapture();
   const whole = overview.data;
   // until a window arrives, draw what is at hand: an earlier window that covers it, else the overview
   const zoomedFits = Boolean(view && zoomed.data && (!zoomed.isPlaceholderData || (zoomed.data.fromS <= view.fromS && zoomed.data.toS >= view.toS)));
@@ -95,17 +111,21 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
   const edges = useMemo(() => edgeMarks(analysis), [analysis]);
   const xRange = useMemo<[number, number]>(() => (view ? [view.fromS, view.toS] : extent ? [extent.startS, extent.endS] : [0, 1]), [view, extent]);
   const yRange = useMemo<[number, number]>(() => {
-    const values = [...(whole?.volts ?? []), ...levels.map((l) => l.v), ...(overlay?.ok ? overlay.overlay.volts : [])];
+    const values = [...(whole?.volts ?? []), ...otherOverviews.flatMap((q) => q.data?.volts ?? []), ...levels.map((l) => l.v), ...(overlay?.ok ? overlay.overlay.volts : [])];
     if (values.length === 0) return [0, 1];
     let low = Math.min(...values);
     let high = Math.max(...values);
     if (!(high > low)) [low, high] = [low - 0.5, high + 0.5];
     const pad = (high - low) * 0.06;
     return [low - pad, high + pad];
-  }, [whole, levels, overlay]);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [whole, levels, overlay, otherOverviews.map((q) => q.data?.volts.length ?? 0).join()]);
+  const otherTraces = (view ? otherZoomed : otherOverviews).map((q, k) => q.data ?? otherOverviews[k].data).filter((t) => t !== undefined);
+  const otherKey = otherTraces.map((t) => `${t.channel}:${t.fromS}:${t.toS}:${t.timesS.length}`).join();
   const data = useMemo(
-    () => (shown ? mergePlotData(shown, overlay?.ok ? overlay.overlay : null, xRange[0], xRange[1]) : null),
-    [shown, overlay, xRange],
+    () => (shown ? withOtherTraces(mergePlotData(shown, overlay?.ok ? overlay.overlay : null, xRange[0], xRange[1]), otherTraces.length === others.length ? otherTraces : [], xRange[0], xRange[1]) : null),
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [shown, overlay, xRange, otherKey],
   );
 
   const apply = (next: ViewWindow | null) => {
@@ -135,7 +155,50 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
   return (
     // named by aria-label, not a caption: the file name is already the heading of the list item above
     <figure className="flex min-w-0 flex-col gap-2" aria-label={`Capture ${attachment.originalName}`} aria-describedby={summaryId}>
-      <CaptureLegend overlay={overlay} hasLevels={levels.length > 0} hasEdges={edges.length > 0} />
+      <div className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
+        {analysis.channels.length > 1 && (
+          <label className="flex items-center gap-2">
+            <span className="text-muted">Analysed channel</span>
+            {canEdit ? (
+              <select
+                aria-label="Analysed channel"
+                className="rounded border border-rule bg-paper px-2 py-1 font-mono text-sm"
+                value={analysis.channel}
+                disabled={update.isPending}
+                onChange={(e) => update.mutate({ attachmentId: attachment.id, channel: Number(e.target.value) })}
+              >
+                {analysis.channels.map((c) => (
+                  <option key={c.index} value={c.index}>
+                    {c.index}: {c.name}
+                  </option>
+                ))}
+              </select>
+            ) : (
+              <span className="font-mono">{analysis.channels.find((c) => c.index === analysis.channel)?.name}</span>
+            )}
+          </label>
+        )}
+        {canEdit ? (
+          <label className="flex items-center gap-2">
+            <span className="text-muted">Taken</span>
+            <select
+              aria-label="Taken before or after the fix"
+              className="rounded border border-rule bg-paper px-2 py-1 text-sm"
+              value={attachment.captureRole ?? ''}
+              disabled={update.isPending}
+              onChange={(e) => update.mutate({ attachmentId: attachment.id, role: e.target.value === '' ? null : (e.target.value as 'before' | 'after') })}
+            >
+              <option value="">not marked</option>
+              <option value="before">before the fix</option>
+              <option value="after">after the fix</option>
+            </select>
+          </label>
+        ) : (
+          attachment.captureRole && <span className="text-muted">Taken {attachment.captureRole} the fix</span>
+        )}
+        {update.error && <span className="text-caution">{update.error.message}</span>}
+      </div>
+      <CaptureLegend overlay={overlay} hasLevels={levels.length > 0} hasEdges={edges.length > 0} channels={analysis.channels.length > 1 ? { analysed: analysis.channels.find((c) => c.index === analysis.channel)?.name ?? '', others: otherSeries } : undefined} />
       <CapturePlotControls
         zoomed={view !== null}
         busy={overview.isFetching || zoomed.isFetching}
@@ -147,6 +210,7 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
         onFirstEdge={onFirstEdge}
         onClearCursors={cursors.a ? () => setCursors({}) : undefined}
       />
+      <div className="grid min-w-0 gap-3 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
       <div ref={ref} role="img" aria-label={`Plot of the capture ${attachment.originalName}. ${summary}`} className="min-w-0" style={{ minHeight: height }}>
         {error ? (
           <Alert tone="caution" title="The trace cannot be drawn">
@@ -156,6 +220,7 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
           <Suspense fallback={<p className="flex items-center justify-center text-sm text-muted" style={{ height }}>Drawing the capture…</p>}>
             <CaptureCanvas
               data={data}
+              otherSeries={otherSeries}
               xRange={xRange}
               yRange={yRange}
               levels={levels}
@@ -173,6 +238,9 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
           </p>
         )}
       </div>
+      <SpectrumPlot analysis={analysis} />
+      </div>
+      <CaptureSettings analysis={attachment.analysis ?? {}} setup={setup} />
       <p className="text-xs text-muted">Drag across the plot to zoom into that stretch (or use the buttons); click or tap the trace to place cursor A, then B (a further click moves the nearer one).</p>
       <CaptureCursorReadout cursors={cursors} />
       <p id={summaryId} className="text-sm text-muted">

@@ -3,6 +3,8 @@ export interface CapturePlotData {
   x: number[];
   capture: (number | null)[];
   model: (number | null)[];
+  /** Further traces on the same time axis (the capture's other channels, or the capture before the fix). */
+  others: (number | null)[][];
 }
 
 /** Linear interpolation of an ascending curve at t; null outside its span. */
@@ -51,7 +53,32 @@ export function mergePlotData(
     }
   }
   const modelAt = overlay ? interpolator(overlay.timesS, overlay.volts) : () => null;
-  return { x, capture, model: x.map((t) => modelAt(t)) };
+  return { x, capture, model: x.map((t) => modelAt(t)), others: [] };
+}
+
+/**
+ * Adds further traces on the same axis: their samples are merged into x (each trace null where
+ * it has no sample of its own, drawn across the gap), so min/max columns keep their peaks.
+ */
+export function withOtherTraces(base: CapturePlotData, traces: { timesS: readonly number[]; volts: readonly number[] }[], fromS: number, toS: number): CapturePlotData {
+  if (traces.length === 0) return base;
+  const points = new Map<number, { capture: number | null; model: number | null; others: (number | null)[] }>();
+  base.x.forEach((t, i) => points.set(t, { capture: base.capture[i], model: base.model[i], others: traces.map(() => null) }));
+  traces.forEach((trace, k) => {
+    trace.timesS.forEach((t, i) => {
+      if (t < fromS || t > toS) return;
+      const at = points.get(t) ?? { capture: null, model: null, others: traces.map(() => null) };
+      at.others[k] = trace.volts[i];
+      points.set(t, at);
+    });
+  });
+  const x = [...points.keys()].sort((a, b) => a - b);
+  return {
+    x,
+    capture: x.map((t) => points.get(t)!.capture),
+    model: x.map((t) => points.get(t)!.model),
+    others: traces.map((_, k) => x.map((t) => points.get(t)!.others[k])),
+  };
 }
 
 /** Value of the capture at t, interpolated between the samples on either side. */

@@ -12,6 +12,11 @@ const FIGURES: { key: string; label: string; unit: QuantityUnit | 'count' }[] = 
   { key: 'overshootPct', label: 'Overshoot', unit: '%' },
   { key: 'ringingFrequencyHz', label: 'Ringing', unit: 'Hz' },
   { key: 'periodS', label: 'Period', unit: 's' },
+  { key: 'tiltPct', label: 'Tilt', unit: '%' },
+  { key: 'cornerPct', label: 'Corner', unit: '%' },
+  { key: 'settleTimeConstantS', label: 'Settling τ', unit: 's' },
+  { key: 'noiseRmsV', label: 'Noise rms', unit: 'V' },
+  { key: 'humFrequencyHz', label: 'Hum', unit: 'Hz' },
   { key: 'sampleIntervalS', label: 'Sample interval', unit: 's' },
   { key: 'points', label: 'Samples', unit: 'count' },
 ];
@@ -47,6 +52,22 @@ export function CaptureList({ captures, renderPlot }: { captures: Attachment[]; 
               </dl>
             ) : (
               <p className="mt-1 text-xs text-muted">No analysis figures for this capture.</p>
+            )}
+            {typeof a.shape === 'string' && (
+              <p className="mt-1 text-sm">
+                Shape <span className="font-mono">{a.shape}</span>
+                {a.clipped === true && <span className="text-caution"> · clipped at the rails</span>}
+              </p>
+            )}
+            {Array.isArray(a.notes) && a.notes.length > 0 && (
+              <details className="mt-1 text-xs text-muted">
+                <summary className="cursor-pointer">How the file was read ({a.notes.length} note{a.notes.length === 1 ? '' : 's'})</summary>
+                <ul className="mt-1 list-disc pl-5">
+                  {(a.notes as string[]).map((n) => (
+                    <li key={n}>{n}</li>
+                  ))}
+                </ul>
+              </details>
             )}
           </li>
         );

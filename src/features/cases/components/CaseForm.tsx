@@ -20,6 +20,7 @@ import { AutosaveStatus } from './AutosaveStatus';
 import { CaseFormActions } from './CaseFormActions';
 import { CauseSection } from './CauseSection';
 import { FillObservedFromCapture } from './FillObservedFromCapture';
+import { FillSetupFromCapture } from './FillSetupFromCapture';
 import { LessonSection } from './LessonSection';
 import { LiveDiagnosisPanel } from './LiveDiagnosisPanel';
 import { RestoreDraftBanner } from './RestoreDraftBanner';
@@ -134,7 +135,12 @@ export function CaseForm({ initialCase, userId, onCreated }: CaseFormProps) {
             uploads={uploads.items}
             onFiles={uploads.start}
             onDismiss={uploads.dismiss}
-            renderCaptureOffer={(capture) => <FillObservedFromCapture form={form} capture={capture} />}
+            renderCaptureOffer={(capture) => (
+              <div className="flex flex-col gap-2">
+                <FillSetupFromCapture form={form} capture={capture} />
+                <FillObservedFromCapture form={form} capture={capture} />
+              </div>
+            )}
           />
           <CauseSection form={form} />
           <LessonSection form={form} />

@@ -63,13 +63,15 @@ export interface CasePageProps {
   caseId: number;
   /** The plot of one capture attachment; the route supplies it, since it belongs to the captures feature. */
   renderCapturePlot?: (capture: Attachment, c: Case) => ReactNode;
+  /** The captures marked before and after the fix, compared (the captures feature supplies it). */
+  renderCaptureComparison?: (c: Case) => ReactNode;
   /** Slots the route fills from other features: a watch button, the audit trail, similar cases. */
   headerExtras?: ReactNode;
   afterHistory?: ReactNode;
   sideExtras?: ReactNode;
 }
 
-export function CasePage({ caseId, renderCapturePlot, headerExtras, afterHistory, sideExtras }: CasePageProps) {
+export function CasePage({ caseId, renderCapturePlot, renderCaptureComparison, headerExtras, afterHistory, sideExtras }: CasePageProps) {
   const q = useCase(caseId);
   if (q.isPending) return <Loading what="Loading the case" />;
   if (q.isError) {
@@ -148,6 +150,7 @@ export function CasePage({ caseId, renderCapturePlot, headerExtras, afterHistory
             <Section id="attachments" title="Screenshots and captures" className="order-4 lg:order-none">
               <div className="flex flex-col gap-4">
                 <ScreenshotGallery shots={shots} />
+                {renderCaptureComparison?.(c)}
                 <CaptureList captures={captures} renderPlot={renderCapturePlot && ((a) => renderCapturePlot(a, c))} />
               </div>
             </Section>

@@ -1,0 +1,61 @@
+/** Flat runs at the extremes of a trace: where the signal sat on a rail. */
+export interface Rails {
+  /** Samples exactly at the maximum, and the longest unbroken run of them. */
+  atMax: number;
+  longestAtMax: number;
+  atMin: number;
+  longestAtMin: number;
+  maxV: number;
+  minV: number;
+  /** Samples just short of the maximum (within 2 % of the range) and just above the minimum. */
+  nearMax: number;
+  nearMin: number;
+}
+
+// A rail is a run of at least this many identical samples holding this share of the record.
+export const MIN_RAIL_RUN = 4;
+export const MIN_RAIL_SHARE = 0.005;
+
+/** Counts the samples sitting exactly on the maximum and on the minimum, in one pass. */
+export function findRails(volts: Float64Array): Rails {
+  let maxV = Number.NEGATIVE_INFINITY;
+  let minV = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < volts.length; i++) {
+    const v = volts[i];
+    if (v > maxV) maxV = v;
+    if (v < minV) minV = v;
+  }
+  let atMax = 0;
+  let atMin = 0;
+  let runMax = 0;
+  let runMin = 0;
+  let longestAtMax = 0;
+  let longestAtMin = 0;
+  const nearV = 0.02 * (maxV - minV);
+  let nearMax = 0;
+  let nearMin = 0;
+  for (let i = 0; i < volts.length; i++) {
+    const v = volts[i];
+    if (v < maxV && v > maxV - nearV) nearMax++;
+    if (v > minV && v < minV + nearV) nearMin++;
+    if (v === maxV) {
+      atMax++;
+      if (++runMax > longestAtMax) longestAtMax = runMax;
+    } else runMax = 0;
+    if (v === minV) {
+      atMin++;
+      if (++runMin > longestAtMin) longestAtMin = runMin;
+    } else runMin = 0;
+  }
+  return { atMax, longestAtMax, atMin, longestAtMin, maxV, minV, nearMax, nearMin };
+}
+
+/**
+ * A rail: a run of identical samples on the extreme, holding a share of the record, and at least
+ * twice as many samples as the 2 % of the range just inside it. A signal that turns at its peak
+ * (a finely sampled, quantised sine) dwells about as long just below its top code as on it; one
+ * cut off by a rail arrives steeply and piles up on it.
+ */
+export function isRail(count: number, longest: number, near: number, total: number): boolean {
+  return longest >= MIN_RAIL_RUN && count >= MIN_RAIL_SHARE * total && count >= 2 * near;
+}

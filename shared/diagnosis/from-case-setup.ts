@@ -4,30 +4,18 @@ import type { DiagnosisInput } from '../schemas/diagnosis';
 /**
  * The engine's input from a case's recorded setup. The probe ratio in effect is the switch
  * position when one is recorded, else the nominal ratio; a bandwidth-limit filter counts only
- * when it was switched on.
+ * when it was switched on. Every other recorded field passes through unchanged; what only a
+ * person reads (models, node description, the observation's words) stays behind.
  */
 export function diagnosisInputFromSetup(setup: CaseSetup | undefined): DiagnosisInput {
-  const probe = setup?.probe ?? {};
-  const scope = setup?.scope ?? {};
+  const { model: _probeModel, nominalAttenuation, switchable: _switchable, ...probe } = setup?.probe ?? {};
+  const { model: _scopeModel, bandwidthLimitOn, bandwidthLimitHz, ...scope } = setup?.scope ?? {};
+  const { nodeDescription: _node, ...circuit } = setup?.circuit ?? {};
   const { description: _description, ...observed } = setup?.observed ?? {};
   return {
-    probe: {
-      attenuation: probe.attenuation ?? probe.nominalAttenuation,
-      tipCapacitanceF: probe.tipCapacitanceF,
-      groundLeadM: probe.groundLeadM,
-      bandwidthHz: probe.bandwidthHz,
-      tipResistanceOhm: probe.tipResistanceOhm,
-      groundKind: probe.groundKind,
-      groundWireRadiusM: probe.groundWireRadiusM,
-    },
-    scope: {
-      attenuationSetting: scope.attenuationSetting,
-      inputResistanceOhm: scope.inputResistanceOhm,
-      inputCapacitanceF: scope.inputCapacitanceF,
-      bandwidthHz: scope.bandwidthHz,
-      bandwidthLimitHz: scope.bandwidthLimitOn ? scope.bandwidthLimitHz : undefined,
-    },
-    circuit: { sourceResistanceOhm: setup?.circuit?.sourceResistanceOhm },
+    probe: { ...probe, attenuation: probe.attenuation ?? nominalAttenuation },
+    scope: { ...scope, bandwidthLimitHz: bandwidthLimitOn ? bandwidthLimitHz : undefined },
+    circuit,
     signal: setup?.signal ?? {},
     observed,
   };

@@ -82,7 +82,7 @@ export function reviewChecklist(c: Case): CheckItem[] {
   const risks = c.diagnosis?.risks ?? [];
   const needed = risks.length > 0 || caseNeedsSafetyNote(c);
   const note = c.safetyNote?.trim() ?? '';
-  const why = risks.length > 0 ? `The engine raises ${risks.length === 1 ? 'a risk' : `${risks.length} risks`}: ${risks.map((r) => r.message).join(' ')}` : 'Mains or a hazardous-live voltage is recorded.';
+  const why = risks.length > 0 ? `The engine raises ${risks.length === 1 ? 'a risk' : `${risks.length} risks`}: ${risks.map((r) => r.message).join(' ')}` : 'Mains, or a voltage above our warning level, is recorded.';
   const safety: CheckItem = {
     id: 'safety',
     label: 'Safety note present where needed',

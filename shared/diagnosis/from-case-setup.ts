@@ -2,10 +2,10 @@ import type { CaseSetup } from '../schemas/case';
 import type { DiagnosisInput } from '../schemas/diagnosis';
 
 /**
- * The engine's input from a case's recorded setup. The probe ratio in effect is the switch
- * position when one is recorded, else the nominal ratio; a bandwidth-limit filter counts only
- * when it was switched on. Every other recorded field passes through unchanged; what only a
- * person reads (models, node description, the observation's words) stays behind.
+ * The engine's input from a case's recorded setup: every engine field the case records,
+ * without the words an engineer adds (models, descriptions). The probe ratio in effect is the
+ * switch position when one is recorded, else the nominal ratio; a bandwidth-limit filter
+ * counts only when it was switched on.
  */
 export function diagnosisInputFromSetup(setup: CaseSetup | undefined): DiagnosisInput {
   const { model: _probeModel, nominalAttenuation, switchable: _switchable, ...probe } = setup?.probe ?? {};

@@ -13,12 +13,19 @@ export interface CheckItem {
 
 const normal = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, ' ').trim();
 
-/** Whether the recorded setup touches mains or a hazardous-live voltage, whatever the engine says (a floor under its risks). */
+/**
+ * Whether the recorded setup touches mains, a hazardous-live voltage or a reference node that
+ * far from earth (a peak value), whatever the engine says: a floor under its risks.
+ */
 export function caseNeedsSafetyNote(c: Pick<Case, 'setup'>): boolean {
   const circuit = c.setup.circuit;
   if (circuit?.mainsConnected) return true;
   const v = circuit?.highestVoltageV;
-  return typeof v === 'number' && hazardousLive({ highestVoltageV: v }).hazardous;
+  const ref = circuit?.referenceV;
+  return (
+    (typeof v === 'number' && hazardousLive({ highestVoltageV: v }).hazardous) ||
+    (typeof ref === 'number' && hazardousLive({ highestVoltageV: ref, kind: 'peak' }).hazardous)
+  );
 }
 
 const ENGINE_LABEL = 'Engine agrees with the stated cause';
@@ -82,7 +89,7 @@ export function reviewChecklist(c: Case): CheckItem[] {
   const risks = c.diagnosis?.risks ?? [];
   const needed = risks.length > 0 || caseNeedsSafetyNote(c);
   const note = c.safetyNote?.trim() ?? '';
-  const why = risks.length > 0 ? `The engine raises ${risks.length === 1 ? 'a risk' : `${risks.length} risks`}: ${risks.map((r) => r.message).join(' ')}` : 'Mains, or a voltage above our warning level, is recorded.';
+  const why = risks.length > 0 ? `The engine raises ${risks.length === 1 ? 'a risk' : `${risks.length} risks`}: ${risks.map((r) => r.message).join(' ')}` : 'Mains, a voltage above our warning level or a reference node that far from earth is recorded.';
   const safety: CheckItem = {
     id: 'safety',
     label: 'Safety note present where needed',

@@ -29,12 +29,18 @@ export function hazardousLiveCitation(ours: Levels = HAZARDOUS_LIVE_LIMITS): str
  * Reasons for the caution read from the recorded setup alone (a floor under the engine's risks),
  * worded so our own warning level is never passed off as the standard's.
  */
-export function setupSafetyReasons(circuit: { mainsConnected?: boolean | null; highestVoltageV?: number | null } | null | undefined): string[] {
+export function setupSafetyReasons(
+  circuit: { mainsConnected?: boolean | null; highestVoltageV?: number | null; referenceV?: number | null } | null | undefined,
+): string[] {
   const reasons: string[] = [];
   if (circuit?.mainsConnected) reasons.push('The equipment is connected to the mains.');
   const volts = circuit?.highestVoltageV;
   if (typeof volts === 'number' && hazardousLive({ highestVoltageV: volts }).hazardous) {
     reasons.push(`${formatEngineering(Math.abs(volts), 'V')} is present in the circuit, above Falsetrace's own warning level of ${HAZARDOUS_LIVE_LIMITS.acRmsV} V.`);
+  }
+  const ref = circuit?.referenceV;
+  if (typeof ref === 'number' && hazardousLive({ highestVoltageV: ref, kind: 'peak' }).hazardous) {
+    reasons.push(`The probe's ground or reference sits on a node ${formatEngineering(Math.abs(ref), 'V')} from earth, above Falsetrace's own warning level of ${HAZARDOUS_LIVE_LIMITS.peakV} V peak.`);
   }
   return reasons;
 }

@@ -120,3 +120,11 @@ describe('review checklist: safety note', () => {
     expect(check(aCase({ setup: { circuit: { mainsConnected: true } } }), 'safety').state).toBe('attention');
   });
 });
+
+describe('review checklist: safety floor from the recorded setup', () => {
+  it('should ask for a note when the reference node sits above our warning level from earth', () => {
+    // 60 V peak is above 42.4 V, our own peak warning level (IEC 61010-1:2010 6.3.1 itself says 46.7 V peak)
+    expect(check(aCase({ setup: { circuit: { referenceV: 60 }, observed: { amplitudeV: 1 } } }), 'safety').state).toBe('attention');
+    expect(check(aCase({ setup: { circuit: { referenceV: 5 }, observed: { amplitudeV: 1 } } }), 'safety').state).toBe('not_needed');
+  });
+});

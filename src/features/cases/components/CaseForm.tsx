@@ -72,7 +72,12 @@ export function CaseForm({ initialCase, userId, onCreated }: CaseFormProps) {
 
   const circuit = useWatch({ control: form.control, name: 'setup.circuit' });
   const volts = readQuantity(circuit.highestVoltageV, 'V');
-  const setupReasons = setupSafetyReasons({ mainsConnected: circuit.mainsConnected === 'yes', highestVoltageV: volts.kind === 'ok' ? volts.value : undefined });
+  const reference = readQuantity(circuit.referenceV, 'V');
+  const setupReasons = setupSafetyReasons({
+    mainsConnected: circuit.mainsConnected === 'yes',
+    highestVoltageV: volts.kind === 'ok' ? volts.value : undefined,
+    referenceV: reference.kind === 'ok' ? reference.value : undefined,
+  });
   const liveDiagnosis = useLiveDiagnosis(form);
   const risks = liveDiagnosis.result?.risks ?? [];
 

@@ -36,11 +36,11 @@ export function setupSafetyReasons(
   if (circuit?.mainsConnected) reasons.push('The equipment is connected to the mains.');
   const volts = circuit?.highestVoltageV;
   if (typeof volts === 'number' && hazardousLive({ highestVoltageV: volts }).hazardous) {
-    reasons.push(`${formatEngineering(Math.abs(volts), 'V')} is present in the circuit, above Falsetrace's own warning level of ${HAZARDOUS_LIVE_LIMITS.acRmsV} V.`);
+    reasons.push(`${formatEngineering(Math.abs(volts), 'V')} is present in the circuit, above the level from which Falsetrace cautions.`);
   }
   const ref = circuit?.referenceV;
   if (typeof ref === 'number' && hazardousLive({ highestVoltageV: ref, kind: 'peak' }).hazardous) {
-    reasons.push(`The probe's ground or reference sits on a node ${formatEngineering(Math.abs(ref), 'V')} from earth, above Falsetrace's own warning level of ${HAZARDOUS_LIVE_LIMITS.peakV} V peak.`);
+    reasons.push(`The probe's ground or reference sits on a node ${formatEngineering(Math.abs(ref), 'V')} from earth, above the level from which Falsetrace cautions.`);
   }
   return reasons;
 }

@@ -1,6 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { screenshot, signIn, skipBrowser } from './helpers/browser';
+import path from 'node:path';
+import { SCREENSHOT_DIR, screenshot, signIn, skipBrowser } from './helpers/browser';
 import { saved } from './helpers/case-form';
 import { useRealApp } from './helpers/real-app';
 
@@ -110,6 +111,10 @@ describe.skipIf(skipBrowser)('verdicts, new setup fields and the safety note in 
     await page.getByLabel('Safety note').fill(note);
     await saved(page);
     await screenshot(page, 'case-form-new-groups');
+    // the live panel leads with the verdict; shot on its own, since the full page cannot show a sticky column
+    const panel = page.getByRole('region', { name: 'Live diagnosis' });
+    await panel.getByTestId('verdict').waitFor();
+    await panel.screenshot({ path: path.join(SCREENSHOT_DIR, 'case-form-live-panel.png') });
 
     const caseId = Number(/\/cases\/(\d+)\/edit/.exec(page.url())?.[1]);
     expect(caseId).toBeGreaterThan(0);
@@ -118,7 +123,7 @@ describe.skipIf(skipBrowser)('verdicts, new setup fields and the safety note in 
     await page.getByText(note).waitFor();
     await page.getByText('1 MSa/s', { exact: true }).waitFor();
     await page.getByText('20 mV/div', { exact: true }).waitFor();
-    await page.locator('#diagnosis').getByTestId('verdict').waitFor();
+    await page.getByTestId('verdict').first().waitFor();
     await screenshot(page, 'case-page-safety-note');
 
     await page.goto(`${app.server.baseUrl}/cases/${caseId}/edit`);

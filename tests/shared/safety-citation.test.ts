@@ -24,7 +24,7 @@ describe('safety reasons from the recorded setup', () => {
     const { setupSafetyReasons } = await import('../../shared/safety/iec-61010');
     expect(setupSafetyReasons({ mainsConnected: true })).toEqual(['The equipment is connected to the mains.']);
     const [reason] = setupSafetyReasons({ highestVoltageV: 325 });
-    expect(reason).toMatch(/^325 V is present in the circuit, above Falsetrace's own warning level/);
+    expect(reason).toMatch(/^325 V is present in the circuit, above the level from which Falsetrace cautions/);
     expect(setupSafetyReasons({ highestVoltageV: 12, mainsConnected: false })).toEqual([]);
     expect(setupSafetyReasons(null)).toEqual([]);
   });

@@ -10,6 +10,9 @@ export interface SafetyCautionProps {
   compact?: boolean;
 }
 
+// the caution list may carry the standard's citation itself; cite it once
+const CITED_IN_LIST = SAFETY_CAUTIONS.some((c) => c.includes('61010'));
+
 function Cautions() {
   return (
     <>
@@ -18,7 +21,7 @@ function Cautions() {
           <li key={c}>{c}</li>
         ))}
       </ul>
-      <p className="mt-2 text-xs">{hazardousLiveCitation()}</p>
+      {!CITED_IN_LIST && <p className="mt-2 text-xs">{hazardousLiveCitation()}</p>}
     </>
   );
 }

@@ -25,6 +25,11 @@ export type CaptureOverlayResult = { ok: true; overlay: CaptureOverlay } | { ok:
 
 const LN9 = Math.log(9);
 
+/** Causes whose prediction is a height on the screen: drawn as the level the top would reach. */
+const LEVEL_CAUSES: ReadonlySet<Hypothesis['cause']> = new Set(['attenuation-mismatch', 'termination-mismatch', 'clipping', 'common-mode', 'generator-load']);
+/** Causes that predict a frequency, a droop or hum, not an edge: compared in numbers, not drawn over a capture. */
+const NO_EDGE_CAUSES: ReadonlySet<Hypothesis['cause']> = new Set(['aliasing', 'ac-coupling', 'mains-pickup']);
+
 /** First time the ascending-in-time curve reaches `level`, linearly interpolated; undefined when it never does. */
 function crossingS(x: readonly number[], y: readonly number[], level: number): number | undefined {
   for (let i = 1; i < x.length; i++) {
@@ -71,7 +76,7 @@ function unitShape(input: DiagnosisInput, hypothesis: Hypothesis): UnitShape | {
  * step, the ground-lead ringing, a bandwidth or loading edge) are scaled from the capture's
  * base to its top level and shifted so the model's 50 % point sits on the first rising edge's
  * t50 (the first edge, mirrored, when the capture only falls); they run until the next edge
- * starts. Amplitude models (attenuation, termination) say only how tall the trace should be,
+ * starts. Amplitude models (attenuation, termination, clipping, common mode, generator load) say only how tall the trace should be,
  * so they are drawn as a level: base + the predicted amplitude, across the capture.
  *
  * @param input the case's setup as the engine reads it (`diagnosisInputFromSetup`)
@@ -83,7 +88,10 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   const { baseV, topV } = anchor;
   if (baseV === null || topV === null || !(topV > baseV)) return { ok: false, reason: 'the capture has no two levels to scale a model to' };
   const name = CAUSE_LABELS[hypothesis.cause];
-  if (hypothesis.cause === 'attenuation-mismatch' || hypothesis.cause === 'termination-mismatch') {
+  if (NO_EDGE_CAUSES.has(hypothesis.cause)) {
+    return { ok: false, reason: `the ${name.toLowerCase()} model predicts a frequency, droop or hum rather than an edge, so it is compared in numbers (see its plot) and not drawn over the capture` };
+  }
+  if (LEVEL_CAUSES.has(hypothesis.cause)) {
     const predictedV = hypothesis.predicted.amplitudeV;
     if (predictedV === undefined) return { ok: false, reason: 'record the expected amplitude so the engine can predict how tall the trace should be' };
     const levelV = baseV + predictedV;

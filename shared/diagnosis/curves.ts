@@ -10,6 +10,7 @@ import { shownAmplitudeV } from './attenuation-mismatch';
 import { LOW_IMPEDANCE_INPUT_OHM, terminationShownRatio } from './termination-mismatch';
 import { geometricGrid, rampResponse, stepGrid } from './curve-grids';
 import { eng, factor, percent } from './wording';
+import { acCouplingPlot, aliasingPlot, clippingPlot, commonModePlot, generatorLoadPlot } from './curves-acquisition';
 
 /** What a curve stands for: a measurement, the model's prediction, or the error-free picture. */
 export type CurveRole = 'observed' | 'model' | 'reference';
@@ -25,9 +26,9 @@ export interface LinePlot {
   kind: 'line';
   title: string;
   x: number[];
-  xUnit: 's' | 'Hz';
-  /** 'V' for volts shown at the scope; '' for a plain ratio (shown/true). */
-  yUnit: 'V' | '';
+  xUnit: 's' | 'Hz' | 'Ω';
+  /** 'V' for volts shown at the scope; '' for a plain ratio (shown/true); 'Hz' or 'dB' for the acquisition plots. */
+  yUnit: 'V' | '' | 'Hz' | 'dB';
   xLabel: string;
   yLabel: string;
   logX: boolean;
@@ -71,6 +72,16 @@ export function diagnosisPlot(input: DiagnosisInput, cause: HypothesisCause, hyp
     case 'attenuation-mismatch':
     case 'termination-mismatch':
       return amplitudeBars(input, setup, cause, hypothesis?.predicted.amplitudeV);
+    case 'aliasing':
+      return aliasingPlot(input, setup, hypothesis);
+    case 'clipping':
+      return clippingPlot(setup, hypothesis);
+    case 'ac-coupling':
+      return acCouplingPlot(setup, hypothesis);
+    case 'common-mode':
+      return commonModePlot(setup, hypothesis);
+    case 'generator-load':
+      return generatorLoadPlot(input, setup, hypothesis);
     default:
       return null;
   }

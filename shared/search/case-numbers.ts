@@ -20,6 +20,11 @@ export interface CaseNumbers {
   riseTimeS?: number;
   ringingFrequencyHz?: number;
   overshootPct?: number;
+  sampleRateHz?: number;
+  /** The frequency the screen showed (an alias when it differs from the signal's). */
+  shownFrequencyHz?: number;
+  tiltPct?: number;
+  humFrequencyHz?: number;
 }
 
 const positive = (v: number | null | undefined) => (typeof v === 'number' && Number.isFinite(v) && v > 0 ? v : undefined);
@@ -44,6 +49,10 @@ export function caseNumbersOf(setup: CaseSetup | null | undefined): CaseNumbers 
     riseTimeS: positive(s.observed?.riseTimeS),
     ringingFrequencyHz: positive(s.observed?.ringingFrequencyHz),
     overshootPct: typeof s.observed?.overshootPct === 'number' ? s.observed.overshootPct : undefined,
+    sampleRateHz: positive(s.scope?.sampleRateHz),
+    shownFrequencyHz: positive(s.observed?.frequencyHz),
+    tiltPct: typeof s.observed?.tiltPct === 'number' ? s.observed.tiltPct : undefined,
+    humFrequencyHz: positive(s.observed?.humFrequencyHz),
   };
   return Object.fromEntries(Object.entries(n).filter(([, v]) => v !== undefined)) as CaseNumbers;
 }
@@ -51,10 +60,11 @@ export function caseNumbersOf(setup: CaseSetup | null | undefined): CaseNumbers 
 /**
  * How far apart one number is in two cases, in units of "a decade": |log10(a/b)| for the
  * quantities that span decades; overshoot compares the level it reaches, ln((1+a)/(1+b))/0.2,
- * so 15 % and 35 % are one unit apart.
+ * so 15 % and 35 % are one unit apart; tilt the level a top ends at, ln((1−a)/(1−b))/0.2.
  */
 function gap(key: keyof CaseNumbers, a: number, b: number): number {
   if (key === 'overshootPct') return Math.abs(Math.log(Math.max(0.01, 1 + a / 100) / Math.max(0.01, 1 + b / 100))) / 0.2;
+  if (key === 'tiltPct') return Math.abs(Math.log(Math.max(0.01, 1 - a / 100) / Math.max(0.01, 1 - b / 100))) / 0.2;
   return Math.abs(Math.log10(a / b));
 }
 

@@ -17,10 +17,26 @@ export type Fact =
   | { kind: 'input'; ohm: number }
   | { kind: 'ground-lead'; m: number }
   | { kind: 'bandwidth-limit'; hz: number }
-  | { kind: 'square' };
+  | { kind: 'square' }
+  | { kind: 'alias'; shownHz?: number; signalHz?: number }
+  | { kind: 'clipped' }
+  | { kind: 'tilt'; pct?: number }
+  | { kind: 'hum'; hz?: number }
+  | { kind: 'ac-coupling' };
 
 /** Facts that describe the trace itself; the rest only describe the setup around it. */
-export const SYMPTOM_KINDS: ReadonlySet<Fact['kind']> = new Set(['amplitude', 'ringing', 'overshoot', 'slow-edges', 'roll-off', 'dc-sag']);
+export const SYMPTOM_KINDS: ReadonlySet<Fact['kind']> = new Set([
+  'amplitude',
+  'ringing',
+  'overshoot',
+  'slow-edges',
+  'roll-off',
+  'dc-sag',
+  'alias',
+  'clipped',
+  'tilt',
+  'hum',
+]);
 
 const NUM = String.raw`(\d+(?:\.\d+)?)`;
 const WORD_RATIO: Record<string, number> = { ten: 10, hundred: 100, thousand: 1000 };
@@ -35,6 +51,11 @@ const seconds = (n: string, unit: string) => Number(n) * ({ ps: 1e-12, ns: 1e-9,
 const volts = (n: string, unit: string) => Number(n) * ({ mv: 1e-3, v: 1, kv: 1e3 }[unit] ?? 1);
 const metres = (n: string, unit: string) => Number(n) * ({ mm: 1e-3, cm: 1e-2, in: 0.0254, m: 1 }[unit] ?? 1);
 const timesOf = (m: RegExpMatchArray) => Number(m[1] ?? m[2] ?? WORD_RATIO[m[3]]);
+/** "a few" stands for 3 of a unit (our choice); a bare prefix ("where the clock is MHz") for 1. */
+const FEW = 3;
+const hertzOrFew = (n: string | undefined, prefix: string | undefined) => hertz(n === undefined ? '1' : n === 'a few' ? String(FEW) : n, prefix);
+/** A shown frequency below the true one is an alias; anything else is not read as one. */
+const aliasFacts = (shownHz: number, signalHz: number): Fact[] => (shownHz < signalHz ? [{ kind: 'alias', shownHz, signalHz }] : []);
 
 interface Rule {
   re: RegExp;
@@ -43,8 +64,23 @@ interface Rule {
 
 const V = String.raw`${NUM}\s*(mv|v|kv)\b`;
 
+/** A frequency, "a few kHz", or a bare prefix ("MHz"); `FREQ_STATED` needs the number. */
+const FREQ = String.raw`(a few|${NUM})?\s*(k|m|g)?hz\b`;
+const FREQ_STATED = String.raw`(a few|${NUM})\s*(k|m|g)?hz\b`;
+
 // Ordered: a phrase a rule consumes is not read again by a later, looser rule.
 const RULES: Rule[] = [
+  // acquisition symptoms first: their words ("droop", "clip", "kHz") are read more loosely below
+  { re: new RegExp(String.raw`\b(?:hum|buzz)\w*\s+(?:at\s+|of\s+)?${NUM}\s*hz\b|${NUM}\s*hz\s+(?:hum|buzz|pickup|noise)`), facts: (m) => [{ kind: 'hum', hz: Number(m[1] ?? m[2]) }] },
+  { re: /\bhum(?:s|ming)?\b|\bground\s+loops?\b|\bmains\s+(?:noise|pickup|interference)/, facts: () => [{ kind: 'hum' }] },
+  { re: new RegExp(String.raw`${FREQ_STATED}[^.]{0,40}?\b(?:where|instead of|but|while|though|although|when)\b[^.]{0,40}?\b${FREQ}`), facts: (m) => aliasFacts(hertzOrFew(m[1], m[3]), hertzOrFew(m[4], m[6])) },
+  { re: /\blooks?\s+slower\s+than\s+it\s+is|\bsample\s*rate\s+(?:is\s+|was\s+)?too\s+low|\bunder-?sampl\w*|\balias\w*|\btoo\s+few\s+samples/, facts: () => [{ kind: 'alias' }] },
+  { re: /\btops?\s+(?:are\s+|look\s+|got\s+)?(?:flat(?:tened)?|cut(?:\s+off)?|chopped|squashed)|\bflat(?:tened)?\s+tops?|\bclipp(?:ed|ing)\b|\bcut\s+off\s+at\s+the\s+(?:top|bottom|edge)|\b(?:runs?|goes|went)\s+off\s+(?:the\s+)?(?:top|bottom|screen)/, facts: () => [{ kind: 'clipped' }] },
+  { re: /\bac[\s-]*coupl\w*\s+(?:droop\w*|tilt\w*|sag\w*)/, facts: () => [{ kind: 'tilt' }, { kind: 'ac-coupling' }, { kind: 'square' }] },
+  { re: new RegExp(String.raw`${NUM}\s*%\s*(?:droop|tilt|sag)|(?:droop|tilt)\w*\s+(?:of\s+|by\s+|about\s+)?${NUM}\s*%`), facts: (m) => [{ kind: 'tilt', pct: Number(m[1] ?? m[2]) }, { kind: 'square' }] },
+  { re: /\btops?\s+(?:are\s+|look\s+)?(?:droop\w*|tilt\w*|sag\w*|slop\w*)|\b(?:droop\w*|tilt\w*|sloping)\s+tops?/, facts: () => [{ kind: 'tilt' }, { kind: 'square' }] },
+  { re: /\bac[\s-]*coupl\w*/, facts: () => [{ kind: 'ac-coupling' }] },
+  { re: /\b(?:reads?|shows?|displays?|measures?)\s+(?:about\s+)?(?:double|twice)\b|\bdouble\s+the\s+(?:set|expected)\b|\btwice\s+(?:the\s+)?(?:set\s+|expected\s+)?(?:amplitude|voltage|level)/, facts: () => [{ kind: 'amplitude', ratio: 2 }] },
   { re: new RegExp(String.raw`${V}\s*(?:instead of|rather than|not|vs\.?|versus|against|but expected|expected)\s*${V}`), facts: (m) => [{ kind: 'amplitude', ratio: volts(m[1], m[2]) / volts(m[3], m[4]) }] },
   { re: new RegExp(String.raw`expected\s+${V}.{0,40}?\b(?:got|reads?|saw|see|shows?|showed|measured|displays?)\s+${V}`), facts: (m) => [{ kind: 'amplitude', ratio: volts(m[3], m[4]) / volts(m[1], m[2]) }] },
   { re: new RegExp(String.raw`${TIMES}\s+(?:too\s+)?${SMALL}\b`), facts: (m) => [{ kind: 'amplitude', ratio: 1 / timesOf(m) }] },

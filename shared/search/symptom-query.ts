@@ -10,6 +10,8 @@ export interface SymptomNumbers {
   ringingFrequencyHz?: number;
   overshootPct?: number;
   riseTimeS?: number;
+  tiltPct?: number;
+  humFrequencyHz?: number;
 }
 
 export interface SymptomReading {
@@ -50,6 +52,11 @@ const UNSTATED = {
   rollOffHz: 10e6,
   rollOffRatio: 0.5,
   sagRatio: 0.9,
+  aliasSignalHz: 1e6, // a clock, the usual thing to alias
+  aliasShownRatio: 1 / 500, // "a few kHz where the clock is MHz"
+  droopSquareHz: 100, // AC-coupling droop shows on slow squares
+  tiltPct: 10,
+  humHz: 50, // the mains frequency of most of the world
 } as const;
 
 /** Below this a cause is not named in the reading (the engine's own tag threshold). */
@@ -81,6 +88,8 @@ function inputOf(facts: Fact[]): { input: DiagnosisInput; observations: string[]
   if (lead) probe.groundLeadM = lead.m;
   const limit = first(facts, 'bandwidth-limit');
   if (limit) scope.bandwidthLimitHz = limit.hz;
+  const acCoupling = first(facts, 'ac-coupling');
+  if (acCoupling) scope.coupling = 'ac';
 
   const amplitude = first(facts, 'amplitude');
   if (first(facts, 'roll-off')) {
@@ -131,11 +140,39 @@ function inputOf(facts: Fact[]): { input: DiagnosisInput; observations: string[]
     observations.push(slow.riseS ? `rise time ${formatEngineering(slow.riseS, 's')}` : 'rounded edges');
   }
 
+  const alias = first(facts, 'alias');
+  if (alias) {
+    signal.kind ??= 'square';
+    const signalHz = alias.signalHz ?? signal.frequencyHz ?? UNSTATED.aliasSignalHz;
+    signal.frequencyHz = signalHz;
+    observed.frequencyHz = alias.shownHz ?? signalHz * UNSTATED.aliasShownRatio;
+    observations.push(alias.shownHz ? `${formatEngineering(alias.shownHz, 'Hz')} shown for ${formatEngineering(signalHz, 'Hz')}` : 'looks slower than it is');
+  }
+  if (first(facts, 'clipped')) {
+    observed.clipped = true;
+    observations.push('tops cut flat (clipped)');
+  }
+  const tilt = first(facts, 'tilt');
+  if (tilt) {
+    signal.kind = 'square';
+    signal.frequencyHz ??= UNSTATED.droopSquareHz;
+    observed.tiltPct = tilt.pct ?? UNSTATED.tiltPct;
+    if (tilt.pct !== undefined) numbers.tiltPct = tilt.pct;
+    observations.push(tilt.pct === undefined ? 'tops droop' : `tops droop ${Number(tilt.pct.toPrecision(3))} %`);
+  }
+  const hum = first(facts, 'hum');
+  if (hum) {
+    observed.humFrequencyHz = hum.hz ?? UNSTATED.humHz;
+    if (hum.hz !== undefined) numbers.humFrequencyHz = hum.hz;
+    observations.push(hum.hz === undefined ? 'hum' : `hum at ${formatEngineering(hum.hz, 'Hz')}`);
+  }
+
   if (p && s && p.ratio !== s.ratio) observations.push(`${p.ratio}x probe read as ${s.ratio}x`);
   else if (p && !s && !amplitude) observations.push(`${p.ratio}x probe`);
   if (input) observations.push(`${input.ohm} Ω input`);
   if (lead) observations.push(`${formatEngineering(lead.m, 'm')} ground lead`);
   if (limit) observations.push(`${formatEngineering(limit.hz, 'Hz')} bandwidth limit`);
+  if (acCoupling) observations.push('AC coupling');
 
   return { input: { probe, scope, signal, observed }, observations, numbers };
 }
@@ -144,7 +181,7 @@ function inputOf(facts: Fact[]): { input: DiagnosisInput; observations: string[]
 const suspectSetup = (facts: Fact[]) => {
   const p = first(facts, 'probe');
   const s = first(facts, 'setting');
-  return Boolean((p && s && p.ratio !== s.ratio) || first(facts, 'input') || first(facts, 'ground-lead') || first(facts, 'bandwidth-limit'));
+  return Boolean((p && s && p.ratio !== s.ratio) || first(facts, 'input') || first(facts, 'ground-lead') || first(facts, 'bandwidth-limit') || first(facts, 'ac-coupling'));
 };
 
 /**

@@ -76,7 +76,7 @@ describe.skipIf(skipBrowser)('the demo casebook in a real browser', () => {
     await screenshot(page, 'help-to-diagnose');
 
     await page.goto(`${server.baseUrl}/help/safety`);
-    await page.getByText('30 V rms · 42.4 V peak · 60 V DC').waitFor();
+    await page.getByText('33 V rms · 46.7 V peak · 70 V DC').waitFor();
     await page.getByText(/IEC 61010-1/).first().waitFor();
     await screenshot(page, 'help-safety');
     await context.close();

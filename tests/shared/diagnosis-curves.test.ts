@@ -206,7 +206,7 @@ describe('every curve', () => {
       ),
       { numRuns: 20 },
     );
-    expect(CAUSES.length).toBe(6);
+    expect(CAUSES.length).toBe(12);
   });
 
   it('should space a log axis in equal ratios', () => {

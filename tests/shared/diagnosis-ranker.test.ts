@@ -24,7 +24,7 @@ describe('diagnose', () => {
 
   it('should still answer an empty case, listing what it assumed', () => {
     const result = diagnose({});
-    expect(result.hypotheses).toHaveLength(6);
+    expect(result.hypotheses).toHaveLength(CAUSES.length);
     expect(result.tags).toEqual([]);
     const assumed = Object.fromEntries(result.assumptions.map((a) => [a.field, a.value]));
     // common practice: the typical values DESIGN.md lists

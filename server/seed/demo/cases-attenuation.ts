@@ -4,8 +4,9 @@ import type { DemoCase } from './types';
 const busSetup = {
   probe: { ...PROBES.p22, groundKind: 'clip-lead' as const, groundLeadM: 0.15 },
   scope: { ...SCOPES.sc03, attenuationSetting: 10 },
-  signal: { expectedAmplitudeV: 340, kind: 'dc' as const },
-  observed: { amplitudeV: 34 },
+  // what the bus really was, read again with the channel at 100x
+  signal: { expectedAmplitudeV: 334, kind: 'dc' as const },
+  observed: { amplitudeV: 33.4 },
 };
 
 export const ATTENUATION_CASES: DemoCase[] = [
@@ -38,7 +39,6 @@ Then I put the DMM on the same pad: 3.29 V. The scope channel was still set to *
     lessonSummary: "Before the first reading, check that the channel's probe setting matches the probe on it.",
     lessonDetail: 'A round factor (10, 100) between expectation and screen is almost always a setting, not the circuit. Channels keep their setting when the probe is swapped.',
     tags: ['power-rail', 'skerrynode', 'bring-up'],
-    wave: { shape: 'dc', levelV: 0.33, spanS: 1e-3, noiseV: 0.003 },
     attach: ['capture', 'screenshot'],
     steps: [
       { at: t('05-19 10:40'), do: 'submit' },
@@ -51,33 +51,43 @@ Then I put the DMM on the same pad: 3.29 V. The scope channel was still set to *
     key: 'att-gate-118v',
     author: 'mateo.brennan',
     createdAt: t('06-02 16:20'),
-    title: 'LS-48 gate drive shows 118 V: probe switch at 1x, channel at 10x',
-    summary: 'High-side gate of the Larkspan LS-48 appeared to swing 118 V; the switchable probe was at 1x while the channel assumed 10x.',
-    narrative: `Looking at Q3 gate-source on the LS-48 power stage. Driver is supplied from a 12 V bootstrap, so the gate should swing about 12 V.
+    title: 'LS-48 high-side gate shows 118 V: probe switch at 1x — and a passive ground clip on the switch node',
+    summary: 'The high-side gate of the LS-48 appeared to swing 118 V (switchable probe at 1x, channel at 10x); worse, the passive probe\'s ground clip sat on the switch node. The lesson is the differential probe.',
+    narrative: `**Read the safety note first: this measurement should not have been made this way.**
 
-The scope showed edges of **118 V**. I genuinely believed the bootstrap was pumping up and spent an hour on the bootstrap diode and the driver's UVLO, and had a replacement driver in my hand.
+Looking at Q3 gate-source on the LS-48 power stage (48 V bus from the bench supply). The driver runs from a 12 V bootstrap, so the gate should sit about 12 V above the source.
 
-Rhys asked what probe it was. It is a P-17, the *switchable* one, and the slide switch was at **1x**. The scope has no way to know that; the channel was at 10x. So everything was shown ten times too large.
+The scope showed edges of **118 V**. I believed the bootstrap was pumping up and spent an hour on the bootstrap diode and the driver's UVLO.
 
-Side note: at 1x this probe also has only a few MHz of bandwidth, so the edges looked slow as well. Two mistakes for the price of one.`,
+Rhys asked what probe it was. A P-17, the *switchable* one, with its slide switch at **1x**; the channel was at 10x, and the scope cannot sense the switch. So everything was shown ten times too large (the edges were slow too: at 1x this probe has only a few MHz).
+
+Then he asked where the ground clip was. On Q3's source — **the switch node**, which jumps between 0 and 48 V every PWM cycle. A passive probe's ground is the scope's protective earth. Clipping it to the switch node tied that node to earth: the only reason nothing blew was that the bench supply happened to be floating and no other probe was on the board. With the second channel's ground on power ground, the two ground clips would have shorted the low-side switch through the scope.
+
+**Safety:** a passive probe's ground clip is earthed through the scope, so it may only go on a node at earth potential. To look at a high-side gate, use a differential probe rated for the node's voltage (or an isolated probing system), keep the scope earthed, never float it, check the probe's voltage rating and its derating with frequency, and follow local codes and licensed practice.`,
     setup: {
       probe: { ...PROBES.p17, attenuation: 1, groundKind: 'clip-lead', groundLeadM: 0.15 },
       scope: { ...SCOPES.sc04, attenuationSetting: 10 },
-      circuit: { sourceResistanceOhm: 2, nodeDescription: 'Q3 gate to source, high side, phase A' },
-      signal: { expectedAmplitudeV: 12, frequencyHz: 20e3, kind: 'square' },
-      observed: { amplitudeV: 118, description: '118 V square edges, slow rise' },
+      circuit: {
+        sourceResistanceOhm: 2,
+        nodeDescription: 'Q3 gate to source, high side, phase A; ground clip on Q3 source (the switch node)',
+        referenceV: 48,
+        highestVoltageV: 60,
+        mainsConnected: false,
+      },
+      signal: { expectedAmplitudeV: 11.8, frequencyHz: 20e3, kind: 'square' },
+      observed: { amplitudeV: 118, riseTimeS: 66e-9, description: '118 V square edges, slow rise' },
     },
     statedCause: 'attenuation-mismatch',
-    fix: 'Slide the probe switch to 10x (or set the channel to 1x). The gate now swings 11.8 V.',
-    lessonSummary: 'On a switchable probe, look at the switch itself: the scope cannot sense its position.',
-    tags: ['gate-drive', 'switchable-probe', 'larkspan'],
-    wave: { shape: 'edge', levelV: 118, periodS: 50e-6, timeConstantS: 26e-9, spanS: 60e-6, noiseV: 0.6 },
+    fix: 'Repeated with a differential probe (rated 100 V, set 10x on a 10x channel) across gate and source, passive probes off the power stage: the gate swings 11.8 V above the switch node with 15 ns edges.',
+    lessonSummary: 'A high-side gate is a differential measurement: use a differential probe, never a passive ground clip on the switch node — and check a switchable probe\'s switch.',
+    lessonDetail: 'A passive probe\'s ground is protective earth; on a switch node it shorts that node to earth through the scope. The factor of ten was the P-17 at 1x on a 10x channel: shown = true × setting ÷ actual.',
+    tags: ['gate-drive', 'switchable-probe', 'larkspan', 'safety', 'differential-probe'],
     attach: ['capture', 'screenshot'],
     steps: [
       { at: t('06-02 16:45'), do: 'submit' },
-      { at: t('06-03 08:30'), do: 'comment', by: 'rhys.tanaka', body: 'Happens to all of us. I have asked @admin whether we can retire the switchable probes from the power bench.' },
-      { at: t('06-03 09:10'), do: 'comment', by: 'admin', body: 'Agreed — the P-17s go to the firmware benches; the power bench keeps fixed 10x probes only.' },
-      { at: t('06-03 11:00'), do: 'verify', by: 'rhys.tanaka', note: 'Stated cause matches the engine. Good that the slow edge is mentioned too.' },
+      { at: t('06-03 08:30'), do: 'comment', by: 'rhys.tanaka', body: 'The 118 V is the switch at 1x. The part that worries me more is the ground clip on Q3\'s source: please rewrite this around the differential probe and put the safety note at the top.' },
+      { at: t('06-03 09:10'), do: 'comment', by: 'admin', body: 'The P-17s go to the firmware benches; the power bench keeps fixed 10x probes and now has two 100 V differential probes, labelled for high-side work.' },
+      { at: t('06-03 11:00'), do: 'verify', by: 'rhys.tanaka', note: 'Engine agrees on the factor of ten, and flags the ground clip on a node 48 V from earth as a hazard; the safety note says what to do instead. Verified and pinned for the lesson, not the trick.' },
       { at: t('06-03 11:02'), do: 'pin', by: 'rhys.tanaka' },
     ],
   },
@@ -107,19 +117,19 @@ Side note: at 1x this probe also has only a few MHz of bandwidth, so the edges l
     key: 'att-100x-bus',
     author: 'kwabena.osei',
     createdAt: t('08-05 15:40'),
-    title: 'PB-300 DC bus reads 34 V: 100x probe on a channel set to 10x',
-    summary: 'On a returned Pellbright PB-300 the rectified mains bus read 34 V instead of about 340 V; the 100x probe was on a 10x channel.',
+    title: 'PB-300 DC bus reads 33 V: 100x probe on a channel set to 10x',
+    summary: 'On a returned Pellbright PB-300 the bus read 33.4 V: the 100x probe was on a 10x channel. Corrected, it read 334 V — the rectified mains peak, so the boost PFC was not running.',
     narrative: `Field return from a customer site, unit complained of flicker. Measured the bulk capacitor voltage to see if the PFC stage was running.
 
-Scope showed **34 V** DC with a little 100 Hz ripple. I thought the PFC had failed and the bus was collapsing, which would explain the flicker.
+Scope showed **33.4 V** DC with about 1 V of 100 Hz ripple. I thought the bus was collapsing.
 
-But 34 V on a bus that is fed from rectified 230 V mains is impossible — even with no PFC it would sit near 325 V. The P-22 is a 100x probe; the channel was set to 10x. Factor of ten again.`,
+But 33 V on a bus fed from rectified 240 V mains is impossible — even with no PFC it would sit near the mains peak, about 340 V. The P-22 is a 100x probe; the channel was set to 10x. Factor of ten again.`,
     setup: { ...busSetup, circuit: { nodeDescription: 'Bulk capacitor C5, PFC output' } },
     statedCause: 'attenuation-mismatch',
-    fix: 'Set the channel to 100x. The bus reads 338 V with 4 V of 100 Hz ripple; the PFC is fine (the flicker turned out to be the dimmer).',
-    lessonSummary: 'A high-voltage probe needs its own ratio on the channel: 100x probes are not 10x probes.',
-    tags: ['pellbright', 'mains', 'field-return', 'hv-probe'],
-    wave: { shape: 'dc', levelV: 33.8, spanS: 40e-3, noiseV: 0.08, humV: 0.2 },
+    fix: 'Set the channel to 100x. The bus reads 334 V with 10 V of 100 Hz ripple, so the PFC is fine; the flicker must be the dimmer.',
+    lessonSummary: 'A high-voltage probe needs its own ratio on the channel — and once the number is right, check it against what the circuit should do.',
+    lessonDetail: 'Shown = true × channel setting ÷ probe ratio: 334 V × 10 ÷ 100 = 33.4 V. A boost PFC bus sits above the mains peak (typically 380–400 V); a bus at the mains peak means the boost stage is not switching.',
+    tags: ['pellbright', 'mains', 'field-return', 'hv-probe', 'safety'],
     attach: ['capture'],
     steps: [
       { at: t('08-05 16:00'), do: 'submit' },
@@ -127,24 +137,36 @@ But 34 V on a bus that is fed from rectified 230 V mains is impossible — even 
         at: t('08-06 09:20'),
         do: 'send_back',
         by: 'rhys.tanaka',
-        note: 'The physics is right, but this is a mains-connected unit at 340 V. Please record that in the setup (mains connected, highest voltage) and add how the unit was powered — isolation transformer or not — so the safety caution shows.',
+        note: 'The factor of ten is right, but two things. This is a mains-connected unit with a bus near 400 V: record that in the setup (mains connected, mains frequency, highest voltage, the voltage of the node your ground clip is on) and say how the unit was powered, so the safety caution shows. And 334 V is not "fine" for a boost PFC: it regulates near 390 V, so 334 V is just the rectified peak. Was the PFC switching?',
       },
       {
         at: t('08-06 14:05'),
         do: 'revise',
         patch: {
-          setup: { ...busSetup, circuit: { nodeDescription: 'Bulk capacitor C5, PFC output', mainsConnected: true, highestVoltageV: 400 } },
+          fix: 'Set the channel to 100x: the bus read 334 V with 10 V of 100 Hz ripple. A boost PFC holds its bus near 390 V, so 334 V (the peak of 240 V mains less two diode drops) meant the PFC was idle: its controller\'s supply capacitor had dried out. Replaced; the bus sits at 392 V and the flicker is gone.',
+          setup: {
+            ...busSetup,
+            circuit: {
+              nodeDescription: 'Bulk capacitor C5, PFC output; ground clip on the bridge negative, unit behind the isolation transformer',
+              mainsConnected: true,
+              mainsFrequencyHz: 50,
+              highestVoltageV: 400,
+              referenceV: 0,
+            },
+          },
           narrative: `Field return from a customer site, unit complained of flicker. Measured the bulk capacitor voltage to see if the PFC stage was running.
 
-**Safety:** the unit was powered through the bench isolation transformer, probe P-22 (100x, rated 1000 V CAT II), ground clip on the primary-side return only, hands off while energised.
+**Safety:** mains-connected unit, bus up to about 400 V. It was powered through the bench isolation transformer; probe P-22 (100x, rated 1000 V CAT II); its ground clip on the bridge negative only, clipped on with the unit off; hands off while energised. Behind the transformer that clip makes the bridge negative the earth reference; without the transformer it would have shorted a mains-referenced node to earth. Use a differential probe whenever you are unsure, check the probe's rating and its derating with frequency, and follow local codes and licensed practice.
 
-Scope showed **34 V** DC with a little 100 Hz ripple. I thought the PFC had failed and the bus was collapsing, which would explain the flicker.
+Scope showed **33.4 V** DC with about 1 V of 100 Hz ripple. I thought the bus was collapsing.
 
-But 34 V on a bus that is fed from rectified 230 V mains is impossible — even with no PFC it would sit near 325 V. The P-22 is a 100x probe; the channel was set to 10x. Factor of ten again.`,
+But 33 V on a bus fed from rectified 240 V mains is impossible — even with no PFC it would sit near the mains peak, about 340 V. The P-22 is a 100x probe; the channel was set to 10x. Factor of ten again.
+
+With the channel at 100x the bus read **334 V**, and I first wrote "PFC fine". Rhys pointed out that a boost PFC regulates near 390 V: 334 V is the rectified peak of 240 V mains, so the PFC was not switching at all. Its controller's VCC capacitor had dried out; with a new one the bus sits at 392 V and the flicker is gone.`,
         },
       },
       { at: t('08-06 14:10'), do: 'submit' },
-      { at: t('08-07 08:45'), do: 'verify', by: 'rhys.tanaka', note: 'Thanks for the safety paragraph. Verified.' },
+      { at: t('08-07 08:45'), do: 'verify', by: 'rhys.tanaka', note: 'Factor of ten confirmed by the engine, safety fields and note present, and the real fault found. Verified.' },
     ],
   },
   {
@@ -169,7 +191,6 @@ Not sure whether the probe was a 10x or the switchable one in 10x; both would gi
     fix: 'Channel 1 of scope B set to 10x.',
     lessonSummary: 'Cross-check the first reading of a new setup with a meter.',
     tags: ['cindervale', 'reference'],
-    wave: { shape: 'dc', levelV: 0.25, spanS: 2e-3, noiseV: 0.002 },
     attach: ['capture'],
     steps: [
       { at: t('09-16 08:50'), do: 'submit' },

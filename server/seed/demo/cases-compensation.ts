@@ -10,35 +10,42 @@ const mclkSetup = {
 
 export const COMPENSATION_CASES: DemoCase[] = [
   {
-    key: 'comp-scope-b-spike',
+    key: 'comp-scope-b-rounded',
     author: 'kwabena.osei',
     createdAt: t('06-30 14:20'),
-    title: 'Square corners spike 18 % after moving the probe to scope B',
-    summary: 'A 1 kHz, 5 V square wave showed 18 % spikes at every corner decaying over ~100 µs once the probe was moved from SC-02 to scope B.',
+    title: 'Square corners round off by 3 % after moving the probe to scope B',
+    summary: 'A 1 kHz, 5 V square wave showed rounded corners, each edge stopping about 3 % short and creeping up over ~0.1 ms, once the probe was moved from SC-02 to scope B.',
     narrative: `Repair bench. I took the P-03 from SC-02 and used it on scope B (SC-03) to look at a 1 kHz test square from the CV-12 self-test output.
 
-Every corner had a **spike of about 18 %** that decayed over roughly a tenth of a millisecond before the top went flat. Expected 5.0 V flat tops.
+Every edge stopped about **3 % short** of the final level and then crept up to it over roughly a tenth of a millisecond. Expected 5.0 V square corners.
 
-First guess: the self-test driver oscillating. But the spike was a smooth exponential, no ringing, and it was the same on the scope's own calibrator output. Scope B's input has more capacitance than SC-02's (20 pF vs 16 pF), and the probe's trimmer had been set on SC-02.
+First guess: the self-test driver sagging under load. But the shape was a smooth exponential, and it was the same on the scope's own calibrator output. Scope B's input has more capacitance than SC-02's (20 pF vs 16 pF), and the probe's trimmer had been set on SC-02.
 
-The probe divider is flat only when R1·C1 = R2·C2. On scope B, C2 went up, so the trimmer needs readjusting — it just had not been done.`,
+The probe divider is flat only when R1·C1 = R2·C2. On scope B, C2 went up by 4 pF, so the edge now jumps to less than the DC ratio:
+
+\`\`\`
+C1 = 12.2 pF, C2 = 110 pF → 114 pF
+edge:   C1 / (C1 + C2) = 0.0968   settle: R2 / (R1 + R2) = 0.1
+corner: 0.0968 / 0.1 − 1 ≈ −3.2 %   τ = (R1 ∥ R2)(C1 + C2) ≈ 114 µs
+\`\`\`
+
+More input capacitance under-compensates: rounded corners, never spikes.`,
     setup: {
       probe: { ...PROBES.p03 },
       scope: { ...SCOPES.sc03, attenuationSetting: 10 },
       circuit: { sourceResistanceOhm: 50, nodeDescription: 'CV-12 self-test output TP6' },
       signal: { expectedAmplitudeV: 5, frequencyHz: 1e3, kind: 'square' },
-      observed: { amplitudeV: 5, overshootPct: 18, description: '18 % spikes at the corners, exponential decay' },
+      observed: { amplitudeV: 5, overshootPct: -3, description: 'Corners about 3 % short, creeping up over ~0.1 ms' },
     },
     statedCause: 'compensation',
     fix: "Adjust the probe's compensation trimmer on scope B's calibrator until the tops are flat.",
     lessonSummary: 'Compensate the probe every time it moves to another scope or channel.',
-    lessonDetail: 'The edge jumps to C1/(C1+C2) and settles to R2/(R1+R2) with τ = (R1∥R2)(C1+C2) — about 100 µs for a 10x probe, so a 1 kHz square shows it best.',
+    lessonDetail: 'The edge jumps to C1/(C1+C2) and settles to R2/(R1+R2) with τ = (R1∥R2)(C1+C2) — about 100 µs for a 10x probe, so a 1 kHz square shows it best. A scope with more input capacitance raises C2: the corners round off until the trimmer is turned.',
     tags: ['probe-compensation', 'cindervale', 'repair-bench'],
-    wave: { shape: 'compensation', levelV: 5, periodS: 1e-3, overshootPct: 18, spanS: 2e-3, noiseV: 0.02 },
     attach: ['capture', 'screenshot'],
     steps: [
       { at: t('06-30 14:45'), do: 'submit' },
-      { at: t('07-01 09:00'), do: 'verify', by: 'moderator', note: 'Engine infers over-compensation from the 18 % corner. Verified.' },
+      { at: t('07-01 09:00'), do: 'verify', by: 'moderator', note: 'A 4 pF larger C2 gives −3.2 % by the divider; the capture shows the same. Verified.' },
       { at: t('07-01 09:01'), do: 'pin', by: 'moderator' },
       { at: t('07-02 11:30'), do: 'comment', by: 'sunniva.dahl', body: 'This helped me today — same thing on SC-04.' },
     ],
@@ -65,13 +72,12 @@ Turned the trimmer clockwise (on this probe that raises the high-frequency gain)
       scope: { ...SCOPES.sc02, attenuationSetting: 10 },
       circuit: { sourceResistanceOhm: 50 },
       signal: { expectedAmplitudeV: 5, frequencyHz: 1e3, kind: 'square' },
-      observed: { amplitudeV: 4.95, overshootPct: -15 },
+      observed: { amplitudeV: 5, overshootPct: -15 },
     },
     statedCause: 'compensation',
     fix: 'Adjust the compensation trimmer on the calibrator square wave until the corners are square.',
     lessonSummary: 'Rounded corners that creep up to the final level: compensate the probe before blaming the source.',
     tags: ['probe-compensation', 'function-generator'],
-    wave: { shape: 'compensation', levelV: 4.95, periodS: 1e-3, overshootPct: -15, spanS: 2e-3, noiseV: 0.015 },
     attach: ['capture', 'screenshot'],
     steps: [
       { at: t('08-03 11:10'), do: 'submit' },
@@ -96,7 +102,6 @@ I compensated the probe on SC-04's calibrator this morning, so I am not sure —
     },
     statedCause: 'compensation',
     tags: ['larkspan', 'hall-sensor', 'probe-compensation'],
-    wave: { shape: 'compensation', levelV: 5, periodS: 0.5e-3, overshootPct: 10, spanS: 1e-3, noiseV: 0.02 },
     attach: ['capture'],
     steps: [
       { at: t('10-27 15:30'), do: 'submit' },
@@ -119,7 +124,7 @@ I compensated the probe on SC-04's calibrator this morning, so I am not sure —
         at: t('09-23 10:00'),
         do: 'send_back',
         by: 'lucia.varga',
-        note: "The probe divider's time constant is about 100 µs; at 12 MHz a half period is 40 ns, so compensation cannot show as a tilt there — it only shifts the level slightly. The engine ranks bandwidth first for this reason. Please check the probe on the 1 kHz calibrator and record what you see there; the bump at 12 MHz is more likely ringing or the edge itself.",
+        note: "The probe divider's time constant is about 100 µs; at 12 MHz a half period is 40 ns, so compensation cannot show as a tilt or a bump there. What it does show is the capacitive ratio: an over-compensated probe reads the whole clock high by its corner error, with flat tops. A bump at the start of each half period is more likely ringing. Please check the probe on the 1 kHz calibrator, record what you see there, and read the clock's amplitude against 3.3 V.",
       },
       {
         at: t('09-24 16:30'),
@@ -127,28 +132,11 @@ I compensated the probe on SC-04's calibrator this morning, so I am not sure —
         patch: {
           narrative: `MCLK (12.288 MHz) tops were not flat — first part of each half period about 8 % high.
 
-After Lucía's note: on the 1 kHz calibrator the same probe shows an **8 % corner spike** with a slow decay, so the probe *is* over-compensated. Re-trimmed; the calibrator is flat now. The bump on MCLK got smaller but did not go away; I will look at the ground lead next.`,
+After Lucía's note: on the 1 kHz calibrator the same probe shows an **8 % corner spike** with a slow decay, so the probe *is* over-compensated. And MCLK itself read 3.56 V instead of 3.3 V: 8 % high, as she said. Re-trimmed; the calibrator is flat and MCLK reads 3.3 V. The bump at the start of each half period did not change; I will look at the ground lead next.`,
           setup: { ...mclkSetup, signal: { expectedAmplitudeV: 3.3, frequencyHz: 1e3, kind: 'square' }, observed: { overshootPct: 8, description: 'On the 1 kHz calibrator: 8 % corner spike, slow decay' } },
         },
       },
       { at: t('09-24 16:35'), do: 'submit' },
     ],
-  },
-  {
-    key: 'comp-draft',
-    author: 'engineer',
-    createdAt: t('11-30 09:40'),
-    title: 'Tilted tops on the SN-2 wake-up pulse',
-    summary: 'Draft: the 1 ms wake-up pulse tilts downward by a few percent.',
-    narrative: 'Could be compensation or the AC coupling of channel 4. Check the coupling setting first.',
-    setup: {
-      probe: { ...PROBES.p03 },
-      scope: { ...SCOPES.sc02, attenuationSetting: 10 },
-      signal: { expectedAmplitudeV: 3.3, frequencyHz: 500, kind: 'square' },
-      observed: { overshootPct: 4 },
-    },
-    statedCause: 'compensation',
-    tags: ['skerrynode'],
-    steps: [],
   },
 ];

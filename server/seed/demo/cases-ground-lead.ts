@@ -15,12 +15,12 @@ export const GROUND_LEAD_CASES: DemoCase[] = [
     author: 'mateo.brennan',
     createdAt: t('06-09 15:30'),
     title: 'Buck switch node rings at 110 MHz — it was the 15 cm ground clip',
-    summary: 'The 12 V buck switch node of the LS-48 auxiliary supply showed 68 % overshoot and 110 MHz ringing; with a ground spring it was clean.',
-    narrative: `Aux supply of the LS-48 (12 V in, 400 kHz buck). Switch node shows a nasty **68 % overshoot** on every rising edge with ringing at **~110 MHz** that is still there 150 ns later.
+    summary: 'The 12 V buck switch node of the LS-48 auxiliary supply showed 66 % overshoot and 110 MHz ringing; with a ground spring it was clean.',
+    narrative: `Aux supply of the LS-48 (12 V in, 400 kHz buck). Switch node shows a nasty **66 % overshoot** on every rising edge with ringing at **~110 MHz** that is still there 150 ns later.
 
 I was sure we needed a snubber and had already ordered an RC snubber kit. Before fitting it Rhys asked me to repeat the measurement with the ground spring instead of the clip lead.
 
-With the spring: overshoot about 8 %, ringing at a much higher frequency and gone in a few ns. The 68 % was the probe.
+With the spring: overshoot about 8 %, ringing at a much higher frequency and gone in a few ns. The 66 % was the probe.
 
 A 15 cm lead is roughly 190 nH; with the probe's 11 pF that resonates at
 
@@ -34,14 +34,13 @@ and a 5 Ω source hardly damps it (ζ ≈ 0.02). The snubber kit went back on th
       scope: { ...SCOPES.sc04, attenuationSetting: 10 },
       circuit: { sourceResistanceOhm: 5, nodeDescription: 'Aux buck switch node, L4 pad' },
       signal: { expectedAmplitudeV: 12, frequencyHz: 400e3, riseTimeS: 3e-9, kind: 'square' },
-      observed: { ringingFrequencyHz: 110e6, overshootPct: 68, amplitudeV: 12, description: '68 % overshoot, 110 MHz ringing' },
+      observed: { ringingFrequencyHz: 110e6, overshootPct: 66, amplitudeV: 12, description: '66 % overshoot, 110 MHz ringing' },
     },
     statedCause: 'ground-lead',
     fix: 'Use the ground spring on the probe tip, or solder a probe socket next to the switch node.',
     lessonSummary: 'Fast edges: use the ground spring, never the 15 cm clip lead.',
     lessonDetail: 'The clip lead and the tip capacitance form a series LC near 100 MHz; any edge faster than a few ns rings it.',
     tags: ['switch-node', 'larkspan', 'ringing', 'buck'],
-    wave: { shape: 'ground-lead', levelV: 12, sourceResistanceOhm: 5, inductanceH: 190e-9, capacitanceF: 11e-12, edgeS: 3e-9, spanS: 500e-9, noiseV: 0.05 },
     attach: ['capture', 'screenshot'],
     steps: [
       { at: t('06-09 16:00'), do: 'submit' },
@@ -55,20 +54,19 @@ and a 5 Ω source hardly damps it (ζ ≈ 0.02). The snubber kit went back on th
     author: 'oskar.nwachukwu',
     createdAt: t('07-28 10:30'),
     title: 'SPI clock "ringing" disappears with a ground spring',
-    summary: 'A 10 MHz SPI clock showed 60 % overshoot and 105 MHz ringing with the clip lead; the spring removed it.',
-    narrative: 'Second time I fell for this (see the buck case). SCK overshoot **60 %**, ringing ~105 MHz. Spring on: clean. Filing it with my capture because the SPI case is the one firmware people will search for.',
+    summary: 'A 10 MHz SPI clock showed 55 % overshoot and 110 MHz ringing with the clip lead; the spring removed it.',
+    narrative: 'Second time I fell for this (see the buck case). SCK overshoot **55 %**, ringing ~110 MHz. Spring on: clean. Filing it with my capture because the SPI case is the one firmware people will search for.',
     setup: {
       probe: { ...PROBES.p03, groundKind: 'clip-lead', groundLeadM: 0.15 },
       scope: { ...SCOPES.sc02, attenuationSetting: 10 },
       circuit: { sourceResistanceOhm: 33 },
       signal: { expectedAmplitudeV: 3.3, frequencyHz: 10e6, riseTimeS: 1.5e-9, kind: 'square' },
-      observed: { ringingFrequencyHz: 105e6, overshootPct: 60 },
+      observed: { ringingFrequencyHz: 110e6, overshootPct: 55 },
     },
     statedCause: 'ground-lead',
     fix: 'Ground spring.',
     lessonSummary: 'Ringing near 100 MHz with a clip lead is the lead until proven otherwise.',
     tags: ['spi', 'wrenmoor', 'ringing'],
-    wave: { shape: 'ground-lead', levelV: 3.3, sourceResistanceOhm: 33, inductanceH: 190e-9, capacitanceF: 11e-12, edgeS: 1.5e-9, spanS: 160e-9, noiseV: 0.015 },
     attach: ['capture'],
     steps: [
       { at: t('07-28 10:40'), do: 'submit' },
@@ -80,10 +78,10 @@ and a 5 Ω source hardly damps it (ζ ≈ 0.02). The snubber kit went back on th
     author: 'aoife.renner',
     createdAt: t('09-01 13:00'),
     title: 'Ringing frequency moves when the ground clip moves',
-    summary: 'The LS-48 phase node rang at 85 MHz with 50 % overshoot; the ground lead had been extended with tape and wire.',
-    narrative: `Validation of the LS-48 phase node at 24 V. Ringing at **85 MHz**, overshoot **50 %**, and the ringing frequency *changed* when I moved the ground clip around — which no circuit resonance would do.
+    summary: 'The LS-48 phase node rang at 88 MHz with 50 % overshoot; the ground lead had been extended with tape and wire.',
+    narrative: `Validation of the LS-48 phase node at 24 V. Ringing at **88 MHz**, overshoot **50 %**, and the ringing frequency *changed* when I moved the ground clip around — which no circuit resonance would do.
 
-I had not written down the lead length because I did not think it mattered. The engine infers about **23 cm** of lead from the 85 MHz. Looking at the probe: someone had extended the clip lead with a piece of wire and tape to reach the heatsink ground. Measured it: 22 cm.
+I had not written down the lead length because I did not think it mattered. The engine infers about **22 cm** of lead from the 88 MHz (11 pF needs ~300 nH; a straight 0.5 mm wire reaches that at 22 cm). Looking at the probe: someone had extended the clip lead with a piece of wire and tape to reach the heatsink ground. Measured it: 22 cm.
 
 Lesson for me: if the ringing moves when you move the lead, it is the lead.`,
     setup: {
@@ -91,18 +89,17 @@ Lesson for me: if the ringing moves when you move the lead, it is the lead.`,
       scope: { ...SCOPES.sc04, attenuationSetting: 10 },
       circuit: { sourceResistanceOhm: 8, nodeDescription: 'Phase B output, 24 V test bus' },
       signal: { expectedAmplitudeV: 24, frequencyHz: 20e3, riseTimeS: 5e-9, kind: 'square' },
-      observed: { ringingFrequencyHz: 85e6, overshootPct: 50 },
+      observed: { ringingFrequencyHz: 88e6, overshootPct: 50 },
     },
     statedCause: 'ground-lead',
     fix: 'Removed the extension; ground at the phase node with a spring. The ringing moved above 500 MHz and dropped to a few percent.',
     lessonSummary: 'If the ringing changes when you move the ground lead, the ringing is the lead.',
     tags: ['larkspan', 'ringing', 'phase-node'],
-    wave: { shape: 'ground-lead', levelV: 24, sourceResistanceOhm: 8, inductanceH: 311e-9, capacitanceF: 11e-12, edgeS: 5e-9, spanS: 500e-9, noiseV: 0.08 },
     attach: ['capture', 'screenshot'],
     steps: [
       { at: t('09-01 13:20'), do: 'submit' },
       { at: t('09-02 10:00'), do: 'comment', by: 'rhys.tanaka', body: 'Found two more "extended" leads in the drawer. They are in the bin now.' },
-      { at: t('09-02 10:15'), do: 'verify', by: 'rhys.tanaka', note: 'Engine\'s implied 23 cm against 22 cm measured: verified.' },
+      { at: t('09-02 10:15'), do: 'verify', by: 'rhys.tanaka', note: 'Engine\'s implied 22 cm against 22 cm measured: verified.' },
     ],
   },
   {
@@ -123,7 +120,6 @@ Pretty sure this is the ground lead again (110 MHz, same as the buck case) but I
     },
     statedCause: 'ground-lead',
     tags: ['skerrynode', 'radio', 'ringing'],
-    wave: { shape: 'ground-lead', levelV: 3, sourceResistanceOhm: 6, inductanceH: 190e-9, capacitanceF: 11e-12, edgeS: 2e-9, spanS: 500e-9, noiseV: 0.012 },
     attach: ['capture'],
     steps: [{ at: t('10-13 11:40'), do: 'submit' }],
   },

@@ -17,7 +17,7 @@ export const LOADING_CASES: DemoCase[] = [
     summary: 'A 100 kHz sine at a 47 kΩ timing node of the SN-2 wake-up oscillator read 0.39 V instead of 1.2 V with a 1x probe.',
     narrative: `The wake-up oscillator on the SN-2 uses a plain RC timing network; the node swings about **1.2 Vpp** at 100 kHz according to the simulation.
 
-I probed it with the P-17 set to 1x (I wanted the sensitivity) and saw **0.39 Vpp**, and the frequency dropped too. I was convinced the comparator's hysteresis was wrong and spent the morning in the data sheet.
+I probed it with the P-17 set to 1x (I wanted the sensitivity) and saw **0.39 Vpp**. I was convinced the comparator's hysteresis was wrong and spent the morning in the data sheet.
 
 At 1x the probe is roughly 100 pF of cable and input hanging on a node that is driven through 47 kΩ:
 
@@ -32,13 +32,12 @@ With the switch at 10x (about 11 pF) the node reads 1.15 Vpp and the oscillator 
       scope: { ...SCOPES.sc02, attenuationSetting: 1 },
       circuit: { sourceResistanceOhm: 47e3, nodeDescription: 'R12/C9 timing node, comparator U4 input' },
       signal: { expectedAmplitudeV: 1.2, frequencyHz: 100e3, kind: 'sine' },
-      observed: { amplitudeV: 0.39, description: '0.39 Vpp and lower frequency' },
+      observed: { amplitudeV: 0.39, description: '0.39 Vpp where 1.2 Vpp was simulated' },
     },
     statedCause: 'loading',
     fix: 'Probe high-impedance nodes at 10x (≈ 11 pF), or buffer them; never 1x on an RC node.',
     lessonSummary: 'A 1x probe is about 100 pF: it loads any node above a few kΩ at audio frequencies and up.',
     tags: ['oscillator', 'skerrynode', '1x-probe'],
-    wave: { shape: 'sine', amplitudeV: 0.39, frequencyHz: 100e3, offsetV: 0.6, spanS: 40e-6, noiseV: 0.004 },
     attach: ['capture', 'screenshot'],
     steps: [
       { at: t('05-27 14:10'), do: 'submit' },
@@ -66,7 +65,6 @@ Both 10 MΩ instruments agree, which at first made me think the electrometer was
     fix: 'Read high-impedance bias points with the electrometer or through a buffer; or account for the 10 MΩ load.',
     lessonSummary: 'A 10 MΩ probe is not infinite: on a 500 kΩ node it reads 5 % low.',
     tags: ['bias', 'cindervale', 'high-impedance'],
-    wave: { shape: 'dc', levelV: 2.38, spanS: 5e-3, noiseV: 0.006 },
     attach: ['capture'],
     steps: [
       { at: t('07-07 10:40'), do: 'submit' },
@@ -104,7 +102,6 @@ Re-measured with the 10x probe on XIN side through a 1 pF coupling: runs at 32.7
     fix: 'Do not probe crystal pins directly; use a 10x probe at a buffered clock output or a tiny coupling capacitor.',
     lessonSummary: 'Probing a crystal pin changes the crystal circuit: measure a buffered output.',
     tags: ['crystal', 'wrenmoor', '1x-probe'],
-    wave: { shape: 'sine', amplitudeV: 0.7, frequencyHz: 32768, offsetV: 0.9, spanS: 150e-6, noiseV: 0.006 },
     attach: ['capture'],
     steps: [
       { at: t('08-12 11:20'), do: 'submit' },

@@ -1,10 +1,10 @@
 import { Jimp, loadFont } from 'jimp';
 import { SANS_14_BLACK } from 'jimp/fonts';
 import { formatEngineering } from '../../../shared/units/engineering';
-import type { DemoTrace } from './waveforms';
+import type { DemoTrace } from './capture-files';
 
-/** Our plot style (DESIGN.md, Look): warm paper, faint grid, ink capture, teal dashed model. */
-const COLORS = { paper: 0xf6f1e6ff, grid: 0xe3d9c4ff, axis: 0x8a8577ff, ink: 0x1c2a45ff, model: 0x0f766eff, label: [0x5d, 0x64, 0x78] };
+/** Our plot style (DESIGN.md, Look): warm paper, faint grid, the capture in ink. */
+const COLORS = { paper: 0xf6f1e6ff, grid: 0xe3d9c4ff, axis: 0x8a8577ff, ink: 0x1c2a45ff, label: [0x5d, 0x64, 0x78] };
 const SIZE = { width: 880, height: 480, left: 84, right: 24, top: 40, bottom: 52 };
 
 type Image = InstanceType<typeof Jimp>;
@@ -83,15 +83,15 @@ function columns(trace: DemoTrace, values: Float64Array, x: (t: number) => numbe
   return [...cols.entries()].sort((a, b) => a[0] - b[0]);
 }
 
-/** A PNG of a demo capture with its model overlay and labelled axes, in Falsetrace's own style. */
+/** A PNG of a demo capture with labelled axes, in Falsetrace's own style. */
 export async function renderTracePng(trace: DemoTrace): Promise<Buffer> {
   const f = await (font ??= loadFont(SANS_14_BLACK));
   const img = new Jimp({ width: SIZE.width, height: SIZE.height, color: COLORS.paper });
   const plotW = SIZE.width - SIZE.left - SIZE.right;
   const plotH = SIZE.height - SIZE.top - SIZE.bottom;
   const t1 = trace.timesS[trace.timesS.length - 1];
-  let lo = Math.min(...trace.volts, ...trace.modelVolts);
-  let hi = Math.max(...trace.volts, ...trace.modelVolts);
+  let lo = Math.min(...trace.volts);
+  let hi = Math.max(...trace.volts);
   if (hi - lo < 1e-12) [lo, hi] = [lo - 1, hi + 1];
   const pad = (hi - lo) * 0.08;
   [lo, hi] = [lo - pad, hi + pad];
@@ -118,14 +118,8 @@ export async function renderTracePng(trace: DemoTrace): Promise<Buffer> {
     if (prev) line(img, prev.c, y((prev.min + prev.max) / 2), c, y((min + max) / 2), COLORS.ink, 2);
     prev = { c, min, max };
   }
-  const dash = { on: 9, off: 6, at: 0 };
-  for (let i = 1; i < trace.modelVolts.length; i++) {
-    line(img, x(trace.timesS[i - 1]), y(trace.modelVolts[i - 1]), x(trace.timesS[i]), y(trace.modelVolts[i]), COLORS.model, 2, dash);
-  }
-
-  line(img, SIZE.left + plotW - 250, 20, SIZE.left + plotW - 226, 20, COLORS.ink, 2);
-  text(img, f, SIZE.left + plotW - 220, 11, 'capture');
-  line(img, SIZE.left + plotW - 140, 20, SIZE.left + plotW - 116, 20, COLORS.model, 2, { on: 9, off: 6, at: 0 });
-  text(img, f, SIZE.left + plotW - 110, 11, 'model');
+  // a screenshot is what the scope showed: the capture alone, no model over it
+  line(img, SIZE.left + plotW - 120, 20, SIZE.left + plotW - 96, 20, COLORS.ink, 2);
+  text(img, f, SIZE.left + plotW - 90, 11, 'capture');
   return img.getBuffer('image/png');
 }

@@ -14,17 +14,23 @@ import { pinLesson } from '../../services/lessons';
 import { reviewCase } from '../../services/review';
 import { toUser } from '../../services/users';
 import { storagePaths } from '../../storage';
+import { AC_COUPLING_CASES } from './cases-ac-coupling';
+import { ALIASING_CASES } from './cases-aliasing';
 import { ATTENUATION_CASES } from './cases-attenuation';
 import { BANDWIDTH_CASES } from './cases-bandwidth';
+import { CLIPPING_CASES } from './cases-clipping';
+import { COMMON_MODE_CASES } from './cases-common-mode';
 import { COMPENSATION_CASES } from './cases-compensation';
+import { GENERATOR_LOAD_CASES } from './cases-generator-load';
 import { GROUND_LEAD_CASES } from './cases-ground-lead';
 import { LOADING_CASES } from './cases-loading';
+import { MAINS_PICKUP_CASES } from './cases-mains-pickup';
 import { OTHER_CASES } from './cases-other';
 import { TERMINATION_CASES } from './cases-termination';
 import { DEMO_PEOPLE } from './people';
 import { renderTracePng } from './plot-png';
+import { readDemoCapture } from './capture-files';
 import type { DemoCase, DemoStep } from './types';
-import { demoTrace, traceCsv } from './waveforms';
 
 /** Every demo case, oldest first, so ids follow the story and originals exist before duplicates. */
 export const DEMO_CASES: DemoCase[] = [
@@ -34,6 +40,12 @@ export const DEMO_CASES: DemoCase[] = [
   ...BANDWIDTH_CASES,
   ...COMPENSATION_CASES,
   ...GROUND_LEAD_CASES,
+  ...ALIASING_CASES,
+  ...CLIPPING_CASES,
+  ...AC_COUPLING_CASES,
+  ...COMMON_MODE_CASES,
+  ...MAINS_PICKUP_CASES,
+  ...GENERATOR_LOAD_CASES,
   ...OTHER_CASES,
 ].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.key.localeCompare(b.key));
 
@@ -70,12 +82,13 @@ async function seedPeople(deps: AppDeps, password: string): Promise<Map<string, 
 }
 
 async function attachFiles(deps: AppDeps, author: User, caseId: number, c: DemoCase): Promise<number> {
-  if (!c.wave || !c.attach?.length) return 0;
-  const trace = demoTrace(c.key, c.wave);
+  if (!c.attach?.length) return 0;
+  // made by `npm run demo:captures` from the case's ngspice netlist, never by the engine
+  const { bytes: csv, trace } = readDemoCapture(c.key);
   const { incomingDir } = storagePaths(deps.config);
   let minutes = 5;
   for (const kind of c.attach) {
-    const [bytes, name] = kind === 'capture' ? [traceCsv(trace), `${c.key}-capture.csv`] : [await renderTracePng(trace), `${c.key}-screen.png`];
+    const [bytes, name] = kind === 'capture' ? [csv, `${c.key}-capture.csv`] : [await renderTracePng(trace), `${c.key}-screen.png`];
     const file = path.join(incomingDir, `demo-${c.key}-${kind}`);
     await writeFile(file, bytes);
     const marks = await historyMarks(deps.db);

@@ -11,22 +11,6 @@ export interface DemoPerson {
   joinedAt: string;
 }
 
-/**
- * The waveform behind a case's capture and screenshot, in the units the scope showed.
- * Each shape is computed by the engine's own model of the cause (shared/diagnosis).
- */
-export type DemoWave =
-  /** A square wave or a single edge through a single pole with this time constant (0 = ideal). */
-  | { shape: 'edge'; levelV: number; baseV?: number; periodS?: number; timeConstantS: number; spanS: number; noiseV: number }
-  /** The edge of a mis-adjusted divider probe: jumps, then settles with the divider's τ. */
-  | { shape: 'compensation'; levelV: number; periodS: number; overshootPct: number; spanS: number; noiseV: number }
-  /** A step into the series R–L–C of ground lead and tip capacitance. */
-  | { shape: 'ground-lead'; levelV: number; sourceResistanceOhm: number; inductanceH: number; capacitanceF: number; edgeS: number; spanS: number; noiseV: number }
-  /** A sine, e.g. after a loading divider. */
-  | { shape: 'sine'; amplitudeV: number; frequencyHz: number; offsetV?: number; spanS: number; noiseV: number }
-  /** A flat level with noise (a DC rail). */
-  | { shape: 'dc'; levelV: number; spanS: number; noiseV: number; humV?: number; humHz?: number };
-
 /** One thing that happens to a case after it is written, at a fixed time. */
 export type DemoStep =
   | { at: string; do: 'comment'; by: string; body: string }
@@ -53,8 +37,10 @@ export interface DemoCase {
   lessonSummary?: string;
   lessonDetail?: string;
   tags?: string[];
-  /** Generated files attached while the case is a draft. */
-  wave?: DemoWave;
+  /**
+   * Files attached while the case is a draft: `captures/<key>.csv` (from the case's ngspice
+   * netlist, see spice/README.md) and a screenshot drawn from it.
+   */
   attach?: ('capture' | 'screenshot')[];
   steps: DemoStep[];
 }

@@ -15,9 +15,9 @@ const NO_PLOT: Record<HypothesisCause, string> = {
   'ground-lead': 'No ground lead is connected at the probe, so there is no lead resonance to draw.',
   aliasing: 'Record the signal frequency and the sample rate to draw where the alias lands.',
   clipping: 'Record the vertical scale and offset to draw the screen window over the signal.',
-  'ac-coupling': 'Record the signal frequency to draw the droop of an AC-coupled square.',
-  'common-mode': "Record the reference node's voltage and the probe's CMRR to draw the common-mode share.",
-  'mains-pickup': 'Record the mains frequency to draw where hum lands.',
+  'ac-coupling': 'The channel is DC-coupled as recorded; with AC coupling (or observed droop) the drooping square is drawn.',
+  'common-mode': "A single-ended probe grounded away from earth is a hazard, not a measurement; with a differential probe, record the reference node's voltage to draw the common-mode share.",
+  'mains-pickup': 'Hum is a line at the mains frequency or one of its harmonics; the explanation names which.',
   'generator-load': "Record the generator's load setting and what it drives to draw the divider.",
   faithful: 'The recorded setup explains the trace; there is no error to draw.',
 };

@@ -35,7 +35,7 @@ export function HelpIndexPage() {
         <div className="flex flex-col gap-8">
           <section aria-labelledby="help-causes">
             <h2 id="help-causes" className="mb-3 text-xl">
-              The six causes
+              The twelve causes
             </h2>
             <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-3">
               {causes.map((t) => (

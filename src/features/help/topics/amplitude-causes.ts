@@ -10,7 +10,7 @@ export const ATTENUATION_TOPIC: HelpTopic = {
 - It often appears right after someone else used the channel, or after a probe was swapped.`,
   physics: `A passive probe divides the voltage at its tip by its ratio (10 for a 10x probe), and the scope multiplies what arrives by the ratio its channel is **set** to assume. When the two agree the screen shows the true voltage. When they do not, the screen is scaled by *setting ÷ actual*.
 
-Most scopes sense a probe's ratio only through a coding pin on the connector, and many probes — especially **switchable 1x/10x** ones — have no such pin for their switch. So the scope cannot know; the person has to.`,
+Most scopes sense a probe's ratio only through a coding pin on the connector, and many probes — especially **switchable 1x/10x** ones — have no such pin for their switch. So the scope cannot know; the person has to. For the same reason an exported capture records the channel's *setting*, not the probe that was really on it.`,
   formulas: [
     { text: 'V_shown = V_true × setting / actual', meaning: 'what the screen shows' },
     { text: 'actual = setting × V_expected / V_shown', meaning: 'the probe ratio an observation implies' },
@@ -34,32 +34,46 @@ export const TERMINATION_TOPIC: HelpTopic = {
   slug: 'termination-mismatch',
   cause: 'termination-mismatch',
   title: 'High-impedance probe on a 50 Ω input',
-  lead: 'A logic signal shrinks to a fraction of a millivolt, buried in noise.',
-  onScreen: `- A signal of volts appears as **tens or hundreds of microvolts**, so small that the trace is mostly noise.
-- The shape underneath is still recognisable when you turn the sensitivity all the way up.
+  lead: 'DC and slow levels shrink to a fraction of a millivolt, while every edge comes through as a needle.',
+  onScreen: `- A DC level or the flat parts of a slow square wave appear as **tens or hundreds of microvolts**.
+- **Every edge comes through as a needle**: a spike about a tenth of the step (on the screen's scale, with a 10x probe and channel) that dies away within a few nanoseconds. A fast clock turns into a row of alternating needles with nothing flat between them — the shape is *not* the signal's.
+- Sines lose more the lower their frequency: a 10 MHz sine keeps about a third of its size, a 25 kHz one a thousandth.
 - The channel's input menu says 50 Ω, often left over from work with coaxial cables or a low-impedance probe.`,
-  physics: `A passive 10x probe is a divider built for a **1 MΩ** input: a 9 MΩ tip resistor over the scope's 1 MΩ gives exactly ten. Put the same probe on an input terminated in **50 Ω** and the bottom of the divider is 50 Ω instead of 1 MΩ, so the probe divides by about (9 MΩ + 50 Ω) / 50 Ω — roughly 180 000 — while the channel still multiplies by 10.
+  physics: `A passive 10x probe is a compensated divider built for a **1 MΩ** input: the tip's R1 = 9 MΩ with C1 across it, over the scope's 1 MΩ with C2 (cable, trimmer and input) across it, R1·C1 = R2·C2. With C_tip the capacitance the circuit sees at the tip, a compensated probe of ratio n has C1 = n·C_tip/(n−1) and C2 = n·C_tip — about 12 pF and 110 pF for an 11 pF probe.
 
-A 50 Ω input also has a power limit: it dissipates V² / 50 Ω, and typical inputs are rated about 5 V rms (half a watt). That is why a direct cable from a strong source into 50 Ω can damage the input, even though a 10x passive probe on 50 Ω is harmless to it.`,
+On a **50 Ω** input the bottom of the divider becomes 50 Ω ∥ C2, and the divider is complex, Z2/(Z1+Z2):
+
+- At DC and low frequency the resistors set it: 50 Ω / (9 MΩ + 50 Ω), about 1/180 000, while the channel still multiplies by 10.
+- Above a few kHz, C1's reactance replaces the 9 MΩ and the ratio rises with frequency.
+- A fast edge passes the capacitive divider **C1/(C1+C2)**, about a tenth, and then decays through the 50 Ω with **τ = 50 Ω·(C1+C2)**, about 6 ns. An edge slower than τ gives a lower needle.
+
+A 50 Ω input also has a power limit: it dissipates V²/50 Ω, and typical inputs are rated about 5 V rms (half a watt). A passive probe does not make it safe: the needles put a tenth of every edge across the 50 Ω — 40 V for a 400 V switch node — and at a high switching rate they add up to real power. A direct cable from a strong source can damage the input outright.`,
   formulas: [
-    { text: 'a_actual = (R_tip + R_in) / R_in', meaning: 'real division into the input' },
-    { text: '(9 MΩ + 50 Ω) / 50 Ω ≈ 180 000', meaning: 'a 10x probe on 50 Ω' },
-    { text: 'V_shown = V_true × a × R_in / (R_s + R_tip + R_in)', meaning: 'screen, channel at the probe ratio a' },
+    { text: 'V_input / V_tip = Z2 / (Z1 + Z2),  Z1 = R1 ∥ C1,  Z2 = 50 Ω ∥ C2', meaning: 'the complex divider on 50 Ω' },
+    { text: 'C1 = n·C_tip / (n − 1),  C2 = n·C_tip', meaning: 'a compensated probe of ratio n' },
+    { text: '(9 MΩ + 50 Ω) / 50 Ω ≈ 180 000', meaning: 'DC division of a 10x probe on 50 Ω' },
+    { text: 'spike = V_step × n × C1 / (C1 + C2)', meaning: 'each edge on the screen (channel at n), ideal step' },
+    { text: 'τ = 50 Ω × (C1 + C2)', meaning: 'how fast each needle dies away' },
     { text: 'P = V_rms² / 50 Ω', meaning: 'power into a 50 Ω input' },
   ],
-  example: `A 3.3 V clock through a 10x probe into 50 Ω: 3.3 V × 10 × 50 Ω / 9 MΩ ≈ **0.18 mV**.`,
+  example: `An 11 pF 10x probe (C1 ≈ 12.2 pF, C2 = 110 pF) on a 50 Ω input, channel at 10x:
+
+- a 3.7 V DC level shows 3.7 V × 10 × 50 Ω / 9 MΩ ≈ **0.21 mV**;
+- each edge of a 3.3 V clock shows a needle of up to 3.3 V × 10 × 12.2/122.2 ≈ **3.3 V**, gone with τ = 50 Ω × 122 pF ≈ **6 ns** (a 1.5 ns edge from a 30 Ω driver reached about 2.6 V in our demo case);
+- a 1 V sine at 10 MHz shows about **0.36 V**; at 25 kHz about 1 mV.`,
   diagnose: {
     'probe.attenuation': 10,
+    'probe.tipCapacitanceF': 11e-12,
     'scope.attenuationSetting': 10,
     'scope.inputResistanceOhm': 50,
-    'signal.expectedAmplitudeV': 3.3,
-    'signal.frequencyHz': 25e6,
-    'signal.kind': 'square',
+    'signal.expectedAmplitudeV': 3.7,
+    'signal.kind': 'dc',
     'observed.amplitudeV': 0.0002,
   },
-  fix: `Set the input to 1 MΩ for passive high-impedance probes. For fast work on a 50 Ω input use a probe made for it (a low-impedance divider probe or an active probe). Reset the input impedance after any 50 Ω session.`,
+  fix: `Set the input to 1 MΩ for passive high-impedance probes. For fast work on a 50 Ω input use a probe made for it (a low-impedance divider probe or an active probe). Reset the input impedance after any 50 Ω session, and never put a high-voltage node on a 50 Ω input, through a probe or not.`,
   sources: [
-    { label: 'Resistive voltage divider', note: 'circuit law' },
+    { label: 'Voltage divider with complex impedances', note: 'circuit law' },
+    { label: 'Compensated RC divider: R1·C1 = R2·C2; edge ratio C1/(C1+C2)', note: 'derivation' },
     { label: '10x passive probes: 9 MΩ tip resistor into a 1 MΩ input', note: 'common practice' },
     { label: '50 Ω scope inputs rated about 5 V rms', note: 'common practice; check your scope' },
   ],
@@ -81,6 +95,7 @@ Whatever drives the node has its own (Thevenin) resistance R_s. The probe and R_
     { text: '|Z_p / (R_s + Z_p)|,  Z_p = R_in ∥ 1/(j·2πf·C)', meaning: 'AC divider at frequency f' },
     { text: 'f_c = 1 / (2π · (R_s ∥ R_in) · C)', meaning: 'corner of the loaded node' },
     { text: 't_r ≈ 2.2 · (R_s ∥ R_in) · C', meaning: 'rise time the load alone adds' },
+    { text: 'V_pp,shown = A · R_in / (R_s + R_in) · tanh(T / 4τ),  τ = (R_s ∥ R_in) · C', meaning: 'settled peak-to-peak of a square wave of period T' },
   ],
   example: `A 1x probe (≈ 100 pF) on a node driven through 47 kΩ: f_c = 1 / (2π · 47 kΩ · 100 pF) ≈ 34 kHz, so a 100 kHz sine keeps only about **32 %** of its amplitude.`,
   diagnose: {

@@ -10,17 +10,18 @@ export const BANDWIDTH_TOPIC: HelpTopic = {
 - A small "BW" marker next to the channel, or a 1x probe, is often the giveaway.`,
   physics: `Every stage between the circuit and the screen — probe, scope front end, any bandwidth-limit filter — behaves roughly like a low-pass filter. A single-pole low-pass with bandwidth BW turns an ideal step into an exponential whose 10 %–90 % rise time is ln 9 / (2π · BW), which is the familiar **0.35 / BW**.
 
-Stages in cascade add their rise times **in quadrature** (root of the sum of squares). So the edge you see is never faster than the slowest stage, and a system only 1–2× faster than the edge measures mostly itself. A 1x passive probe has only a few MHz of bandwidth; a 20 MHz limit filter alone makes every edge at least 17.5 ns.`,
+Stages in cascade add their rise times **in quadrature** (root of the sum of squares). So the edge you see is never faster than the slowest stage, and a system only 1–2× faster than the edge measures mostly itself. A 1x passive probe has only a few MHz of bandwidth; a 20 MHz limit filter alone makes every edge at least 17.5 ns.
+
+Count each stage once. A probe's data-sheet bandwidth is usually the bandwidth *with the scope it is matched to*: that figure is the system's, not a second stage. Leave the probe's bandwidth blank for a matched probe and the engine takes the scope's figure as the whole system's; a 500 MHz probe and a 500 MHz scope added again in quadrature would wrongly make a 354 MHz system. A bandwidth-limit filter is always a stage of its own.`,
   formulas: [
     { text: 't_r ≈ 0.35 / BW', meaning: 'one stage (exactly ln 9 / 2π = 0.3497)' },
     { text: 't_shown = √(t_signal² + t_probe² + t_scope² + t_limit²)', meaning: 'stages in cascade' },
     { text: 'BW_needed ≈ (3 … 5) × 0.35 / t_edge', meaning: 'rule of thumb for a true reading' },
     { text: 'V_pp,shown / V_pp = tanh(T / 4τ)', meaning: 'a square wave of period T through one pole τ' },
   ],
-  example: `A 2 ns edge through a 500 MHz probe and scope with the 20 MHz limit on: √(2² + 0.7² + 0.7² + 17.5²) ns ≈ **17.6 ns**.`,
+  example: `A 2 ns edge on a matched 500 MHz probe and scope (0.7 ns) with the 20 MHz limit on (17.5 ns): √(2² + 0.7² + 17.5²) ns ≈ **17.6 ns**.`,
   diagnose: {
     'probe.attenuation': 10,
-    'probe.bandwidthHz': 500e6,
     'scope.attenuationSetting': 10,
     'scope.bandwidthHz': 500e6,
     'scope.bandwidthLimitHz': 20e6,
@@ -36,6 +37,7 @@ Stages in cascade add their rise times **in quadrature** (root of the sum of squ
     { label: 'Single-pole step response 1 − e^(−t/τ): t₉₀ − t₁₀ = τ·ln 9, f₃dB = 1/(2πτ)', note: 'derivation' },
     { label: 'Root-sum-square rise-time rule', note: 'common practice; exact for Gaussian stages' },
     { label: '1x passive probes reach only a few MHz', note: 'common practice' },
+    { label: 'A probe\'s rated bandwidth is usually given with its matched scope (system figure)', note: 'common practice' },
   ],
 };
 
@@ -43,13 +45,16 @@ export const COMPENSATION_TOPIC: HelpTopic = {
   slug: 'compensation',
   cause: 'compensation',
   title: 'Probe compensation out of adjustment',
-  lead: 'Square-wave corners spike up or round off, then creep to the final level.',
+  lead: 'Square-wave corners spike up or round off and creep to the final level; fast signals read high or low with flat tops.',
   onScreen: `- On a low-frequency square wave (the scope's 1 kHz calibrator is ideal) the **corners spike** above the top (over-compensated) or are **rounded** below it (under-compensated).
 - The error decays **smoothly and slowly** — over tens to hundreds of microseconds — with no ringing.
-- It appears after the probe was moved to another scope or channel.`,
+- On signals much faster than that decay (a clock of several MHz) there is no visible corner at all: the **whole amplitude is off** by the same percentage, with flat tops.
+- It appears after the probe was moved to another scope or channel: **more input capacitance rounds the corners** (and reads fast signals low), less makes them spike.`,
   physics: `A 10x passive probe is two RC sections in series: the tip resistor R1 with a small capacitor C1 across it, over the scope input R2 with everything in parallel with it, C2 (input, cable, trimmer). At low frequency the resistors set the ratio; at high frequency the capacitors do. The divider is flat for all frequencies only when the two sections have the same time constant, **R1·C1 = R2·C2** — that is what the trimmer adjusts.
 
-When they differ, an edge first jumps to the capacitive ratio and then settles to the resistive one with the divider's time constant. Every input has a slightly different C2, so a probe adjusted on one channel is off on another.`,
+When they differ, an edge first jumps to the capacitive ratio and then settles to the resistive one with the divider's time constant. A signal much faster than that time constant never settles: it is divided by the capacitive ratio throughout, so its amplitude is off by the corner error and its tops are flat.
+
+Every input has a slightly different capacitance, and it sits in C2. Moving a probe adjusted on a 16 pF input to a 20 pF one adds 4 pF to C2: the capacitive ratio drops, the probe is now **under**-compensated, and the corners round off. Adding capacitance never makes a spike.`,
   formulas: [
     { text: 'jump = C1 / (C1 + C2)', meaning: 'level right after the edge' },
     { text: 'settle = R2 / (R1 + R2)', meaning: 'level it decays to' },
@@ -57,7 +62,9 @@ When they differ, an edge first jumps to the capacitive ratio and then settles t
     { text: 'R1·C1 = R2·C2', meaning: 'flat: correctly compensated' },
     { text: 'corner = (jump / settle − 1) × 100 %', meaning: 'overshoot (+) or undershoot (−)' },
   ],
-  example: `9 MΩ over 1 MΩ with C2 ≈ 110 pF: τ ≈ 0.9 MΩ × 120 pF ≈ **110 µs**. That is why a 1 kHz square shows it and a 12 MHz clock cannot.`,
+  example: `A 10x probe with 11 pF at the tip has C1 ≈ 12.2 pF and C2 = 110 pF when trimmed; τ ≈ 0.9 MΩ × 122 pF ≈ **110 µs**, which is why a 1 kHz square shows the corners best.
+
+Moved to a scope with 4 pF more input: C2 = 114 pF, jump = 12.2 / 126.2 = 0.0968 against settle = 0.1, corner = **−3.2 %** (rounded), settling over about 114 µs. On a 12 MHz clock the same probe reads the whole clock 3.2 % low, flat-topped.`,
   diagnose: {
     'probe.attenuation': 10,
     'scope.attenuationSetting': 10,
@@ -67,9 +74,9 @@ When they differ, an edge first jumps to the capacitive ratio and then settles t
     'signal.frequencyHz': 1000,
     'signal.kind': 'square',
     'observed.amplitudeV': 5,
-    'observed.overshootPct': 18,
+    'observed.overshootPct': -3,
   },
-  fix: `Connect the probe to the scope's calibrator square wave on the channel you will use and turn the trimmer until the top is flat — no spike, no rounding. Repeat whenever the probe changes channel or scope.`,
+  fix: `Connect the probe to the scope's calibrator square wave on the channel you will use and turn the trimmer until the top is flat — no spike, no rounding. Repeat whenever the probe changes channel or scope. If a fast clock reads a few percent off, check the compensation on the calibrator before doubting the clock.`,
   sources: [
     { label: 'Circuit analysis of the compensated RC divider (Laplace transform of Z2/(Z1+Z2))', note: 'derivation' },
     { label: 'Compensating on the calibrator square wave', note: 'common practice' },
@@ -86,7 +93,7 @@ export const GROUND_LEAD_TOPIC: HelpTopic = {
 - The circuit works fine; only the measurement rings.`,
   physics: `The probe's ground lead is a wire, and a wire has inductance — about 1 nH per millimetre for a thin lead, so a 15 cm clip lead is near 190 nH. Together with the capacitance at the probe tip it forms a **series resonant circuit** driven by the edge. The source resistance is the only damping, and a low-impedance driver barely damps it.
 
-The straight-wire formula gives the inductance from length and wire radius; the resonance is 1/(2π√(LC)); the damping ratio sets the overshoot. Working backwards, an observed ringing frequency gives the inductance and so the lead length — if that comes out as the length of the clip lead, the lead is the culprit. An edge much slower than the ring period excites it less.`,
+The straight-wire formula gives the inductance from length and wire radius; the resonance is 1/(2π√(LC)); the damping ratio sets the overshoot. Counting only the source resistance gives an upper bound on the overshoot: the probe's lossy cable and the lead's own resistance damp it further. Working backwards, an observed ringing frequency gives the inductance and so the lead length — if that comes out as the length of the clip lead, the lead is the culprit. An edge much slower than the ring period excites it less.`,
   formulas: [
     { text: 'L ≈ (μ0·l / 2π) · (ln(2l / r) − 3/4)', meaning: 'straight round wire, length l, radius r' },
     { text: 'f_ring = 1 / (2π · √(L · C))', meaning: 'resonance with the tip capacitance' },
@@ -107,7 +114,7 @@ The straight-wire formula gives the inductance from length and wire radius; the 
     'signal.riseTimeS': 3e-9,
     'signal.kind': 'square',
     'observed.ringingFrequencyHz': 110e6,
-    'observed.overshootPct': 68,
+    'observed.overshootPct': 66,
   },
   fix: `Use the shortest return: a ground spring on the tip barrel or a probe socket soldered at the test point. A 1 cm return moves the resonance far above the scope's bandwidth.`,
   sources: [

@@ -1,9 +1,11 @@
 import { ATTENUATION_TOPIC, LOADING_TOPIC, TERMINATION_TOPIC } from './amplitude-causes';
 import { BANDWIDTH_TOPIC, COMPENSATION_TOPIC, GROUND_LEAD_TOPIC } from './edge-causes';
+import { AC_COUPLING_TOPIC, ALIASING_TOPIC, CLIPPING_TOPIC } from './acquisition-causes';
+import { COMMON_MODE_TOPIC, GENERATOR_LOAD_TOPIC, MAINS_PICKUP_TOPIC } from './reference-causes';
 import { ENGINE_TOPIC, SAFETY_TOPIC } from './general';
 import type { HelpTopic } from './types';
 
-/** The six causes in the engine's order, then the pages that are not causes. */
+/** The twelve causes in the engine's order, then the pages that are not causes. */
 export const HELP_TOPICS: HelpTopic[] = [
   ATTENUATION_TOPIC,
   TERMINATION_TOPIC,
@@ -11,6 +13,12 @@ export const HELP_TOPICS: HelpTopic[] = [
   BANDWIDTH_TOPIC,
   COMPENSATION_TOPIC,
   GROUND_LEAD_TOPIC,
+  ALIASING_TOPIC,
+  CLIPPING_TOPIC,
+  AC_COUPLING_TOPIC,
+  COMMON_MODE_TOPIC,
+  MAINS_PICKUP_TOPIC,
+  GENERATOR_LOAD_TOPIC,
   SAFETY_TOPIC,
   ENGINE_TOPIC,
 ];

@@ -13,6 +13,11 @@ export const SYMPTOM_CHIPS = [
   'Spikes on square-wave corners',
   'Amplitude falls with frequency',
   'DC level sags',
+  'Looks slower than it is',
+  'Tops flattened',
+  'Tops droop',
+  'Hum on every channel',
+  'Reads double',
 ] as const;
 
 /**

@@ -26,7 +26,7 @@ export const PREDICTED_ROWS: PredictedRow[] = [
   { key: 'overshootPct', label: 'Overshoot', unit: '%' },
   { key: 'ringingFrequencyHz', label: 'Ringing', unit: 'Hz' },
   { key: 'frequencyHz', label: 'Frequency', unit: 'Hz' },
-  { key: 'tiltPct', label: 'Tilt', unit: '%' },
+  { key: 'tiltPct', label: 'Tilt of the tops', unit: '%' },
   { key: 'humFrequencyHz', label: 'Hum', unit: 'Hz' },
 ];
 

@@ -196,6 +196,7 @@ export const PRESETS: DiagnosePreset[] = [
   {
     id: 'hum-on-a-sensor',
     label: 'Hum on a sensor line',
+    // the 1 kHz signal reads right; a 50 Hz line rides on it (the amplitude is the signal's, the hum is extra)
     values: {
       ...tenXOnFast,
       'circuit.sourceResistanceOhm': '10 kΩ',
@@ -204,7 +205,8 @@ export const PRESETS: DiagnosePreset[] = [
       'signal.expectedAmplitudeV': '20 mV',
       'signal.frequencyHz': '1 kHz',
       'signal.kind': 'sine',
-      'observed.amplitudeV': '65 mV',
+      'observed.amplitudeV': '20 mV',
+      'observed.frequencyHz': '1 kHz',
       'observed.humFrequencyHz': '50 Hz',
     },
   },

@@ -50,6 +50,29 @@ describe.skipIf(skipBrowser)('verdicts, new setup fields and the safety note in 
     await context.close();
   });
 
+  it('should rank each new cause first on its own preset, with its plot where the cause has one', async () => {
+    const { context, page } = await signedInPage(app.browser, app.server.baseUrl, 'engineer@falsetrace.test');
+    // preset → the cause its invented numbers were chosen to show (src/features/diagnosis/form/presets.ts)
+    const presets: [string, string][] = [
+      ['slow-sample-rate', 'Aliasing: sample rate too low'],
+      ['trace-off-screen', 'Clipping: trace beyond the screen'],
+      ['ac-coupled-square', 'AC coupling droop or lost DC level'],
+      ['shunt-on-a-48-v-rail', 'Common-mode or reference error'],
+      ['hum-on-a-sensor', 'Mains hum or ground loop'],
+      ['generator-set-for-50-ohm', 'Generator load setting mismatch'],
+    ];
+    for (const [preset, label] of presets) {
+      await page.goto(`${app.server.baseUrl}/diagnose?preset=${preset}`);
+      const top = causes(page).first();
+      await top.getByRole('heading', { name: new RegExp(`^1\\.\\s*${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}$`) }).waitFor();
+      // hum is a spectral line the explanation names; it has no plot of its own
+      if (preset === 'hum-on-a-sensor') await top.getByText(/^No plot:/).waitFor();
+      else await top.locator('figure').first().waitFor();
+    }
+    await screenshot(page, 'diagnose-generator-load');
+    await context.close();
+  });
+
   it('should fold the new field groups until they are needed and open them for a preset that fills them', async () => {
     const { context, page } = await signedInPage(app.browser, app.server.baseUrl, 'engineer@falsetrace.test');
     await page.goto(`${app.server.baseUrl}/diagnose`);

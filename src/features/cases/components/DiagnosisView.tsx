@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import type { CaseSetup } from '../../../../shared/schemas/case';
 import type { DiagnosisResult, Hypothesis } from '../../../../shared/schemas/diagnosis';
 import { formatEngineering } from '../../../../shared/units/engineering';
@@ -66,10 +67,12 @@ export interface DiagnosisViewProps {
   observed: Observed | null | undefined;
   /** How many hypotheses to list; the first is opened. */
   limit?: number;
+  /** Shown right under the verdict (the live panel puts the risks there). */
+  afterVerdict?: ReactNode;
 }
 
 /** The engine's verdict, then its ranked hypotheses: fit, likelihood, predicted against observed, the test, the fix, what it assumed. */
-export function DiagnosisView({ result, observed, limit = 6 }: DiagnosisViewProps) {
+export function DiagnosisView({ result, observed, limit = 6, afterVerdict }: DiagnosisViewProps) {
   const obs = observed ?? {};
   const judged = observedAnything(obs);
   const shown = result.hypotheses.slice(0, limit);
@@ -77,6 +80,7 @@ export function DiagnosisView({ result, observed, limit = 6 }: DiagnosisViewProp
   return (
     <div className="flex flex-col gap-3">
       <VerdictSummary result={result} observedAny={judged} recordNext={recordNext(result, obs)} compact />
+      {afterVerdict}
       <ol className="flex flex-col gap-2" aria-label="Hypotheses, most likely first">
         {shown.map((h, i) => (
           <li key={h.causes.join('+')} data-testid={`hypothesis-${h.causes.join('+')}`} className="rounded-md border border-rule bg-paper/50 p-2.5">

@@ -1,7 +1,37 @@
-import { CAUSE_LABELS, type Cause } from '../../../../shared/schemas/diagnosis';
+import { CAUSE_LABELS, type Cause, type Risk } from '../../../../shared/schemas/diagnosis';
 import type { CaseFormApi } from '../form/case-form-schema';
 import type { LiveDiagnosis } from '../hooks/use-live-diagnosis';
 import { DiagnosisView, observedAnything } from './DiagnosisView';
+
+/** The engine's risks in brief: hazards always in sight, cautions one click away; the full caution sits above the form. */
+function RiskList({ risks }: { risks: Risk[] }) {
+  if (risks.length === 0) return null;
+  const hazards = risks.filter((r) => r.level === 'hazard');
+  const cautions = risks.filter((r) => r.level === 'caution');
+  return (
+    <div className="flex flex-col gap-1 text-xs" aria-label="Risks" role="group">
+      {hazards.map((r) => (
+        <p key={r.id} className="rounded-md border-l-4 border-hazard bg-hazard-soft px-3 py-1.5">
+          <span className="font-semibold text-hazard">Hazard: </span>
+          {r.message}
+        </p>
+      ))}
+      {cautions.length > 0 && (
+        <details className="rounded-md border-l-4 border-caution bg-caution-soft px-3 py-1.5">
+          <summary className="cursor-pointer font-semibold">
+            {cautions.length === 1 ? '1 caution' : `${cautions.length} cautions`}
+          </summary>
+          <ul className="mt-1 flex flex-col gap-1">
+            {cautions.map((r) => (
+              <li key={r.id}>{r.message}</li>
+            ))}
+          </ul>
+        </details>
+      )}
+      <p className="text-muted">The safety caution above the form says how to probe it; record how you did in the Safety note.</p>
+    </div>
+  );
+}
 
 /** The live diagnosis beside the form: the verdict first, then the hypotheses, the risks and what the engine assumed. */
 export function LiveDiagnosisPanel({ form, live }: { form: CaseFormApi; live: LiveDiagnosis }) {
@@ -18,18 +48,7 @@ export function LiveDiagnosisPanel({ form, live }: { form: CaseFormApi; live: Li
       </h2>
       <p className="mt-0.5 mb-3 text-xs text-muted">Recomputed from the setup as you type. Record what you observed to get a verdict.</p>
       {failed && <p className="text-sm text-caution">The engine could not read this setup; check the values in the form.</p>}
-      {result && result.risks.length > 0 && (
-        <ul className="mb-3 flex flex-col gap-1 text-xs" aria-label="Risks">
-          {result.risks.map((r) => (
-            <li key={r.id} className={`rounded-md border-l-4 px-3 py-1.5 ${r.level === 'hazard' ? 'border-hazard bg-hazard-soft' : 'border-caution bg-caution-soft'}`}>
-              <span className={`font-semibold ${r.level === 'hazard' ? 'text-hazard' : ''}`}>{r.level === 'hazard' ? 'Hazard: ' : 'Caution: '}</span>
-              {r.message}
-            </li>
-          ))}
-          <li className="text-muted">The safety caution above the form says how to probe it; record how you did in the Safety note.</li>
-        </ul>
-      )}
-      {result && <DiagnosisView result={result} observed={setup.observed} limit={3} />}
+      {result && <DiagnosisView result={result} observed={setup.observed} limit={3} afterVerdict={<RiskList risks={result.risks} />} />}
       {disagrees && stated && (
         <p className="mt-3 rounded-md border-l-4 border-caution bg-caution-soft px-3 py-2 text-xs">
           {result?.verdict === 'faithful'

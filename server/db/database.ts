@@ -59,6 +59,8 @@ export interface CasesTable {
   fix: string | null;
   lesson_summary: string | null;
   lesson_detail: string | null;
+  /** Added by migration 0006; null on cases saved before it. */
+  safety_note: Generated<string | null>;
   status: Generated<CaseStatus>;
   /** JSON of DiagnosisResult */
   diagnosis: string | null;

@@ -56,6 +56,7 @@ export function toCase(row: CaseRowWithAuthor, tags: string[], attachments: Atta
     fix: row.fix,
     lessonSummary: row.lesson_summary,
     lessonDetail: row.lesson_detail,
+    safetyNote: row.safety_note ?? null,
     diagnosis: parseJson<DiagnosisResult | null>(row.diagnosis, null),
     disagreesWithEngine: row.disagrees === 1,
     attachments: attachments.map(toAttachment),

@@ -89,6 +89,7 @@ export async function exportCasebook(deps: AppDeps, actor: Actor, filters: Caseb
     fix: r.fix,
     lessonSummary: r.lesson_summary,
     lessonDetail: r.lesson_detail,
+    safetyNote: r.safety_note ?? null,
     tags: tags.get(r.id) ?? [],
     status: r.status as CaseStatus,
     reviewNote: r.review_note,

@@ -157,6 +157,7 @@ export async function importCasebook(deps: AppDeps, actor: Actor, zip: Uint8Arra
           fix: c.fix ?? null,
           lesson_summary: c.lessonSummary ?? null,
           lesson_detail: c.lessonDetail ?? null,
+          safety_note: c.safetyNote ?? null,
           status: c.status,
           diagnosis: diagnosis.diagnosis ? JSON.stringify(diagnosis.diagnosis) : null,
           engine_cause: diagnosis.engineCause,

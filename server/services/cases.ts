@@ -44,6 +44,7 @@ async function snapshotOf(db: Db, id: number): Promise<string> {
     fix: row.fix,
     lessonSummary: row.lesson_summary,
     lessonDetail: row.lesson_detail,
+    safetyNote: row.safety_note,
     tags: await authorTagsOf(db, id),
   };
   return JSON.stringify(snapshot);
@@ -66,6 +67,7 @@ export async function createCase({ db, search }: AppDeps, actor: Actor, input: C
       fix: input.fix ?? null,
       lesson_summary: input.lessonSummary ?? null,
       lesson_detail: input.lessonDetail ?? null,
+      safety_note: input.safetyNote ?? null,
       diagnosis: d.diagnosis ? JSON.stringify(d.diagnosis) : null,
       engine_cause: d.engineCause,
       cause: d.cause,
@@ -104,6 +106,7 @@ export async function updateCase({ db, search }: AppDeps, actor: Actor, id: numb
       ...(input.fix !== undefined && { fix: input.fix }),
       ...(input.lessonSummary !== undefined && { lesson_summary: input.lessonSummary }),
       ...(input.lessonDetail !== undefined && { lesson_detail: input.lessonDetail }),
+      ...(input.safetyNote !== undefined && { safety_note: input.safetyNote }),
       ...(input.statedCauseOther !== undefined && { stated_cause_other: input.statedCauseOther }),
       setup: JSON.stringify(setup),
       stated_cause: statedCause ?? null,
@@ -130,7 +133,7 @@ export async function updateCase({ db, search }: AppDeps, actor: Actor, id: numb
 function pick(row: CaseRowWithAuthor, fields: string[]): Record<string, unknown> {
   const column: Record<string, keyof CaseRowWithAuthor> = {
     title: 'title', summary: 'summary', narrative: 'narrative', setup: 'setup', statedCause: 'stated_cause', statedCauseOther: 'stated_cause_other',
-    fix: 'fix', lessonSummary: 'lesson_summary', lessonDetail: 'lesson_detail',
+    fix: 'fix', lessonSummary: 'lesson_summary', lessonDetail: 'lesson_detail', safetyNote: 'safety_note',
   };
   return Object.fromEntries(fields.filter((f) => column[f]).map((f) => [f, f === 'setup' ? JSON.parse(row.setup) : row[column[f]]]));
 }

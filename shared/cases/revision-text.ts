@@ -32,6 +32,7 @@ export function revisionText(s: CaseCreateInput): string {
     `Fix: ${s.fix ?? ''}`,
     `Lesson: ${s.lessonSummary ?? ''}`,
     `Lesson detail: ${s.lessonDetail ?? ''}`,
+    ...(s.safetyNote ? [`Safety note: ${s.safetyNote}`] : []),
     'Narrative:',
     s.narrative ?? '',
   ].join('\n');

@@ -1,6 +1,6 @@
 import { hazardousLive } from '../safety/hazard';
 import type { Case } from '../schemas/case';
-import { CAUSE_LABELS, CAUSES, type Cause } from '../schemas/diagnosis';
+import { CAUSE_LABELS, CAUSES, type Cause, type Hypothesis } from '../schemas/diagnosis';
 
 export type CheckState = 'pass' | 'attention' | 'not_needed';
 
@@ -12,11 +12,10 @@ export interface CheckItem {
 }
 
 const normal = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, ' ').trim();
-const SAFETY_WORDS = /(isolat|differential|protective earth|ground clip|mains|hazard|safety|insulat|measurement categor|\bcat ?(ii|iii|iv)\b|licensed|local code)/i;
 
 /**
- * Whether the case's setup reaches the IEC 61010-1 hazardous-live limits or touches mains:
- * the highest voltage present, or a reference node that far from earth (a peak value).
+ * Whether the recorded setup touches mains, a hazardous-live voltage or a reference node that
+ * far from earth (a peak value), whatever the engine says: a floor under its risks.
  */
 export function caseNeedsSafetyNote(c: Pick<Case, 'setup'>): boolean {
   const circuit = c.setup.circuit;
@@ -29,30 +28,48 @@ export function caseNeedsSafetyNote(c: Pick<Case, 'setup'>): boolean {
   );
 }
 
-/** The review desk's checklist, filled in from the case itself (shared by server and client). */
-export function reviewChecklist(c: Case): CheckItem[] {
-  const top = c.diagnosis?.hypotheses[0];
+const ENGINE_LABEL = 'Engine agrees with the stated cause';
+const pct = (x: number) => `${Math.round(x * 100)} %`;
+const nameOf = (h: Hypothesis) => h.causes.map((k) => CAUSE_LABELS[k]).join(' + ');
+const observedAnything = (c: Pick<Case, 'setup'>) =>
+  Object.entries(c.setup.observed ?? {}).some(([k, v]) => k !== 'description' && v !== null && v !== undefined);
+
+/**
+ * "Engine agrees": the stated cause is one of the hypotheses that fit (alone or as a member of
+ * a combined one). A faithful verdict says the setup explains the trace, so it does not back a
+ * probing cause; neither does a ranking made with nothing observed.
+ */
+function engineCheck(c: Case): CheckItem {
+  const attention = (detail: string): CheckItem => ({ id: 'engine_agrees', label: ENGINE_LABEL, state: 'attention', detail });
   const stated = c.statedCause;
-  let engine: CheckItem;
-  if (!stated) engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: 'No root cause is stated.' };
-  else if (stated === 'other') engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: `Stated cause is outside the engine's models (${c.statedCauseOther ?? 'other'}); judge it yourself.` };
-  else if (!top) engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: 'No diagnosis was computed for this setup.' };
-  else if (c.diagnosis!.hypotheses[1] && top.likelihood - c.diagnosis!.hypotheses[1].likelihood < 1e-3)
-    engine = { id: 'engine_agrees', label: 'Engine agrees with the stated cause', state: 'attention', detail: 'The recorded setup does not single out one cause; ask for the setup values and the observation.' };
-  else {
-    const statedH = c.diagnosis!.hypotheses.find((h) => h.cause === stated);
-    const agrees = top.cause === stated;
-    const pct = (x: number) => `${Math.round(x * 100)} %`;
-    const gap = statedH?.residual !== undefined ? ` Its predictions differ from the observation by a log-ratio residual of ${statedH.residual.toFixed(2)}.` : '';
-    engine = {
+  const d = c.diagnosis;
+  if (!stated) return attention('No root cause is stated.');
+  if (stated === 'other') return attention(`Stated cause is outside the engine's models (${c.statedCauseOther ?? 'other'}); judge it yourself.`);
+  if (!d || d.hypotheses.length === 0) return attention('No diagnosis was computed for this setup.');
+  if (!observedAnything(c)) return attention('Nothing observed is recorded, so the engine cannot test the stated cause; ask for what the scope showed.');
+  const label = CAUSE_LABELS[stated];
+  if (d.verdict === 'faithful') return attention(`Stated ${label}, but the engine finds the trace true: the recorded setup explains what was seen.`);
+  const fitting = d.hypotheses.filter((h) => h.fits && h.cause !== 'faithful');
+  const backing = fitting.find((h) => h.causes.includes(stated));
+  if (backing) {
+    const alone = backing.causes.length === 1 ? '' : ` (as part of ${nameOf(backing)})`;
+    return {
       id: 'engine_agrees',
-      label: 'Engine agrees with the stated cause',
-      state: agrees ? 'pass' : 'attention',
-      detail: agrees
-        ? `Engine's top cause is ${CAUSE_LABELS[top.cause]} (${pct(top.likelihood)}).${gap}`
-        : `Stated ${CAUSE_LABELS[stated as Cause]} (${pct(statedH?.likelihood ?? 0)}), but the engine ranks ${CAUSE_LABELS[top.cause]} first (${pct(top.likelihood)}).${gap}`,
+      label: ENGINE_LABEL,
+      state: 'pass',
+      detail: `${label} fits the observation${alone}: residual ${backing.residual.toFixed(2)}, ${pct(backing.likelihood)} likely.`,
     };
   }
+  const own = d.hypotheses.find((h) => h.causes.length === 1 && h.cause === stated);
+  const ownText = own ? ` Its residual is ${own.residual.toFixed(2)}, outside the fit.` : '';
+  if (d.verdict === 'unexplained') return attention(`Stated ${label}, but nothing the engine models fits this observation.${ownText}`);
+  const others = fitting.map(nameOf).join('; ');
+  return attention(`Stated ${label} does not fit the observation.${ownText} What fits: ${others || 'nothing'}.`);
+}
+
+/** The review desk's checklist, filled in from the case itself (shared by server and client). */
+export function reviewChecklist(c: Case): CheckItem[] {
+  const engine = engineCheck(c);
   const captures = c.attachments.filter((a) => a.kind === 'capture').length;
   const shots = c.attachments.length - captures;
   const evidence: CheckItem = {
@@ -69,17 +86,15 @@ export function reviewChecklist(c: Case): CheckItem[] {
     state: lessonOk ? 'pass' : 'attention',
     detail: !lessonText ? 'No lesson written.' : lessonOk ? `“${lessonText}”` : 'The lesson only repeats the title or summary, or is too short to act on.',
   };
-  const needed = caseNeedsSafetyNote(c);
-  const text = [c.narrative, c.fix, c.lessonSummary, c.lessonDetail].filter(Boolean).join('\n');
+  const risks = c.diagnosis?.risks ?? [];
+  const needed = risks.length > 0 || caseNeedsSafetyNote(c);
+  const note = c.safetyNote?.trim() ?? '';
+  const why = risks.length > 0 ? `The engine raises ${risks.length === 1 ? 'a risk' : `${risks.length} risks`}: ${risks.map((r) => r.message).join(' ')}` : 'Mains, a voltage above our warning level or a reference node that far from earth is recorded.';
   const safety: CheckItem = {
     id: 'safety',
     label: 'Safety note present where needed',
-    state: !needed ? 'not_needed' : SAFETY_WORDS.test(text) ? 'pass' : 'attention',
-    detail: !needed
-      ? 'No mains connection, hazardous-live voltage or reference node away from earth recorded.'
-      : SAFETY_WORDS.test(text)
-        ? 'The write-up addresses safe probing of the hazardous circuit.'
-        : 'Mains, a hazardous-live voltage or a reference node far from earth recorded, but the write-up says nothing about safe probing.',
+    state: !needed ? 'not_needed' : note ? 'pass' : 'attention',
+    detail: !needed ? 'The engine raises no risk for this setup.' : note ? `Safety note: “${note}”` : `${why} The Safety note is empty: ask the author how the circuit was probed safely.`,
   };
   return [engine, evidence, lesson, safety];
 }

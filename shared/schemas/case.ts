@@ -77,6 +77,8 @@ const caseFields = {
   fix: optionalText('Fix', 5000),
   lessonSummary: optionalText('Lesson', 200),
   lessonDetail: optionalText('Lesson detail', 5000),
+  /** How to probe this circuit safely; the review asks for it whenever the engine raises a risk. */
+  safetyNote: optionalText('Safety note', 2000),
   tags: z.array(tagSchema).max(12, 'At most 12 tags').optional(),
 };
 
@@ -127,6 +129,7 @@ export const caseSchema = z.object({
   fix: z.string().nullable(),
   lessonSummary: z.string().nullable(),
   lessonDetail: z.string().nullable(),
+  safetyNote: z.string().nullable(),
   tags: z.array(z.string()),
   diagnosis: diagnosisResultSchema.nullable(),
   /** True when the stated cause differs from the engine's top cause (moderators look twice). */

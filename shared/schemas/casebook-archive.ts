@@ -60,6 +60,8 @@ export const archivedCaseSchema = z.object({
   fix: write.fix,
   lessonSummary: write.lessonSummary,
   lessonDetail: write.lessonDetail,
+  /** Absent in archives written before the field existed. */
+  safetyNote: write.safetyNote,
   /** The author's tags; the engine's are recomputed on import. */
   tags: z.array(tagSchema).max(12, 'At most 12 tags'),
   status: caseStatusSchema,

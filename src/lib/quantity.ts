@@ -2,9 +2,20 @@ import { formatEngineering, parseEngineering } from '../../shared/units/engineer
 
 /**
  * Units a form field can ask for. `x` is a ratio written "10x" (probe attenuation); `%` is a
- * plain percentage; the rest are SI units read with engineering prefixes.
+ * plain percentage; `dB` a level in decibels; `#` a plain count (divisions); the rest are SI
+ * units read with engineering prefixes (`Sa/s` and `V/div` too: "1 GSa/s", "500 mV/div").
  */
-export type QuantityUnit = 'F' | 'Ω' | 'Hz' | 's' | 'V' | 'm' | 'x' | '%';
+export type QuantityUnit = 'F' | 'Ω' | 'Hz' | 's' | 'V' | 'm' | 'x' | '%' | 'Sa/s' | 'V/div' | 'dB' | '#';
+
+/** Suffixes a field drops before reading the number, and the unit the rest is read in. */
+const SUFFIXES: Partial<Record<QuantityUnit, { re: RegExp; unit: string }>> = {
+  x: { re: /\s*[xX×]$/, unit: '' },
+  '%': { re: /\s*%$/, unit: '' },
+  'Sa/s': { re: /\s*(?:Sa\/s|S\/s|sps|SPS)$/, unit: '' },
+  'V/div': { re: /\s*\/\s*div$/i, unit: 'V' },
+  dB: { re: /\s*dB$/i, unit: '' },
+  '#': { re: /(?!)/, unit: '' },
+};
 
 export type QuantityReading = { kind: 'empty' } | { kind: 'ok'; value: number } | { kind: 'error'; message: string };
 
@@ -12,9 +23,9 @@ export type QuantityReading = { kind: 'empty' } | { kind: 'ok'; value: number } 
 export function readQuantity(text: string, unit: QuantityUnit): QuantityReading {
   let t = text.trim();
   if (t === '') return { kind: 'empty' };
-  if (unit === 'x') t = t.replace(/\s*[xX×]$/, '');
-  if (unit === '%') t = t.replace(/\s*%$/, '');
-  const parsed = parseEngineering(t, unit === 'x' || unit === '%' ? '' : unit);
+  const suffix = SUFFIXES[unit];
+  if (suffix) t = t.replace(suffix.re, '');
+  const parsed = parseEngineering(t, suffix ? suffix.unit : unit);
   if (!parsed.ok) return { kind: 'error', message: explain(parsed.error, unit) };
   return { kind: 'ok', value: parsed.value };
 }
@@ -33,12 +44,18 @@ const EXAMPLES: Record<QuantityUnit, string> = {
   m: '"15 cm" or "0.15"',
   x: '"10x" or "10"',
   '%': '"12 %" or "-5"',
+  'Sa/s': '"1 GSa/s" or "500M"',
+  'V/div': '"500 mV/div" or "0.5"',
+  dB: '"60 dB" or "40"',
+  '#': '"8" or "10"',
 };
 
 /** A value for reading at a glance: 3 significant figures, engineering prefix. */
 export function showQuantity(value: number, unit: QuantityUnit, digits = 3): string {
   if (unit === 'x') return `${Number(value.toPrecision(Math.max(digits, 6)))}x`;
   if (unit === '%') return `${Number(value.toPrecision(digits))} %`;
+  if (unit === 'dB') return `${Number(value.toPrecision(digits))} dB`;
+  if (unit === '#') return String(Number(value.toPrecision(digits)));
   return formatEngineering(value, unit, digits);
 }
 
@@ -46,5 +63,7 @@ export function showQuantity(value: number, unit: QuantityUnit, digits = 3): str
 export function editableQuantity(value: number | null | undefined, unit: QuantityUnit): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '';
   if (unit === 'x' || unit === '%') return `${Number(value.toPrecision(12))}${unit === 'x' ? 'x' : ' %'}`;
+  if (unit === 'dB') return `${Number(value.toPrecision(12))} dB`;
+  if (unit === '#') return String(Number(value.toPrecision(12)));
   return formatEngineering(value, unit, 12).replace(/^(-?\d+\.\d*?)0+(?=\s|$)/, '$1').replace(/\.(?=\s|$)/, '');
 }

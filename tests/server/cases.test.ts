@@ -54,6 +54,30 @@ describe('case write-ups', () => {
     expect(again.body.error).toMatch(/in review cannot be edited/);
   });
 
+  it('should store the new setup fields and the safety note', async () => {
+    // an invented bench: a 60 V bus probed differentially, its reference node 48 V from earth
+    const setup = {
+      probe: { nominalAttenuation: 50, kind: 'differential', cmrrDb: 60 },
+      scope: { attenuationSetting: 50, coupling: 'dc', sampleRateHz: 1e9, voltsPerDiv: 10, offsetV: 0, divisions: 8, riseTimeS: 1.2e-9 },
+      circuit: { loadResistanceOhm: 1e3, referenceV: 48, highestVoltageV: 60, mainsConnected: false, mainsFrequencyHz: 50 },
+      signal: { expectedAmplitudeV: 12, frequencyHz: 100e3, baseV: 0, generatorLoad: 'high-z' },
+      observed: { amplitudeV: 12, frequencyHz: 100e3, clipped: false, tiltPct: 0, humFrequencyHz: 50 },
+    };
+    const safetyNote = 'Differential probe rated for the bus; the scope stays earthed.';
+    const created = await author.post('/api/cases', { title: 'Bus ripple with a differential probe', summary: 'Reading a high-side node', setup, safetyNote }).expect(201);
+    expect(created.body.case.setup).toMatchObject(setup);
+    expect(created.body.case.safetyNote).toBe(safetyNote);
+    const id = created.body.case.id;
+    const read = (await author.get(`/api/cases/${id}`).expect(200)).body.case;
+    expect(read.safetyNote).toBe(safetyNote);
+    expect(read.setup.scope.sampleRateHz).toBe(1e9);
+    const cleared = await author.patch(`/api/cases/${id}`, { safetyNote: null }).expect(200);
+    expect(cleared.body.case.safetyNote).toBeNull();
+    expect(cleared.body.case.setup.circuit.referenceV).toBe(48);
+    const bad = await author.post('/api/cases', { title: 'Bad fields', summary: 'out of range', setup: { scope: { coupling: 'gnd' }, observed: { tiltPct: 400 } } }).expect(400);
+    expect(bad.body.issues.map((i: { path: string }) => i.path)).toEqual(expect.arrayContaining(['setup.scope.coupling', 'setup.observed.tiltPct']));
+  });
+
   it('should refuse bad case input with field paths', async () => {
     const res = await author.post('/api/cases', { title: 'x', summary: '', setup: { probe: { tipCapacitanceF: -1 } } }).expect(400);
     const paths = res.body.issues.map((i: { path: string }) => i.path);

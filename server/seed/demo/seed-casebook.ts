@@ -133,6 +133,12 @@ async function runStep(deps: AppDeps, people: Map<string, User>, ids: Map<string
   }
 }
 
+/** The narrative's own "**Safety:**" paragraph, which the authors wrote before the Safety note field existed. */
+function safetyParagraph(narrative: string | undefined): string | undefined {
+  const match = /^\*\*Safety:\*\*\s*(.+)$/m.exec(narrative ?? '');
+  return match ? match[1].trim().slice(0, 2000) : undefined;
+}
+
 /**
  * Fills an empty casebook with the invented Quillfen Instruments team: its people (the three
  * demo accounts among them, all with `password`), and every case of the scenario written,
@@ -159,6 +165,7 @@ export async function seedDemoCasebook(deps: AppDeps, password: string): Promise
       fix: c.fix,
       lessonSummary: c.lessonSummary,
       lessonDetail: c.lessonDetail,
+      safetyNote: c.safetyNote ?? safetyParagraph(c.narrative),
       tags: c.tags,
     }));
     await backdateSince(deps.db, marks, c.createdAt);

@@ -36,6 +36,8 @@ export interface DemoCase {
   fix?: string;
   lessonSummary?: string;
   lessonDetail?: string;
+  /** The case's Safety note; when left out, the narrative's **Safety:** paragraph is used. */
+  safetyNote?: string;
   tags?: string[];
   /**
    * Files attached while the case is a draft: `captures/<key>.csv` (from the case's ngspice

@@ -11,7 +11,7 @@ export interface QuantityFieldProps extends Omit<InputHTMLAttributes<HTMLInputEl
 }
 
 // shown in an empty field, so the unit it expects is plain before anything is typed
-const unitHint = (unit: QuantityUnit) => (unit === 'x' ? 'ratio' : unit === '%' ? '%' : unit);
+const unitHint = (unit: QuantityUnit) => (unit === 'x' ? 'ratio' : unit === '#' ? 'number' : unit);
 
 /**
  * A text input for a measured value in engineering notation ("15 pF", "9Meg", "2.5 ns"):

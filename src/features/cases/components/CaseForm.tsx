@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useState } from 'react';
 import { useWatch } from 'react-hook-form';
 import { Link, useNavigate } from 'react-router-dom';
-import { hazardousLive } from '../../../../shared/safety/hazard';
+import { setupSafetyReasons } from '../../../../shared/safety/iec-61010';
 import type { Case } from '../../../../shared/schemas/case';
 import { Alert } from '../../../components/ui/Alert';
 import { Button } from '../../../components/ui/Button';
@@ -14,6 +14,7 @@ import { caseFormSchema } from '../form/case-form-schema';
 import { caseToFormValues } from '../form/case-form-values';
 import { useAttachmentUploads } from '../hooks/use-attachment-uploads';
 import { useCaseAutosave } from '../hooks/use-case-autosave';
+import { useLiveDiagnosis } from '../hooks/use-live-diagnosis';
 import { usePasteFiles } from '../hooks/use-paste-files';
 import { AttachmentsSection } from './AttachmentsSection';
 import { AutosaveStatus } from './AutosaveStatus';
@@ -72,7 +73,14 @@ export function CaseForm({ initialCase, userId, onCreated }: CaseFormProps) {
 
   const circuit = useWatch({ control: form.control, name: 'setup.circuit' });
   const volts = readQuantity(circuit.highestVoltageV, 'V');
-  const hazard = hazardousLive({ mainsConnected: circuit.mainsConnected === 'yes', highestVoltageV: volts.kind === 'ok' ? volts.value : undefined });
+  const reference = readQuantity(circuit.referenceV, 'V');
+  const setupReasons = setupSafetyReasons({
+    mainsConnected: circuit.mainsConnected === 'yes',
+    highestVoltageV: volts.kind === 'ok' ? volts.value : undefined,
+    referenceV: reference.kind === 'ok' ? reference.value : undefined,
+  });
+  const liveDiagnosis = useLiveDiagnosis(form);
+  const risks = liveDiagnosis.result?.risks ?? [];
 
   const reloadSaved = () => window.location.reload();
 
@@ -123,7 +131,7 @@ export function CaseForm({ initialCase, userId, onCreated }: CaseFormProps) {
           <p className="whitespace-pre-line">{current.reviewNote}</p>
         </Alert>
       )}
-      {hazard.hazardous && <SafetyCaution reasons={hazard.reasons} />}
+      <SafetyCaution risks={risks} setupReasons={setupReasons} />
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem] xl:grid-cols-[minmax(0,1fr)_24rem]">
         <div className="flex min-w-0 flex-col gap-5">
           <WhatHappenedSection form={form} />
@@ -142,7 +150,7 @@ export function CaseForm({ initialCase, userId, onCreated }: CaseFormProps) {
               </div>
             )}
           />
-          <CauseSection form={form} />
+          <CauseSection form={form} safetyNeeded={risks.length > 0 || setupReasons.length > 0} />
           <LessonSection form={form} />
           <p className="text-sm text-muted">
             Drafts save themselves as you type.{' '}
@@ -154,7 +162,7 @@ export function CaseForm({ initialCase, userId, onCreated }: CaseFormProps) {
           </p>
         </div>
         <aside className="min-w-0 lg:sticky lg:top-28 lg:max-h-[calc(100vh-8rem)] lg:self-start lg:overflow-y-auto">
-          <LiveDiagnosisPanel form={form} />
+          <LiveDiagnosisPanel form={form} live={liveDiagnosis} />
         </aside>
       </div>
     </form>

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { hazardousLive } from '../../../../shared/safety/hazard';
+import { setupSafetyReasons } from '../../../../shared/safety/iec-61010';
 import type { Attachment, Case } from '../../../../shared/schemas/case';
 import { Alert } from '../../../components/ui/Alert';
 import { Markdown } from '../../../components/ui/Markdown';
@@ -91,7 +91,7 @@ export function CasePage({ caseId, renderCapturePlot, renderCaptureComparison, h
   const engineTags = new Set(c.diagnosis?.tags ?? []);
   const shots = c.attachments.filter((a) => a.kind === 'screenshot');
   const captures = c.attachments.filter((a) => a.kind === 'capture');
-  const hazard = hazardousLive({ mainsConnected: c.setup.circuit?.mainsConnected ?? false, highestVoltageV: c.setup.circuit?.highestVoltageV ?? undefined });
+  const setupReasons = setupSafetyReasons(c.setup.circuit);
   return (
     <article aria-labelledby="case-title" className="flex flex-col gap-6">
       <header className="flex flex-col gap-3 border-b border-rule pb-4">
@@ -139,7 +139,15 @@ export function CasePage({ caseId, renderCapturePlot, renderCaptureComparison, h
           <p className="whitespace-pre-line">{c.reviewNote}</p>
         </Alert>
       )}
-      {hazard.hazardous && <SafetyCaution reasons={hazard.reasons} />}
+      <SafetyCaution risks={c.diagnosis?.risks ?? []} setupReasons={setupReasons} />
+      {c.safetyNote && (
+        <section aria-labelledby="safety-note-title" className="rounded-md border border-l-4 border-rule border-l-hazard bg-sheet px-4 py-3 text-sm">
+          <h2 id="safety-note-title" className="font-sans text-sm font-semibold">
+            Safety note
+          </h2>
+          <p className="mt-0.5 whitespace-pre-line">{c.safetyNote}</p>
+        </section>
+      )}
       {/* phones: one column in reading order (setup and diagnosis early); desktop: two columns */}
       <div className="flex flex-col gap-6 lg:grid lg:grid-cols-[minmax(0,1fr)_22rem] lg:items-start">
         <div className="contents lg:flex lg:min-w-0 lg:flex-col lg:gap-6">

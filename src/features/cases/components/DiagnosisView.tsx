@@ -1,62 +1,34 @@
+import type { ReactNode } from 'react';
 import type { CaseSetup } from '../../../../shared/schemas/case';
-import { CAUSE_LABELS, type DiagnosisResult, type Hypothesis } from '../../../../shared/schemas/diagnosis';
-import { LikelihoodBar } from '../../../components/ui/LikelihoodBar';
-import { showQuantity, type QuantityUnit } from '../../../lib/quantity';
+import type { DiagnosisResult, Hypothesis } from '../../../../shared/schemas/diagnosis';
 import { formatEngineering } from '../../../../shared/units/engineering';
+import { FitBadge } from '../../../components/ui/FitBadge';
+import { LikelihoodBar } from '../../../components/ui/LikelihoodBar';
+import { PredictedVsObserved } from '../../../components/ui/PredictedVsObserved';
+import { VerdictSummary } from '../../../components/ui/VerdictSummary';
+import { hypothesisName } from '../../../lib/hypothesis-words';
 import { SETUP_FIELD_LABELS } from './field-labels';
-
-const QUANTITIES: { key: 'amplitudeV' | 'riseTimeS' | 'overshootPct' | 'ringingFrequencyHz'; label: string; unit: QuantityUnit }[] = [
-  { key: 'amplitudeV', label: 'Amplitude', unit: 'V' },
-  { key: 'riseTimeS', label: 'Rise time', unit: 's' },
-  { key: 'overshootPct', label: 'Overshoot', unit: '%' },
-  { key: 'ringingFrequencyHz', label: 'Ringing', unit: 'Hz' },
-];
 
 type Observed = NonNullable<CaseSetup['observed']>;
 
-/** Within 15 % (or 3 points of overshoot) reads as agreeing; common practice for a bench reading, no source. */
-function agrees(key: string, predicted: number, observed: number): boolean {
-  if (key === 'overshootPct') return Math.abs(predicted - observed) <= 3;
-  return observed !== 0 && Math.abs(predicted / observed - 1) <= 0.15;
-}
-
-function PredictedVsObserved({ h, observed }: { h: Hypothesis; observed: Observed }) {
-  const rows = QUANTITIES.filter((q) => h.predicted[q.key] !== undefined || (observed[q.key] ?? null) !== null);
-  if (rows.length === 0) return null;
-  return (
-    <table className="mt-2 w-full text-xs">
-      <thead className="text-muted">
-        <tr>
-          <th className="py-0.5 text-left font-semibold">Quantity</th>
-          <th className="py-0.5 text-right font-semibold">Predicted</th>
-          <th className="py-0.5 text-right font-semibold">Observed</th>
-        </tr>
-      </thead>
-      <tbody className="font-mono">
-        {rows.map((q) => {
-          const p = h.predicted[q.key];
-          const o = observed[q.key] ?? undefined;
-          const tone = p !== undefined && o !== undefined ? (agrees(q.key, p, o) ? 'text-agree' : 'text-caution') : '';
-          return (
-            <tr key={q.key} className="border-t border-rule/60">
-              <th scope="row" className="py-0.5 text-left font-sans font-normal">
-                {q.label}
-              </th>
-              <td className={`py-0.5 text-right ${tone}`}>{p !== undefined ? showQuantity(p, q.unit) : '—'}</td>
-              <td className="py-0.5 text-right">{o !== undefined ? showQuantity(o, q.unit) : '—'}</td>
-            </tr>
-          );
-        })}
-      </tbody>
-    </table>
-  );
+/** Whether anything the scope showed is recorded (the words alone give the engine nothing to test). */
+export function observedAnything(observed: Observed | null | undefined): boolean {
+  return Object.entries(observed ?? {}).some(([k, v]) => k !== 'description' && v !== null && v !== undefined);
 }
 
 function HypothesisDetail({ h, observed }: { h: Hypothesis; observed: Observed }) {
   return (
     <>
-      <PredictedVsObserved h={h} observed={observed} />
+      <div className="mt-2">
+        <PredictedVsObserved hypothesis={h} observed={observed} dense />
+      </div>
       <p className="mt-2 text-sm">{h.explanation}</p>
+      {h.confirm && (
+        <p className="mt-1 text-sm">
+          <span className="font-semibold">Confirm at the bench: </span>
+          {h.confirm}
+        </p>
+      )}
       <p className="mt-1 text-sm">
         <span className="font-semibold">Fix: </span>
         {h.fix}
@@ -71,29 +43,54 @@ function assumptionValue(value: number | string, unit: string) {
   return formatEngineering(value, unit);
 }
 
+/** What to record when nothing fits: the values the engine had to assume, then the unobserved quantities. */
+function recordNext(result: DiagnosisResult, observed: Observed): string[] {
+  const assumed = result.assumptions.map((a) => SETUP_FIELD_LABELS[a.field] ?? a.field);
+  const unobserved = Object.entries(OBSERVED_LABELS)
+    .filter(([k]) => (observed[k as keyof Observed] ?? null) === null)
+    .map(([, label]) => label);
+  return [...new Set([...assumed, ...unobserved])];
+}
+
+const OBSERVED_LABELS: Record<string, string> = {
+  amplitudeV: 'observed amplitude',
+  riseTimeS: 'observed rise time',
+  overshootPct: 'overshoot',
+  ringingFrequencyHz: 'ringing frequency',
+  frequencyHz: 'observed frequency',
+  tiltPct: 'tilt',
+  humFrequencyHz: 'hum frequency',
+};
+
 export interface DiagnosisViewProps {
   result: DiagnosisResult;
   observed: Observed | null | undefined;
   /** How many hypotheses to list; the first is opened. */
   limit?: number;
+  /** Shown right under the verdict (the live panel puts the risks there). */
+  afterVerdict?: ReactNode;
 }
 
-/** The engine's ranked hypotheses: likelihood bars, predicted against observed, the fix, what it assumed. */
-export function DiagnosisView({ result, observed, limit = 6 }: DiagnosisViewProps) {
+/** The engine's verdict, then its ranked hypotheses: fit, likelihood, predicted against observed, the test, the fix, what it assumed. */
+export function DiagnosisView({ result, observed, limit = 6, afterVerdict }: DiagnosisViewProps) {
   const obs = observed ?? {};
+  const judged = observedAnything(obs);
   const shown = result.hypotheses.slice(0, limit);
   if (shown.length === 0) return <p className="text-sm text-muted">The engine has nothing to rank yet.</p>;
   return (
     <div className="flex flex-col gap-3">
+      <VerdictSummary result={result} observedAny={judged} recordNext={recordNext(result, obs)} compact />
+      {afterVerdict}
       <ol className="flex flex-col gap-2" aria-label="Hypotheses, most likely first">
         {shown.map((h, i) => (
-          <li key={h.cause} className="rounded-md border border-rule bg-paper/50 p-2.5">
+          <li key={h.causes.join('+')} data-testid={`hypothesis-${h.causes.join('+')}`} className="rounded-md border border-rule bg-paper/50 p-2.5">
             <details open={i === 0}>
               <summary className="cursor-pointer list-none">
-                <span className="flex items-baseline justify-between gap-2 text-sm font-semibold">
-                  <span>
-                    {i + 1}. {CAUSE_LABELS[h.cause]}
-                  </span>
+                <span className="block text-sm font-semibold">
+                  {i + 1}. {hypothesisName(h)}
+                </span>
+                <span className="mt-1 block">
+                  <FitBadge fits={h.fits} residual={h.residual} compared={judged} />
                 </span>
                 <LikelihoodBar value={h.likelihood} strong={i === 0} />
               </summary>
@@ -102,11 +99,6 @@ export function DiagnosisView({ result, observed, limit = 6 }: DiagnosisViewProp
           </li>
         ))}
       </ol>
-      {(result.risks ?? []).filter((r) => r.level === 'caution').map((r) => (
-        <p key={r.id} className="rounded-md border-l-4 border-caution bg-caution-soft px-3 py-2 text-xs">
-          {r.message}
-        </p>
-      ))}
       {result.assumptions.length > 0 && (
         <details className="text-xs">
           <summary className="cursor-pointer font-semibold">The engine assumed {result.assumptions.length} value{result.assumptions.length === 1 ? '' : 's'}</summary>

@@ -9,10 +9,13 @@ export function ExpectedVsObserved({ setup }: { setup: CaseSetup }) {
   const o = setup.observed ?? {};
   const rows: [string, number | null | undefined, number | null | undefined, QuantityUnit][] = [
     ['Amplitude', e.expectedAmplitudeV, o.amplitudeV, 'V'],
-    ['Frequency', e.frequencyHz, undefined, 'Hz'],
+    ['Low level', e.baseV, undefined, 'V'],
+    ['Frequency', e.frequencyHz, o.frequencyHz, 'Hz'],
     ['Rise time', e.riseTimeS, o.riseTimeS, 's'],
     ['Overshoot', undefined, o.overshootPct, '%'],
     ['Ringing', undefined, o.ringingFrequencyHz, 'Hz'],
+    ['Tilt', undefined, o.tiltPct, '%'],
+    ['Hum', undefined, o.humFrequencyHz, 'Hz'],
   ];
   const shown = rows.filter(([, a, b]) => (a ?? null) !== null || (b ?? null) !== null);
   const show = (v: number | null | undefined, unit: QuantityUnit) => (v === null || v === undefined ? '—' : showQuantity(v, unit));
@@ -43,6 +46,7 @@ export function ExpectedVsObserved({ setup }: { setup: CaseSetup }) {
       ) : (
         <p className="text-sm text-muted">No values recorded.</p>
       )}
+      {o.clipped != null && <p className="mt-2 text-sm">{o.clipped ? 'The trace was clipped at the edge of the screen.' : 'The trace stayed on the screen (not clipped).'}</p>}
       {o.description && <p className="mt-2 text-sm">{o.description}</p>}
     </div>
   );

@@ -3,6 +3,7 @@ import type { Case } from '../../../../shared/schemas/case';
 import { Alert } from '../../../components/ui/Alert';
 import { Button } from '../../../components/ui/Button';
 import type { CaseFormApi } from '../form/case-form-schema';
+import { emptyCaseForm } from '../form/case-form-values';
 import { clearLocalDraft, mergeEdits, readLocalDraft, type LocalDraft } from '../hooks/local-draft';
 
 const when = (iso: string) => new Date(iso).toLocaleString([], { dateStyle: 'medium', timeStyle: 'short' });
@@ -25,7 +26,8 @@ export function RestoreDraftBanner({ form, userId, caseId, serverCase }: Restore
   const newer = !serverCase || draft.editedAt > serverCase.updatedAt;
   const restore = () => {
     // only the fields changed in this browser go back; what was saved elsewhere meanwhile stays
-    const values = draft.baseValues ? mergeEdits(draft.baseValues, draft.values, form.getValues()) : draft.values;
+    // a draft kept before the form gained fields has no value for them: those take the blank form's
+    const values = draft.baseValues ? mergeEdits(draft.baseValues, draft.values, form.getValues()) : mergeEdits(emptyCaseForm(), draft.values, emptyCaseForm());
     form.reset(values, { keepDefaultValues: true });
     setDraft(null);
   };

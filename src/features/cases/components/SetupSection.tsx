@@ -1,7 +1,7 @@
 import { SelectField, TextField } from '../../../components/ui/Field';
-import { GROUND_KINDS, type GroundKind } from '../../../../shared/schemas/diagnosis';
+import { COUPLINGS, GENERATOR_LOADS, GROUND_KINDS, PROBE_KINDS, type Coupling, type GeneratorLoad, type GroundKind, type ProbeKind } from '../../../../shared/schemas/diagnosis';
 import type { CaseFormApi } from '../form/case-form-schema';
-import { FieldGroup, FormSection } from './FormSection';
+import { CollapsibleGroup, FieldGroup, FormSection } from './FormSection';
 import { FormQuantity } from './FormQuantity';
 
 const GROUND_LABELS: Record<GroundKind, string> = { 'clip-lead': 'Clip lead', spring: 'Short spring', none: 'None' };
@@ -11,6 +11,15 @@ const inputROptions = [
   { value: '1000000', label: '1 MΩ' },
   { value: '50', label: '50 Ω' },
 ];
+const PROBE_KIND_LABELS: Record<ProbeKind, string> = { passive: 'Passive', active: 'Active (FET)', differential: 'Differential', current: 'Current probe' };
+const COUPLING_LABELS: Record<Coupling, string> = { dc: 'DC', ac: 'AC' };
+const GENERATOR_LABELS: Record<GeneratorLoad, string> = { '50-ohm': 'Set for a 50 Ω load', 'high-z': 'Set for high impedance' };
+const notRecorded = { value: '', label: 'Not recorded' };
+const probeKindOptions = [notRecorded, ...PROBE_KINDS.map((k) => ({ value: k, label: PROBE_KIND_LABELS[k] }))];
+const couplingOptions = [notRecorded, ...COUPLINGS.map((k) => ({ value: k, label: COUPLING_LABELS[k] }))];
+const generatorOptions = [notRecorded, ...GENERATOR_LOADS.map((k) => ({ value: k, label: GENERATOR_LABELS[k] }))];
+const filled = (...values: (string | undefined)[]) => values.some((v) => (v ?? '').trim() !== '');
+
 const yesNo = [
   { value: '', label: 'Not recorded' },
   { value: 'yes', label: 'Yes' },
@@ -33,6 +42,10 @@ export function SetupSection({ form }: { form: CaseFormApi }) {
   const currentR = form.watch('setup.scope.inputResistanceOhm');
   const rOptions = currentR && !inputROptions.some((o) => o.value === currentR) ? [...inputROptions, { value: currentR, label: `${currentR} Ω` }] : inputROptions;
   const { errors } = form.formState;
+  const scope = form.watch('setup.scope');
+  const probe = form.watch('setup.probe');
+  const circuit = form.watch('setup.circuit');
+  const signal = form.watch('setup.signal');
   return (
     <FormSection id="setup" title="Setup" lead="Values take engineering notation: 15 pF, 9 MΩ or 9Meg, 120 MHz, 2.5 ns, 500m. Leave out what you did not record.">
       <FieldGroup legend="Probe">
@@ -68,6 +81,45 @@ export function SetupSection({ form }: { form: CaseFormApi }) {
         <SelectField label="Mains-connected equipment" options={yesNo} {...form.register('setup.circuit.mainsConnected')} />
         <FormQuantity form={form} name="setup.circuit.highestVoltageV" label="Highest voltage present" unit="V" placeholder="12 V" hint="Anywhere a probe or lead could touch." />
       </FieldGroup>
+      <CollapsibleGroup
+        legend="Acquisition"
+        lead="sample rate, vertical scale, coupling, rise time"
+        filled={filled(scope.sampleRateHz, scope.voltsPerDiv, scope.offsetV, scope.divisions, scope.coupling, scope.acCornerHz, scope.riseTimeS)}
+      >
+        <FormQuantity form={form} name="setup.scope.sampleRateHz" label="Sample rate" unit="Sa/s" placeholder="1 GSa/s" hint="What the scope really sampled at this timebase." />
+        <FormQuantity form={form} name="setup.scope.voltsPerDiv" label="Vertical scale" unit="V/div" placeholder="500 mV/div" />
+        <FormQuantity form={form} name="setup.scope.offsetV" label="Offset" unit="V" placeholder="0 V" hint="Input voltage at the screen's centre line." />
+        <FormQuantity form={form} name="setup.scope.divisions" label="Vertical divisions" unit="#" placeholder="8" hint="Blank for the usual 8." />
+        <SelectField label="Coupling" options={couplingOptions} {...form.register('setup.scope.coupling')} />
+        {scope.coupling === 'ac' && (
+          <FormQuantity form={form} name="setup.scope.acCornerHz" label="AC-coupling corner" unit="Hz" placeholder="10 Hz" hint="Data-sheet figure with a low-impedance source." />
+        )}
+        <FormQuantity form={form} name="setup.scope.riseTimeS" label="Scope rise time" unit="s" placeholder="1.2 ns" hint="Only when the data sheet gives one." />
+      </CollapsibleGroup>
+      <CollapsibleGroup
+        legend="Grounding and reference"
+        lead="probe kind, CMRR, reference node, mains frequency"
+        filled={filled(probe.kind, probe.cmrrDb, circuit.referenceV, circuit.mainsFrequencyHz)}
+      >
+        <SelectField label="Probe kind" options={probeKindOptions} {...form.register('setup.probe.kind')} />
+        {probe.kind === 'differential' && (
+          <FormQuantity form={form} name="setup.probe.cmrrDb" label="Probe CMRR" unit="dB" placeholder="60 dB" hint="Common-mode rejection at the signal frequency." />
+        )}
+        <FormQuantity
+          form={form}
+          name="setup.circuit.referenceV"
+          label="Reference node voltage"
+          unit="V"
+          placeholder="0 V"
+          hint="Peak voltage from earth of the node the probe's ground or reference lead is on."
+        />
+        <FormQuantity form={form} name="setup.circuit.mainsFrequencyHz" label="Mains frequency" unit="Hz" placeholder="50 Hz" />
+      </CollapsibleGroup>
+      <CollapsibleGroup legend="Source" lead="what the source drives, generator setting, low level" filled={filled(circuit.loadResistanceOhm, signal.generatorLoad, signal.baseV)}>
+        <FormQuantity form={form} name="setup.circuit.loadResistanceOhm" label="Load resistance" unit="Ω" placeholder="1 MΩ" hint="What the source really drives." />
+        <SelectField label="Generator load setting" options={generatorOptions} hint="The load the generator's amplitude setting assumes." {...form.register('setup.signal.generatorLoad')} />
+        <FormQuantity form={form} name="setup.signal.baseV" label="Signal low level" unit="V" placeholder="0 V" hint="Blank for 0 V (a sine: −A/2)." />
+      </CollapsibleGroup>
     </FormSection>
   );
 }

@@ -6,6 +6,11 @@ import { FieldGroup, FormSection } from './FormSection';
 import { FormQuantity } from './FormQuantity';
 
 const KIND_LABELS: Record<SignalKind, string> = { square: 'Square wave', sine: 'Sine wave', pulse: 'Pulse / single edge', dc: 'DC level', other: 'Other' };
+const clippedOptions = [
+  { value: '', label: 'Not recorded' },
+  { value: 'yes', label: 'Yes: tops or bottoms cut off' },
+  { value: 'no', label: 'No: the whole trace on screen' },
+];
 const kindOptions = [{ value: '', label: 'Not recorded' }, ...SIGNAL_KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))];
 
 export function SignalSection({ form }: { form: CaseFormApi }) {
@@ -24,6 +29,10 @@ export function SignalSection({ form }: { form: CaseFormApi }) {
         <FormQuantity form={form} name="setup.observed.riseTimeS" label="Observed rise time" unit="s" placeholder="8 ns" />
         <FormQuantity form={form} name="setup.observed.overshootPct" label="Overshoot" unit="%" placeholder="25 %" hint="Negative for undershoot." />
         <FormQuantity form={form} name="setup.observed.ringingFrequencyHz" label="Ringing frequency" unit="Hz" placeholder="180 MHz" />
+        <FormQuantity form={form} name="setup.observed.frequencyHz" label="Observed frequency" unit="Hz" placeholder="1 MHz" hint="The repetition rate the scope showed." />
+        <FormQuantity form={form} name="setup.observed.tiltPct" label="Tilt" unit="%" placeholder="12 %" hint="Droop across a flat top, % of the step." />
+        <FormQuantity form={form} name="setup.observed.humFrequencyHz" label="Hum frequency" unit="Hz" placeholder="50 Hz" />
+        <SelectField label="Clipped at the screen edge" options={clippedOptions} {...form.register('setup.observed.clipped')} />
         <div className="sm:col-span-2">
           <TextAreaField
             label="What the trace looked like"

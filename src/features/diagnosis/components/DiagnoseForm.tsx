@@ -1,10 +1,10 @@
-import type { FormEvent } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 import type { Assumption } from '../../../../shared/schemas/diagnosis';
 import { formatEngineering } from '../../../../shared/units/engineering';
 import { Button } from '../../../components/ui/Button';
 import { SelectField } from '../../../components/ui/Field';
 import { QuantityField } from '../../../components/ui/QuantityField';
-import { SECTIONS, type ChoiceFieldDef, type FieldDef } from '../form/diagnose-fields';
+import { SECTIONS, type ChoiceFieldDef, type FieldDef, type SectionDef } from '../form/diagnose-fields';
 import { assumptionValue } from '../form/labels';
 import { PRESETS } from '../form/presets';
 import { fieldId, type DiagnoseFormState } from '../hooks/use-diagnose-form';
@@ -48,6 +48,40 @@ function Field({ f, form, assumed }: { f: FieldDef; form: DiagnoseFormState; ass
   );
 }
 
+function Fields({ section, form, assumed }: { section: SectionDef; form: DiagnoseFormState; assumed: Map<string, Assumption> }) {
+  return (
+    <div className="mt-1 grid gap-x-4 gap-y-3 sm:grid-cols-2">
+      {section.fields.map((f) => (
+        <Field key={f.key} f={f} form={form} assumed={assumed.get(f.key)} />
+      ))}
+    </div>
+  );
+}
+
+/** A group the common case skips: folded until opened, and open whenever one of its fields holds a value (a preset, a link). */
+function FoldedSection({ section, form, assumed }: { section: SectionDef; form: DiagnoseFormState; assumed: Map<string, Assumption> }) {
+  const filled = section.fields.some((f) => form.values[f.key] !== '');
+  const hasError = section.fields.some((f) => form.errors[f.key]);
+  const [open, setOpen] = useState(filled);
+  useEffect(() => {
+    if (filled || hasError) setOpen(true);
+  }, [filled, hasError]);
+  return (
+    <details open={open} onToggle={(e) => setOpen(e.currentTarget.open)} className="group min-w-0 border-t border-rule pt-3" data-group={section.id}>
+      <summary className="flex cursor-pointer list-none items-baseline gap-2">
+        <span aria-hidden className="inline-block w-3 font-mono text-xs text-muted transition-transform group-open:rotate-90">
+          ▸
+        </span>
+        <span className="font-serif text-base font-bold">{section.title}</span>
+        <span className="min-w-0 truncate text-xs text-muted">{section.collapsible?.lead}</span>
+      </summary>
+      <div className="mt-2">
+        <Fields section={section} form={form} assumed={assumed} />
+      </div>
+    </details>
+  );
+}
+
 /** Setup and observation, every number in engineering notation, with example setups that fill it. */
 export function DiagnoseForm({ form, assumptions }: { form: DiagnoseFormState; assumptions: Assumption[] }) {
   const assumedByField = new Map(assumptions.map((a) => [a.field, a]));
@@ -76,16 +110,18 @@ export function DiagnoseForm({ form, assumptions }: { form: DiagnoseFormState; a
           ))}
         </ul>
       </div>
-      {SECTIONS.map((section) => (
+      {SECTIONS.filter((s) => !s.collapsible).map((section) => (
         <fieldset key={section.id} className="min-w-0 border-t border-rule pt-3">
           <legend className="pr-2 font-serif text-base font-bold">{section.title}</legend>
-          <div className="mt-1 grid gap-x-4 gap-y-3 sm:grid-cols-2">
-            {section.fields.map((f) => (
-              <Field key={f.key} f={f} form={form} assumed={assumedByField.get(f.key)} />
-            ))}
-          </div>
+          <Fields section={section} form={form} assumed={assumedByField} />
         </fieldset>
       ))}
+      <div className="flex flex-col gap-3">
+        <p className="text-xs text-muted">More of the setup, when you recorded it:</p>
+        {SECTIONS.filter((s) => s.collapsible).map((section) => (
+          <FoldedSection key={section.id} section={section} form={form} assumed={assumedByField} />
+        ))}
+      </div>
       <div className="flex flex-wrap items-center gap-3 border-t border-rule pt-4">
         <Button type="submit" busy={form.server.pending}>
           Diagnose

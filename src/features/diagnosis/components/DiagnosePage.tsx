@@ -1,4 +1,5 @@
-import { CAUSE_LABELS } from '../../../../shared/schemas/diagnosis';
+import { hypothesisName, verdictLead } from '../../../lib/hypothesis-words';
+import { hasObservation } from '../form/read-form';
 import { PageHeader, Panel } from '../../../components/ui/Panel';
 import { useDiagnoseForm } from '../hooks/use-diagnose-form';
 import { DiagnoseForm } from './DiagnoseForm';
@@ -8,6 +9,10 @@ import { DiagnosisResults } from './DiagnosisResults';
 export function DiagnosePage() {
   const form = useDiagnoseForm();
   const top = form.local.hypotheses[0];
+  const verdict = form.local.verdict;
+  const judged = hasObservation(form.input);
+  const lead = (judged && verdictLead(form.local)) || top;
+  const short = !judged ? 'Most likely' : verdict === 'faithful' ? 'The trace is true' : verdict === 'unexplained' ? 'Nothing fits' : 'Misleads';
   return (
     <>
       <PageHeader
@@ -32,7 +37,12 @@ export function DiagnosePage() {
               className="sticky bottom-3 z-10 flex items-center justify-between gap-3 rounded-lg bg-ink px-4 py-2.5 text-sm text-paper shadow-lg lg:hidden"
             >
               <span className="min-w-0 truncate">
-                Most likely: <span className="font-semibold">{CAUSE_LABELS[top.cause]}</span>
+                {short}
+                {(!judged || verdict === 'measurement-error') && (
+                  <>
+                    : <span className="font-semibold">{hypothesisName(lead)}</span>
+                  </>
+                )}
               </span>
               <span className="shrink-0 font-mono text-xs">{Math.round(top.likelihood * 100)} % ↓</span>
             </a>

@@ -1,7 +1,10 @@
 import { Link } from 'react-router-dom';
-import { CAUSE_LABELS, type DiagnosisInput, type DiagnosisResult } from '../../../../shared/schemas/diagnosis';
+import type { DiagnosisInput, DiagnosisResult } from '../../../../shared/schemas/diagnosis';
 import { Alert } from '../../../components/ui/Alert';
 import { SafetyCaution } from '../../../components/ui/SafetyCaution';
+import { VerdictSummary } from '../../../components/ui/VerdictSummary';
+import { hypothesisName } from '../../../lib/hypothesis-words';
+import { FIELDS } from '../form/diagnose-fields';
 import { assumptionValue, fieldLabel } from '../form/labels';
 import { hasObservation } from '../form/read-form';
 import type { DiagnoseFormState } from '../hooks/use-diagnose-form';
@@ -23,40 +26,31 @@ export function DiagnosisResults({ result, input, server, unreadable }: Diagnosi
   const top = result.hypotheses[0];
   const shown = result.hypotheses.filter((h, i) => i === 0 || h.likelihood >= FOLD_BELOW);
   const folded = result.hypotheses.slice(shown.length);
-  const hazards = (result.risks ?? []).filter((r) => r.level === 'hazard');
-  const cautions = (result.risks ?? []).filter((r) => r.level === 'caution');
+  const observedAny = hasObservation(input);
+  const recordNext = whatToRecordNext(result, input);
   return (
     <section id="diagnosis-results" aria-labelledby="diagnosis-results-title" className="flex min-w-0 scroll-mt-4 flex-col gap-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h2 id="diagnosis-results-title" className="text-xl">
-          Likely causes
+          Verdict and causes
         </h2>
-        {top && (
+        {top && top.cause !== 'faithful' && (
           <Link to={`/cases?cause=${encodeURIComponent(top.cause)}`} className="text-sm font-semibold text-agree underline underline-offset-2">
             Find matching cases
           </Link>
         )}
       </div>
+      <VerdictSummary result={result} observedAny={observedAny} recordNext={recordNext} />
       <ServerCheck server={server} />
       {unreadable.length > 0 && (
         <Alert tone="caution" title={`${unreadable.length === 1 ? 'One value cannot' : `${unreadable.length} values cannot`} be read and ${unreadable.length === 1 ? 'is' : 'are'} left out`}>
           {unreadable.map(fieldLabel).join(', ')}. The message under each field says what was expected.
         </Alert>
       )}
-      {hazards.length > 0 && <SafetyCaution reasons={hazards.map((r) => r.message)} />}
-      {cautions.map((r) => (
-        <Alert key={r.id} tone="caution">
-          {r.message}
-        </Alert>
-      ))}
-      {!hasObservation(input) && (
-        <Alert tone="info" title="Nothing observed yet">
-          The causes are ranked by how far each would move the trace for this setup. Fill in what the scope showed to rank them against it.
-        </Alert>
-      )}
+      <SafetyCaution risks={result.risks ?? []} />
       <ol className="flex flex-col gap-3" aria-label="Causes, most likely first">
         {shown.map((h, i) => (
-          <li key={`${h.cause}-${i === 0}`}>
+          <li key={`${h.causes.join('+')}-${i === 0}`}>
             <HypothesisCard rank={i + 1} hypothesis={h} input={input} lead={i === 0} />
           </li>
         ))}
@@ -64,11 +58,11 @@ export function DiagnosisResults({ result, input, server, unreadable }: Diagnosi
       {folded.length > 0 && (
         <details className="rounded-lg border border-rule bg-sheet px-4 py-3">
           <summary className="cursor-pointer text-sm font-semibold">
-            Unlikely here ({folded.length}): {folded.map((h) => CAUSE_LABELS[h.cause]).join(', ')}
+            Unlikely here ({folded.length}): {folded.map(hypothesisName).join(', ')}
           </summary>
           <ol className="mt-3 flex flex-col gap-3">
             {folded.map((h, i) => (
-              <li key={h.cause}>
+              <li key={h.causes.join('+')}>
                 <HypothesisCard rank={shown.length + i + 1} hypothesis={h} input={input} />
               </li>
             ))}
@@ -94,4 +88,12 @@ export function DiagnosisResults({ result, input, server, unreadable }: Diagnosi
       )}
     </section>
   );
+}
+
+/** For an unexplained trace: what the engine had to assume, then what the observation leaves out. */
+function whatToRecordNext(result: DiagnosisResult, input: DiagnosisInput): string[] {
+  const assumed = result.assumptions.map((a) => fieldLabel(a.field));
+  const observed = (input.observed ?? {}) as Record<string, unknown>;
+  const unobserved = FIELDS.filter((f) => f.key.startsWith('observed.') && (observed[f.key.slice('observed.'.length)] ?? null) === null).map((f) => f.label);
+  return [...new Set([...assumed, ...unobserved])];
 }

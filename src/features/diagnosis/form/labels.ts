@@ -22,6 +22,13 @@ const CHOICE_WORDS: Record<string, string> = {
   dc: 'DC',
   sine: 'sine',
   other: 'other',
+  passive: 'passive probe',
+  active: 'active probe',
+  differential: 'differential probe',
+  current: 'current probe',
+  ac: 'AC',
+  '50-ohm': 'set for 50 Ω',
+  'high-z': 'set for high impedance',
 };
 
 /** An assumed value as people read it: "10x", "12 pF", "single edge". */

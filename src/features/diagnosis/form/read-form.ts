@@ -10,9 +10,9 @@ export interface FormReading {
   errors: Partial<Record<FieldKey, string>>;
 }
 
-type Nested = Record<string, Record<string, number | string>>;
+type Nested = Record<string, Record<string, number | string | boolean>>;
 
-function put(target: Nested, key: string, value: number | string) {
+function put(target: Nested, key: string, value: number | string | boolean) {
   const [group, field] = key.split('.');
   (target[group] ??= {})[field] = value;
 }
@@ -27,7 +27,7 @@ export function readForm(values: DiagnoseValues): FormReading {
   for (const f of FIELDS) {
     const text = values[f.key];
     if (f.kind === 'choice') {
-      if (text !== '') put(raw, f.key, f.key === 'scope.inputResistanceOhm' ? Number(text) : text);
+      if (text !== '') put(raw, f.key, f.reads === 'number' ? Number(text) : f.reads === 'boolean' ? text === 'true' : text);
       continue;
     }
     const reading = readQuantity(text, f.unit);
@@ -67,7 +67,7 @@ export function valuesFromQuery(params: URLSearchParams): { values: DiagnoseValu
     const text = (params.get(f.key) ?? '').trim();
     touched.push(f.key);
     if (f.kind === 'choice') {
-      values[f.key] = f.key === 'scope.inputResistanceOhm' && Number.isFinite(Number(text)) ? String(Number(text)) : text;
+      values[f.key] = f.reads === 'number' && Number.isFinite(Number(text)) ? String(Number(text)) : text;
       continue;
     }
     const reading = readQuantity(text, f.unit);

@@ -1,11 +1,12 @@
 import { hazardousLive } from '../safety/hazard';
 import type { Case } from '../schemas/case';
 import { CAUSE_LABELS, CAUSES, type Cause, type Hypothesis } from '../schemas/diagnosis';
+import { captureSettingsCheck } from './capture-conflicts';
 
 export type CheckState = 'pass' | 'attention' | 'not_needed';
 
 export interface CheckItem {
-  id: 'engine_agrees' | 'evidence' | 'lesson' | 'safety';
+  id: 'engine_agrees' | 'evidence' | 'lesson' | 'safety' | 'capture_settings';
   label: string;
   state: CheckState;
   detail: string;
@@ -96,7 +97,8 @@ export function reviewChecklist(c: Case): CheckItem[] {
     state: !needed ? 'not_needed' : note ? 'pass' : 'attention',
     detail: !needed ? 'The engine raises no risk for this setup.' : note ? `Safety note: “${note}”` : `${why} The Safety note is empty: ask the author how the circuit was probed safely.`,
   };
-  return [engine, evidence, lesson, safety];
+  const { conflicts: _conflicts, ...captureSettings } = captureSettingsCheck(c);
+  return [engine, evidence, lesson, safety, captureSettings];
 }
 
 export const isKnownCause = (c: string | null): c is Cause => c !== null && (CAUSES as readonly string[]).includes(c);

@@ -16,7 +16,13 @@ export interface MailQueue {
   stop(): void;
 }
 
-export function createMailQueue(db: Db, mailer: Mailer): MailQueue {
+/** The real queue, which also lets tests, scripts and shutdown wait for it. */
+export interface BackgroundMailQueue extends MailQueue {
+  /** Waits for a sweep in progress, then delivers everything due now. */
+  flush(): Promise<number>;
+}
+
+export function createMailQueue(db: Db, mailer: Mailer): BackgroundMailQueue {
   let timer: NodeJS.Timeout | undefined;
   let running: Promise<number> | undefined;
 
@@ -55,6 +61,10 @@ export function createMailQueue(db: Db, mailer: Mailer): MailQueue {
       await insertQueuedMail(trx ?? db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now, created_at: now });
     },
     retryDue,
+    async flush() {
+      await running?.catch(() => undefined);
+      return retryDue();
+    },
     start(intervalMs = 15_000) {
       timer = setInterval(() => void retryDue().catch((e) => console.error('[falsetrace] mail retry failed:', e)), intervalMs);
       timer.unref();

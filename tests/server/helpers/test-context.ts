@@ -9,7 +9,7 @@ import { openDatabase, type Db } from '../../../server/db/database';
 import { migrateToLatest } from '../../../server/db/migrate';
 import { listOutboxMessages } from '../../../server/db/repositories/outbox';
 import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
-import { createMailQueue, type MailQueue } from '../../../server/mail/mail-queue';
+import { createMailQueue, type BackgroundMailQueue } from '../../../server/mail/mail-queue';
 import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { openCaseSearch, type CaseSearch } from '../../../server/search/case-search';
 import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
@@ -21,7 +21,7 @@ export interface TestContext {
   app: ReturnType<typeof createApp>;
   db: Db;
   mailer: Mailer;
-  mail: MailQueue;
+  mail: BackgroundMailQueue;
   fake: LocalSmtpFake;
   config: Config;
   search: CaseSearch;

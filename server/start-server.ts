@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
+import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
 import { openDatabase } from './db/database';
 import { migrateToLatest } from './db/migrate';
@@ -53,6 +54,7 @@ export async function startServer(config: Config) {
     clearInterval(digestTimer);
     mail.stop();
     search.close();
+    await imageWorkers.close();
     mailer.close();
     await fake?.close();
     await db.destroy();

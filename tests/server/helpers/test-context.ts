@@ -28,13 +28,19 @@ export interface TestContext {
   close(): Promise<void>;
 }
 
+export interface TestContextOptions {
+  /** Send to this SMTP server instead of the local fake (which still runs). */
+  smtpUrl?: string;
+  mailTimeoutsMs?: { connect: number; greeting: number; socket: number };
+}
+
 /** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
-export async function createTestContext(): Promise<TestContext> {
+export async function createTestContext(options: TestContextOptions = {}): Promise<TestContext> {
   const db = openDatabase(':memory:');
   await migrateToLatest(db);
   await seedDemoUsers(db, DEMO_PASSWORD);
   const fake = await startLocalSmtpFake(db);
-  const mailer = createMailer(`smtp://127.0.0.1:${fake.port}?ignoreTLS=true`, true);
+  const mailer = createMailer(options.smtpUrl ?? `smtp://127.0.0.1:${fake.port}?ignoreTLS=true`, !options.smtpUrl, options.mailTimeoutsMs);
   const config: Config = {
     port: 0,
     dataDir: mkdtempSync(path.join(tmpdir(), 'falsetrace-test-')),
@@ -56,6 +62,8 @@ export async function createTestContext(): Promise<TestContext> {
     config,
     search,
     async close() {
+      mail.stop();
+      await mail.idle();
       search.close();
       (app.locals.sessionStore as { close(): void }).close();
       mailer.close();
@@ -91,7 +99,9 @@ export async function signedIn(ctx: TestContext, role: Role) {
   return c;
 }
 
+/** Mails the fake received for this address, after the background sender has delivered what is due. */
 export async function mailsTo(ctx: TestContext, email: string) {
+  await ctx.mail.flush();
   return (await listOutboxMessages(ctx.db)).filter((m) => m.to_addr.toLowerCase().includes(email.toLowerCase()));
 }
 

@@ -11,6 +11,7 @@ import { AppError } from './errors';
 import { createCsrf } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
 import { attachmentRoutes } from './routes/attachments';
+import { backupRoutes } from './routes/backup';
 import { authRoutes } from './routes/auth';
 import { casebookRoutes } from './routes/casebook';
 import { captureRoutes } from './routes/captures';
@@ -91,6 +92,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.use('/api/profile', notificationRoutes(deps));
   app.use('/api/admin/people', peopleRoutes(deps));
   app.use('/api/admin/casebook', casebookRoutes(deps));
+  app.use('/api/admin/backup', backupRoutes(deps));
   app.use('/api/dev/outbox', outboxRoutes(deps));
   app.use('/api/cases', caseRoutes(deps));
   app.use('/api/cases', similarCaseRoutes(deps));

@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
+import { claimDataDir } from './backup/server-lock';
 import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
 import { openDatabase } from './db/database';
@@ -18,6 +19,8 @@ export const CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.ur
 
 /** Opens the database, migrates, seeds an empty one, starts mail and listens. */
 export async function startServer(config: Config) {
+  // tells `npm run restore` that this folder is in use
+  const release = claimDataDir(config.dataDir);
   const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
   await migrateToLatest(db);
 
@@ -58,6 +61,7 @@ export async function startServer(config: Config) {
     mailer.close();
     await fake?.close();
     await db.destroy();
+    release();
   }
   return { server, close, db };
 }

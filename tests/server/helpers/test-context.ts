@@ -32,18 +32,21 @@ export interface TestContextOptions {
   /** Send to this SMTP server instead of the local fake (which still runs). */
   smtpUrl?: string;
   mailTimeoutsMs?: { connect: number; greeting: number; socket: number };
+  /** Keep the database as a file in the data folder, as the server does (backup, crash tests). */
+  onDisk?: boolean;
 }
 
 /** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
 export async function createTestContext(options: TestContextOptions = {}): Promise<TestContext> {
-  const db = openDatabase(':memory:');
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-test-'));
+  const db = openDatabase(options.onDisk ? path.join(dataDir, 'falsetrace.sqlite') : ':memory:');
   await migrateToLatest(db);
   await seedDemoUsers(db, DEMO_PASSWORD);
   const fake = await startLocalSmtpFake(db);
   const mailer = createMailer(options.smtpUrl ?? `smtp://127.0.0.1:${fake.port}?ignoreTLS=true`, !options.smtpUrl, options.mailTimeoutsMs);
   const config: Config = {
     port: 0,
-    dataDir: mkdtempSync(path.join(tmpdir(), 'falsetrace-test-')),
+    dataDir,
     publicUrl: 'http://falsetrace.local',
     sessionSecret: 'test-secret-test-secret-test-secret',
     seedDemo: false,

@@ -40,7 +40,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   const { config } = deps;
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-For names the client only behind a proxy the operator named (TRUST_PROXY)
+  app.set('trust proxy', config.trustProxy ?? false);
 
   app.use(
     helmet({

@@ -34,6 +34,8 @@ export interface TestContextOptions {
   mailTimeoutsMs?: { connect: number; greeting: number; socket: number };
   /** Keep the database as a file in the data folder, as the server does (backup, crash tests). */
   onDisk?: boolean;
+  /** As TRUST_PROXY would set it. */
+  trustProxy?: Config['trustProxy'];
 }
 
 /** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
@@ -52,6 +54,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
     seedDemo: false,
     demoPassword: DEMO_PASSWORD,
     production: false,
+    trustProxy: options.trustProxy,
   };
   const mail = createMailQueue(db, mailer);
   const search = await openCaseSearch(db, { dataDir: config.dataDir });

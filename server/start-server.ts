@@ -50,12 +50,28 @@ export async function startServer(config: Config) {
     const s = app.listen(config.port, () => resolve(s));
   });
 
-  async function close() {
-    await new Promise<void>((resolve) => server.close(() => resolve()));
-    server.closeAllConnections();
+  /**
+   * Stops taking connections, lets requests in flight finish for up to `graceMs` (then cuts
+   * them), and closes everything else. Idle keep-alive connections are closed as they go idle.
+   */
+  async function close(graceMs = 0) {
+    const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+    server.closeIdleConnections();
+    const sweep = setInterval(() => server.closeIdleConnections(), 100);
+    let timer: NodeJS.Timeout | undefined;
+    const late = new Promise<'late'>((resolve) => (timer = setTimeout(() => resolve('late'), graceMs)));
+    if ((await Promise.race([closed, late])) === 'late') {
+      console.warn(`[falsetrace] requests still running after ${graceMs} ms; cutting them`);
+      server.closeAllConnections();
+      await closed;
+    }
+    clearTimeout(timer);
+    clearInterval(sweep);
     (app.locals.sessionStore as { close(): void }).close();
     clearInterval(digestTimer);
     mail.stop();
+    // a sweep that is talking to SMTP ends within the mailer's timeouts; the mail stays queued otherwise
+    await Promise.race([mail.idle(), new Promise((r) => setTimeout(r, 2000).unref())]);
     search.close();
     await imageWorkers.close();
     mailer.close();

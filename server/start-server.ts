@@ -3,6 +3,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
 import { claimDataDir } from './backup/server-lock';
+import { sweepUploads } from './backup/upload-sweep';
 import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
 import { openDatabase } from './db/database';
@@ -23,6 +24,10 @@ export async function startServer(config: Config) {
   const release = claimDataDir(config.dataDir);
   const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
   await migrateToLatest(db);
+  const swept = await sweepUploads(db, config.dataDir);
+  if (swept.partial || swept.orphaned) {
+    console.log(`[falsetrace] uploads: removed ${swept.partial} partial upload(s); moved ${swept.orphaned} file(s) no attachment names to orphaned-uploads/`);
+  }
 
   const fake = config.smtpUrl ? undefined : await startLocalSmtpFake(db);
   const mailer = createMailer(config.smtpUrl ?? `smtp://127.0.0.1:${fake!.port}?ignoreTLS=true`, !config.smtpUrl);

@@ -103,3 +103,23 @@ describe('sign-in', () => {
     expect(res.body.error).toMatch(/no api route/i);
   });
 });
+
+describe('session rows', () => {
+  it('should not rewrite the session row on every signed-in request, only once a minute', async () => {
+    const { createTestContext: create, signedIn: signIn } = await import('./helpers/test-context');
+    const ctx = await create();
+    try {
+      const eng = await signIn(ctx, 'engineer');
+      const expiry = async () => (await ctx.db.selectFrom('sessions').select('expires_at').where('user_id', 'is not', null).executeTakeFirstOrThrow()).expires_at;
+      const before = await expiry();
+      for (let i = 0; i < 3; i++) await eng.get('/api/auth/me').expect(200);
+      expect(await expiry()).toBe(before);
+      // a session last extended over a minute ago is extended again
+      await ctx.db.updateTable('sessions').set({ expires_at: before - 120_000 }).execute();
+      await eng.get('/api/auth/me').expect(200);
+      expect(await expiry()).toBeGreaterThan(before - 120_000);
+    } finally {
+      await ctx.close();
+    }
+  });
+});

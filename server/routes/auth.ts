@@ -34,7 +34,12 @@ export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPass
       if (err) return next(err);
       if (!user) return next(new AppError('unauthenticated', 'Wrong e-mail or password, or the account is deactivated'));
       // passport >= 0.6 regenerates the session id here, which defeats session fixation
-      req.login(user, (loginErr) => (loginErr ? next(loginErr) : res.json({ user })));
+      // the signed-in session gets a new CSRF cookie (GET /csrf returns it); the old token stops working
+      req.login(user, (loginErr) => {
+        if (loginErr) return next(loginErr);
+        csrfToken(req, res);
+        res.json({ user });
+      });
     })(req, res, next);
   });
 
@@ -57,7 +62,11 @@ export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPass
   r.post('/invitations/accept', async (req, res, next) => {
     const input = parseInput(acceptInvitationSchema, req.body, 'The invitation');
     const user = await acceptInvitation(deps, input);
-    req.login(user, (err) => (err ? next(err) : res.status(201).json({ user })));
+    req.login(user, (err) => {
+      if (err) return next(err);
+      csrfToken(req, res);
+      res.status(201).json({ user });
+    });
   });
 
   r.post('/password-reset', ...limits.resetMail, async (req, res) => {

@@ -35,8 +35,10 @@ async function start(dataDir: string): Promise<{ child: ChildProcess; baseUrl: s
 
 async function signIn(baseUrl: string) {
   const agent = request.agent(baseUrl);
+  const before: string = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
+  await agent.post('/api/auth/login').set('x-csrf-token', before).send({ email: ADMIN.email, password: ADMIN.password }).expect(200);
+  // sign-in renews the CSRF token
   const token: string = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
-  await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: ADMIN.email, password: ADMIN.password }).expect(200);
   return { agent, token };
 }
 
@@ -65,20 +67,22 @@ describe('kill -9 with writers in flight loses nothing acknowledged', () => {
       for (let i = 0; !killed; i++) {
         try {
           const res = await agent.post('/api/cases').set('x-csrf-token', token).send({ title: `Crash writer ${w} case ${i}`, summary: 'written while the server dies' });
-          if (res.status !== 201) continue;
+          if (res.status !== 201) throw new Error(`case write refused: ${res.status} ${JSON.stringify(res.body)}`);
           ackedCases.push(res.body.case.id);
           const up = await agent.post(`/api/cases/${res.body.case.id}/attachments`).set('x-csrf-token', token).attach('file', png, { filename: 'shot.png', contentType: 'image/png' });
           if (up.status === 201) ackedAttachments.push(up.body.attachment.id);
-        } catch {
+        } catch (err) {
+          if (!killed && /refused/.test((err as Error).message)) throw err;
           return; // the server is gone
         }
       }
     };
-    const writers = [1, 2, 3, 4].map(writer);
+    let failure: unknown;
+    const writers = [1, 2, 3, 4].map((w) => writer(w).catch((err) => void (failure = err)));
     // kill once enough writes are acknowledged, while the writers keep going
     await new Promise<void>((resolve) => {
       const check = setInterval(() => {
-        if (ackedAttachments.length >= 12) {
+        if (ackedAttachments.length >= 12 || failure) {
           clearInterval(check);
           resolve();
         }
@@ -89,6 +93,7 @@ describe('kill -9 with writers in flight loses nothing acknowledged', () => {
     await exited;
     killed = true;
     await Promise.all(writers);
+    expect(failure).toBeUndefined();
 
     const second = await start(dataDir);
     children.push(second.child);

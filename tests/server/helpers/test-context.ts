@@ -80,22 +80,33 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
   };
 }
 
-/** A cookie-keeping client that sends the CSRF header on every state-changing call. */
+/**
+ * A cookie-keeping client that sends the CSRF header on every state-changing call. Sign-in renews
+ * the token (it is bound to the session), so the client takes the new one from the answer.
+ */
 export async function client(ctx: TestContext) {
   const agent = request.agent(ctx.app);
-  const token: string = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
+  const state = { token: (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken as string };
+  // as the browser's client does after sign-in: use the renewed token the server set as a cookie
+  const adopt = (test: request.Test) =>
+    test.on('response', (res: { headers?: Record<string, string | string[] | undefined> }) => {
+      const cookies = ([] as string[]).concat(res.headers?.['set-cookie'] ?? []);
+      const renewed = cookies.map((c) => c.match(/^ft\.csrf=([^;]+)/)?.[1]).find(Boolean);
+      if (renewed) state.token = decodeURIComponent(renewed);
+    });
   return {
     agent,
-    token,
+    get token() {
+      return state.token;
+    },
     get: (url: string) => agent.get(url),
-    post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', token).send(body),
-    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', token).send(body),
-    put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', token).send(body),
-    del: (url: string) => agent.delete(url).set('x-csrf-token', token),
+    post: (url: string, body?: object) => adopt(agent.post(url).set('x-csrf-token', state.token).send(body)),
+    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', state.token).send(body),
+    put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', state.token).send(body),
+    del: (url: string) => agent.delete(url).set('x-csrf-token', state.token),
     upload: (url: string, bytes: Buffer, filename: string, contentType = 'application/octet-stream') =>
-      agent.post(url).set('x-csrf-token', token).attach('file', bytes, { filename, contentType }),
-    login: (email: string, password = DEMO_PASSWORD) =>
-      agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password }),
+      agent.post(url).set('x-csrf-token', state.token).attach('file', bytes, { filename, contentType }),
+    login: (email: string, password = DEMO_PASSWORD) => adopt(agent.post('/api/auth/login').set('x-csrf-token', state.token).send({ email, password })),
   };
 }
 

@@ -11,6 +11,7 @@ import { AppError } from './errors';
 import { createCsrf } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
 import { attachmentRoutes } from './routes/attachments';
+import { backupRoutes } from './routes/backup';
 import { authRoutes } from './routes/auth';
 import { casebookRoutes } from './routes/casebook';
 import { captureRoutes } from './routes/captures';
@@ -40,7 +41,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   const { config } = deps;
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-For names the client only behind a proxy the operator named (TRUST_PROXY)
+  app.set('trust proxy', config.trustProxy ?? false);
 
   app.use(
     helmet({
@@ -92,6 +94,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.use('/api/profile', notificationRoutes(deps));
   app.use('/api/admin/people', peopleRoutes(deps));
   app.use('/api/admin/casebook', casebookRoutes(deps));
+  app.use('/api/admin/backup', backupRoutes(deps));
   app.use('/api/dev/outbox', outboxRoutes(deps));
   app.use('/api/cases', caseRoutes(deps));
   app.use('/api/cases', similarCaseRoutes(deps));

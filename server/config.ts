@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import { trustProxySetting } from './middleware/rate-limits';
 
 export interface Config {
   port: number;
@@ -13,6 +14,8 @@ export interface Config {
   seedDemo: boolean;
   demoPassword: string;
   production: boolean;
+  /** TRUST_PROXY as Express's "trust proxy" setting; unset trusts no X-Forwarded-For. */
+  trustProxy?: boolean | number | string;
 }
 
 const isOff = (v: string | undefined) => v !== undefined && /^(0|false|no|off)$/i.test(v.trim());
@@ -41,5 +44,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     seedDemo: !isOff(env.SEED_DEMO),
     demoPassword: env.DEMO_PASSWORD || 'demo-probe-2026',
     production: env.NODE_ENV === 'production',
+    trustProxy: trustProxySetting(env.TRUST_PROXY),
   };
 }

@@ -1,19 +1,31 @@
+import type { AddressInfo } from 'node:net';
 import { loadConfig } from './config';
 import { startServer } from './start-server';
 
 const config = loadConfig();
-const { close } = await startServer(config);
-console.log(`[falsetrace] listening on http://localhost:${config.port} (data in ${config.dataDir}${config.smtpUrl ? '' : ', mail to the local fake'})`);
+const graceMs = Number(process.env.SHUTDOWN_GRACE_MS ?? 20_000);
+if (!Number.isFinite(graceMs) || graceMs < 0) throw new Error(`SHUTDOWN_GRACE_MS must be a number of milliseconds, got "${process.env.SHUTDOWN_GRACE_MS}"`);
+const { close, server } = await startServer(config);
+const { port } = server.address() as AddressInfo;
+console.log(`[falsetrace] listening on http://localhost:${port} (data in ${config.dataDir}${config.smtpUrl ? '' : ', mail to the local fake'})`);
 
 let closing = false;
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.on(signal, () => {
     if (closing) return;
     closing = true;
-    const force = setTimeout(() => process.exit(1), 5000);
+    console.log(`[falsetrace] ${signal}: finishing requests in flight (up to ${graceMs} ms), then stopping`);
+    // the drain has its own deadline; this one only catches a close that hangs after it
+    const force = setTimeout(() => {
+      console.error('[falsetrace] shutdown hung; exiting');
+      process.exit(1);
+    }, graceMs + 10_000);
     force.unref();
-    close().then(
-      () => process.exit(0),
+    close(graceMs).then(
+      () => {
+        console.log('[falsetrace] stopped');
+        process.exit(0);
+      },
       (err) => {
         console.error(err);
         process.exit(1);

@@ -2,6 +2,9 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
+import { claimDataDir } from './backup/server-lock';
+import { sweepUploads } from './backup/upload-sweep';
+import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
 import { openDatabase } from './db/database';
 import { migrateToLatest } from './db/migrate';
@@ -17,8 +20,14 @@ export const CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.ur
 
 /** Opens the database, migrates, seeds an empty one, starts mail and listens. */
 export async function startServer(config: Config) {
+  // tells `npm run restore` that this folder is in use
+  const release = claimDataDir(config.dataDir);
   const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
   await migrateToLatest(db);
+  const swept = await sweepUploads(db, config.dataDir);
+  if (swept.partial || swept.orphaned) {
+    console.log(`[falsetrace] uploads: removed ${swept.partial} partial upload(s); moved ${swept.orphaned} file(s) no attachment names to orphaned-uploads/`);
+  }
 
   const fake = config.smtpUrl ? undefined : await startLocalSmtpFake(db);
   const mailer = createMailer(config.smtpUrl ?? `smtp://127.0.0.1:${fake!.port}?ignoreTLS=true`, !config.smtpUrl);
@@ -46,16 +55,34 @@ export async function startServer(config: Config) {
     const s = app.listen(config.port, () => resolve(s));
   });
 
-  async function close() {
-    await new Promise<void>((resolve) => server.close(() => resolve()));
-    server.closeAllConnections();
+  /**
+   * Stops taking connections, lets requests in flight finish for up to `graceMs` (then cuts
+   * them), and closes everything else. Idle keep-alive connections are closed as they go idle.
+   */
+  async function close(graceMs = 0) {
+    const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+    server.closeIdleConnections();
+    const sweep = setInterval(() => server.closeIdleConnections(), 100);
+    let timer: NodeJS.Timeout | undefined;
+    const late = new Promise<'late'>((resolve) => (timer = setTimeout(() => resolve('late'), graceMs)));
+    if ((await Promise.race([closed, late])) === 'late') {
+      console.warn(`[falsetrace] requests still running after ${graceMs} ms; cutting them`);
+      server.closeAllConnections();
+      await closed;
+    }
+    clearTimeout(timer);
+    clearInterval(sweep);
     (app.locals.sessionStore as { close(): void }).close();
     clearInterval(digestTimer);
     mail.stop();
+    // a sweep that is talking to SMTP ends within the mailer's timeouts; the mail stays queued otherwise
+    await Promise.race([mail.idle(), new Promise((r) => setTimeout(r, 2000).unref())]);
     search.close();
+    await imageWorkers.close();
     mailer.close();
     await fake?.close();
     await db.destroy();
+    release();
   }
   return { server, close, db };
 }

@@ -228,10 +228,21 @@ export interface Database {
 export type Db = Kysely<Database>;
 
 /** Opens (or creates) the SQLite file; ':memory:' for tests. WAL and foreign keys on. */
+const connections = new WeakMap<Db, SQLite.Database>();
+
 export function openDatabase(file: string): Db {
   const sqlite = new SQLite(file);
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
-  return new Kysely<Database>({ dialect: new SqliteDialect({ database: sqlite }) });
+  const db = new Kysely<Database>({ dialect: new SqliteDialect({ database: sqlite }) });
+  connections.set(db, sqlite);
+  return db;
+}
+
+/** The better-sqlite3 connection under a Kysely instance from `openDatabase` (for the online backup API). */
+export function sqliteOf(db: Db): SQLite.Database {
+  const sqlite = connections.get(db);
+  if (!sqlite) throw new Error('This database was not opened with openDatabase');
+  return sqlite;
 }

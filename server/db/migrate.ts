@@ -1,10 +1,12 @@
-import { readdirSync } from 'node:fs';
+import { existsSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Migrator, type Migration, type MigrationProvider } from 'kysely';
 import type { Db } from './database';
 
-const migrationFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../migrations');
+const here = path.dirname(fileURLToPath(import.meta.url));
+// the compiled server (dist-server/) carries its migrations as .js beside it; the sources are ../../migrations
+const migrationFolder = [path.join(here, 'migrations'), path.resolve(here, '../../migrations')].find((d) => existsSync(d))!;
 
 /**
  * Reads migrations/<timestamp>_<what>.ts. Our own import() rather than Kysely's
@@ -13,9 +15,9 @@ const migrationFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)
 class MigrationFolderProvider implements MigrationProvider {
   async getMigrations(): Promise<Record<string, Migration>> {
     const migrations: Record<string, Migration> = {};
-    for (const file of readdirSync(migrationFolder).filter((f) => /^\d.*\.ts$/.test(f) && !f.endsWith('.d.ts')).sort()) {
+    for (const file of readdirSync(migrationFolder).filter((f) => /^\d.*\.[jt]s$/.test(f) && !f.endsWith('.d.ts')).sort()) {
       const mod = (await import(pathToFileURL(path.join(migrationFolder, file)).href)) as Migration;
-      migrations[file.replace(/\.ts$/, '')] = mod;
+      migrations[file.replace(/\.[jt]s$/, '')] = mod;
     }
     return migrations;
   }

@@ -6,7 +6,10 @@ import type { MailMessage, Mailer } from './mailer';
 export const retryDelayMs = (attempts: number) => Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 60 * 60 * 1000);
 
 export interface MailQueue {
-  /** Stores the mail, then tries to deliver it at once; a failure leaves it queued for retry. */
+  /**
+   * Stores the mail and wakes the background sender; never waits for SMTP, so a mail server that
+   * hangs cannot hold a request. A failure leaves the mail queued for retry.
+   */
   send(message: MailMessage): Promise<void>;
   /** Stores the mail (inside the caller's transaction when given) for the next sweep. */
   enqueue(message: MailMessage, trx?: Db): Promise<void>;
@@ -16,7 +19,15 @@ export interface MailQueue {
   stop(): void;
 }
 
-export function createMailQueue(db: Db, mailer: Mailer): MailQueue {
+/** The real queue, which also lets tests, scripts and shutdown wait for it. */
+export interface BackgroundMailQueue extends MailQueue {
+  /** Waits for a sweep in progress, then delivers everything due now. */
+  flush(): Promise<number>;
+  /** Resolves when no sweep is running (after `stop`, at shutdown). */
+  idle(): Promise<void>;
+}
+
+export function createMailQueue(db: Db, mailer: Mailer): BackgroundMailQueue {
   let timer: NodeJS.Timeout | undefined;
   let running: Promise<number> | undefined;
 
@@ -34,6 +45,21 @@ export function createMailQueue(db: Db, mailer: Mailer): MailQueue {
     }
   }
 
+  let stopped = false;
+  let wakeQueued = false;
+  /** One more sweep after the current one (a mail stored during a sweep is not in its list). */
+  function wake() {
+    if (stopped || wakeQueued) return;
+    wakeQueued = true;
+    void (running ?? Promise.resolve())
+      .catch(() => undefined)
+      .then(() => {
+        wakeQueued = false;
+        return stopped ? 0 : retryDue();
+      })
+      .catch((e) => console.error('[falsetrace] mail sending failed:', e));
+  }
+
   async function retryDue(now = new Date()): Promise<number> {
     // one sweep at a time, so a slow SMTP server never gets the same mail twice
     running ??= (async () => {
@@ -46,20 +72,28 @@ export function createMailQueue(db: Db, mailer: Mailer): MailQueue {
 
   return {
     async send(message) {
-      const now = new Date();
-      const { id } = await insertQueuedMail(db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now.toISOString(), created_at: now.toISOString() });
-      await attempt(id, now);
+      const now = new Date().toISOString();
+      await insertQueuedMail(db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now, created_at: now });
+      wake();
     },
     async enqueue(message, trx) {
       const now = new Date().toISOString();
       await insertQueuedMail(trx ?? db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now, created_at: now });
     },
     retryDue,
+    async flush() {
+      await running?.catch(() => undefined);
+      return retryDue();
+    },
+    async idle() {
+      while (running || wakeQueued) await (running ?? new Promise((r) => setTimeout(r, 10))).catch(() => undefined);
+    },
     start(intervalMs = 15_000) {
       timer = setInterval(() => void retryDue().catch((e) => console.error('[falsetrace] mail retry failed:', e)), intervalMs);
       timer.unref();
     },
     stop() {
+      stopped = true;
       if (timer) clearInterval(timer);
     },
   };

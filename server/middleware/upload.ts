@@ -9,6 +9,8 @@ import { storagePaths } from '../storage';
 export function singleUpload(config: Config): RequestHandler {
   const upload = multer({
     dest: storagePaths(config).incomingDir,
+    // browsers send the file name as UTF-8 bytes; busboy would read them as Latin-1
+    defParamCharset: 'utf8',
     limits: { fileSize: CAPTURE_LIMIT_BYTES, files: 1, fields: 10 },
   }).single('file');
   return (req, res, next) =>

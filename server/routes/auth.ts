@@ -1,5 +1,4 @@
-import { Router, type NextFunction, type Request, type Response } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { Router, type Request, type Response } from 'express';
 import type { createPassport } from '../auth/passport';
 import {
   acceptInvitationSchema,
@@ -11,32 +10,14 @@ import {
 } from '../../shared/schemas/auth';
 import type { AppDeps } from '../deps';
 import { AppError } from '../errors';
+import { createRateLimits } from '../middleware/rate-limits';
 import { parseInput } from '../middleware/validate';
 import { acceptInvitation, confirmPasswordReset, describeInvitation, requestPasswordReset } from '../services/auth';
-
-const tooMany = (message: string) => (_req: Request, _res: Response, next: NextFunction) =>
-  next(new AppError('rate_limited', message));
 
 export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPassport>, csrfToken: (req: Request, res: Response) => string) {
   const r = Router();
 
-  // Failed sign-ins per address and client; successes do not count.
-  const loginLimiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: 8,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
-    handler: tooMany('Too many failed sign-ins. Wait 15 minutes, or reset your password.'),
-  });
-  const mailLimiter = rateLimit({
-    windowMs: 60 * 60 * 1000,
-    limit: 10,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: tooMany('Too many requests for mails from here. Try again in an hour.'),
-  });
+  const limits = createRateLimits();
 
   r.get('/csrf', (req, res) => {
     res.json({ csrfToken: csrfToken(req, res) });
@@ -47,13 +28,18 @@ export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPass
     res.json({ user: req.user ?? null, localMail: deps.mailer.usesLocalFake });
   });
 
-  r.post('/login', loginLimiter, (req, res, next) => {
+  r.post('/login', ...limits.login, (req, res, next) => {
     parseInput(loginSchema, req.body, 'The sign-in');
     passport.authenticate('local', (err: unknown, user: User | false) => {
       if (err) return next(err);
       if (!user) return next(new AppError('unauthenticated', 'Wrong e-mail or password, or the account is deactivated'));
       // passport >= 0.6 regenerates the session id here, which defeats session fixation
-      req.login(user, (loginErr) => (loginErr ? next(loginErr) : res.json({ user })));
+      // the signed-in session gets a new CSRF cookie (GET /csrf returns it); the old token stops working
+      req.login(user, (loginErr) => {
+        if (loginErr) return next(loginErr);
+        csrfToken(req, res);
+        res.json({ user });
+      });
     })(req, res, next);
   });
 
@@ -76,10 +62,14 @@ export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPass
   r.post('/invitations/accept', async (req, res, next) => {
     const input = parseInput(acceptInvitationSchema, req.body, 'The invitation');
     const user = await acceptInvitation(deps, input);
-    req.login(user, (err) => (err ? next(err) : res.status(201).json({ user })));
+    req.login(user, (err) => {
+      if (err) return next(err);
+      csrfToken(req, res);
+      res.status(201).json({ user });
+    });
   });
 
-  r.post('/password-reset', mailLimiter, async (req, res) => {
+  r.post('/password-reset', ...limits.resetMail, async (req, res) => {
     const { email } = parseInput(resetRequestSchema, req.body, 'The reset request');
     await requestPasswordReset(deps, email);
     res.status(202).json({ ok: true, message: 'If that address has an account, a reset link is on its way.' });

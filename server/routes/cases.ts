@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { caseCreateSchema, caseListQuerySchema, casePatchSchema, commentInputSchema } from '../../shared/schemas/case';
 import { reviewInputSchema } from '../../shared/schemas/review';
 import type { AppDeps } from '../deps';
+import { createRateLimits } from '../middleware/rate-limits';
 import { requireAuth } from '../middleware/require-auth';
 import { singleUpload } from '../middleware/upload';
 import { parseInput } from '../middleware/validate';
@@ -101,7 +102,7 @@ export function caseRoutes(deps: AppDeps) {
     res.json({ comments: await commentsOf(deps, req.user!, id(req.params.id)) });
   });
 
-  r.post('/:id/comments', async (req, res) => {
+  r.post('/:id/comments', createRateLimits().comments, async (req, res) => {
     const { body } = parseInput(commentInputSchema, req.body, 'The comment');
     res.status(201).json({ comment: await addComment(deps, req.user!, id(req.params.id), body) });
   });

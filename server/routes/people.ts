@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { inviteSchema, updatePersonSchema } from '../../shared/schemas/auth';
 import type { AppDeps } from '../deps';
+import { createRateLimits } from '../middleware/rate-limits';
 import { requireRole } from '../middleware/require-auth';
 import { parseInput } from '../middleware/validate';
 import { invitePerson, listPeople, updatePerson } from '../services/people';
@@ -14,7 +15,7 @@ export function peopleRoutes(deps: AppDeps) {
     res.json(await listPeople(deps));
   });
 
-  r.post('/invitations', async (req, res) => {
+  r.post('/invitations', createRateLimits().invitations, async (req, res) => {
     const invitation = await invitePerson(deps, req.user!, parseInput(inviteSchema, req.body, 'The invitation'));
     res.status(201).json({ invitation });
   });

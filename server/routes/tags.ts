@@ -12,24 +12,24 @@ export function tagRoutes(deps: AppDeps) {
   r.use(requireAuth);
   const tag = (raw: unknown) => parseInput(tagSchema, raw, 'The tag');
 
-  r.get('/', async (_req, res) => {
-    res.json({ tags: await listTags(deps) });
+  r.get('/', async (req, res) => {
+    res.json({ tags: await listTags(deps, req.user!) });
   });
   r.post('/:tag/rename', async (req, res) => {
     await renameTag(deps, req.user!, tag(req.params.tag), parseInput(tagRenameSchema, req.body, 'The rename').to);
-    res.json({ tags: await listTags(deps) });
+    res.json({ tags: await listTags(deps, req.user!) });
   });
   r.post('/:tag/merge', async (req, res) => {
     await mergeTag(deps, req.user!, tag(req.params.tag), parseInput(tagMergeSchema, req.body, 'The merge').into);
-    res.json({ tags: await listTags(deps) });
+    res.json({ tags: await listTags(deps, req.user!) });
   });
   r.put('/:tag/synonyms', async (req, res) => {
     await setTagSynonyms(deps, req.user!, tag(req.params.tag), parseInput(tagSynonymsSchema, req.body, 'The synonyms').synonyms);
-    res.json({ tags: await listTags(deps) });
+    res.json({ tags: await listTags(deps, req.user!) });
   });
   r.post('/:tag/retire', async (req, res) => {
     await setTagRetired(deps, req.user!, tag(req.params.tag), parseInput(tagRetireSchema, req.body, 'The request').retired);
-    res.json({ tags: await listTags(deps) });
+    res.json({ tags: await listTags(deps, req.user!) });
   });
   r.post('/:tag/watch', async (req, res) => {
     await watchTag(deps.db, req.user!.id, tag(req.params.tag));

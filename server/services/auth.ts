@@ -83,6 +83,8 @@ export async function confirmPasswordReset(deps: AppDeps, input: ResetConfirmInp
   const now = new Date().toISOString();
   await deps.db.transaction().execute(async (trx) => {
     if (!(await consumeAuthToken(trx, row.id, now))) throw new AppError('gone', 'This link was already used. Ask for a new one.');
+    // every other reset link of this person ends with this one
+    await trx.updateTable('auth_tokens').set({ used_at: now }).where('kind', '=', 'password_reset').where('user_id', '=', row.user_id!).where('used_at', 'is', null).execute();
     await updateUser(trx, row.user_id!, { password_hash: passwordHash, updated_at: now });
     await deleteUserSessions(trx, row.user_id!);
   });

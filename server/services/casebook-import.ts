@@ -20,6 +20,7 @@ import type { AppDeps } from '../deps';
 import { AppError } from '../errors';
 import { storagePaths } from '../storage';
 import { recomputeDiagnosis } from './case-diagnosis';
+import { MAX_IMAGE_PIXELS, reencodeImage, sniffImage } from './image-intake';
 
 type Records = ArchiveRecords;
 
@@ -117,21 +118,29 @@ export async function importCasebook(deps: AppDeps, actor: Actor, zip: Uint8Arra
 
   const storage = storagePaths(deps.config);
   const written: string[] = [];
-  const stored = new Map<number, { file: string; thumbnail: string | null }>();
+  const stored = new Map<number, { file: string; thumbnail: string | null; sizeBytes: number; width: number | null; height: number | null; contentType: string }>();
   const now = new Date().toISOString();
   try {
     for (const a of d.attachments) {
-      const ext = a.kind === 'capture' ? 'csv' : a.contentType === 'image/jpeg' ? 'jpg' : 'png';
-      const file = storage.newName(ext);
+      if (a.kind === 'screenshot') {
+        // decoded and re-encoded exactly like an upload: header check, worker, no metadata kept
+        const format = sniffImage(Buffer.from(a.bytes.subarray(0, 64)));
+        const img = format ? await reencodeImage(Buffer.from(a.bytes), format) : null;
+        if (img === null) throw new AppError('unsupported_type', `Attachment ${a.id} (“${a.originalName}”) does not decode as an image; nothing was imported`);
+        if (img === 'too_many_pixels') throw new AppError('too_large', `Attachment ${a.id} (“${a.originalName}”) has over ${MAX_IMAGE_PIXELS / 1e6} megapixels; nothing was imported`);
+        const file = storage.newName(img.extension);
+        const thumbnail = storage.newName(img.extension).replace(/(\.\w+)$/, '.thumb$1');
+        await writeFile(storage.fileFor(file), img.image);
+        written.push(file);
+        await writeFile(storage.fileFor(thumbnail), img.thumbnail);
+        written.push(thumbnail);
+        stored.set(a.id, { file, thumbnail, sizeBytes: img.image.length, width: img.width, height: img.height, contentType: img.contentType });
+        continue;
+      }
+      const file = storage.newName('csv');
       await writeFile(storage.fileFor(file), a.bytes);
       written.push(file);
-      let thumbnail: string | null = null;
-      if (a.thumbnailBytes) {
-        thumbnail = storage.newName(ext).replace(/(\.\w+)$/, '.thumb$1');
-        await writeFile(storage.fileFor(thumbnail), a.thumbnailBytes);
-        written.push(thumbnail);
-      }
-      stored.set(a.id, { file, thumbnail });
+      stored.set(a.id, { file, thumbnail: null, sizeBytes: a.sizeBytes, width: a.width, height: a.height, contentType: a.contentType });
     }
     await deps.db.transaction().execute(async (trx) => {
       const localId = new Map<number, number>();
@@ -192,10 +201,10 @@ export async function importCasebook(deps: AppDeps, actor: Actor, zip: Uint8Arra
           storage_name: s.file,
           thumbnail_name: s.thumbnail,
           original_name: a.originalName,
-          content_type: a.contentType,
-          size_bytes: a.sizeBytes,
-          width: a.width,
-          height: a.height,
+          content_type: s.contentType,
+          size_bytes: s.sizeBytes,
+          width: s.width,
+          height: s.height,
           analysis: a.analysis === null ? null : JSON.stringify(a.analysis),
           created_at: a.createdAt,
         });
@@ -211,6 +220,8 @@ export async function importCasebook(deps: AppDeps, actor: Actor, zip: Uint8Arra
     });
   } catch (err) {
     await Promise.all(written.map((n) => storage.remove(n)));
+    // a refused file keeps its own status (413, 415); anything else is a failed write
+    if (err instanceof AppError) throw err;
     throw new AppError('conflict', `The import failed and nothing was imported: ${(err as Error).message}`);
   }
   // rows went in beside the services, so the search index reads them afresh

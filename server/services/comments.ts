@@ -3,7 +3,7 @@ import { canModerate, type Actor } from '../../shared/auth/roles';
 import type { Comment } from '../../shared/schemas/case';
 import { deleteComment, findComment, insertComment, listComments, updateComment, type CommentRow } from '../db/repositories/comments';
 import type { AppDeps } from '../deps';
-import { forbidden, notFound } from '../errors';
+import { forbidden, invalid, notFound } from '../errors';
 import { visibleCaseRow } from './cases';
 import { audienceOf, mentionedUserIds, notifyUsers } from './notifications';
 
@@ -30,14 +30,21 @@ export async function commentsOf({ db }: AppDeps, actor: Actor, caseId: number):
   return (await listComments(db, caseId)).map((r) => toComment(r, actor));
 }
 
+/** Each mention mails someone; a comment naming the whole team is a broadcast, not a comment. */
+export const MAX_MENTIONS_PER_COMMENT = 10;
+
 export async function addComment(deps: AppDeps, actor: Actor, caseId: number, body: string): Promise<Comment> {
   const row = await visibleCaseRow(deps.db, actor, caseId);
+  const named = await mentionedUserIds(deps, body);
+  if (named.length > MAX_MENTIONS_PER_COMMENT) {
+    throw invalid(`A comment may @mention at most ${MAX_MENTIONS_PER_COMMENT} people; this one names ${named.length}`, [{ path: 'body', message: `At most ${MAX_MENTIONS_PER_COMMENT} @mentions` }]);
+  }
   const id = await insertComment(deps.db, caseId, actor.id, body, new Date().toISOString());
   const comment = toComment((await findComment(deps.db, id))!, actor);
   const excerpt = body.length > 600 ? `${body.slice(0, 600)}…` : body;
   // a mention is only sent to people who may read the case
   const mentioned: number[] = [];
-  for (const uid of await mentionedUserIds(deps, body)) {
+  for (const uid of named) {
     const u = await deps.db.selectFrom('users').select(['id', 'role']).where('id', '=', uid).executeTakeFirst();
     if (u && canSeeCase(u, { authorId: row.author_id, status: row.status })) mentioned.push(uid);
   }

@@ -1,3 +1,4 @@
+import { canSeeCase } from '../../shared/auth/case-policy';
 import { findUserById } from '../db/repositories/users';
 import { prefsOf } from '../db/repositories/notification-prefs';
 import type { AppDeps } from '../deps';
@@ -16,11 +17,24 @@ export async function sendDigests(deps: AppDeps, now = new Date()): Promise<{ ma
     const user = (await findUserById(deps.db, id))!;
     const wantsLessons = ((await prefsOf(deps.db, id)).lessons ?? 'digest') !== 'off';
     const queued = await deps.db.transaction().execute(async (trx) => {
-      const items = await trx.selectFrom('digest_items').selectAll().where('user_id', '=', id).where('sent_at', 'is', null).orderBy('id').execute();
-      const lessons = wantsLessons
+      const waiting = await trx
+        .selectFrom('digest_items')
+        .leftJoin('cases', 'cases.id', 'digest_items.case_id')
+        .selectAll('digest_items')
+        .select(['cases.author_id', 'cases.status'])
+        .where('digest_items.user_id', '=', id)
+        .where('digest_items.sent_at', 'is', null)
+        .orderBy('digest_items.id')
+        .execute();
+      // the case may have been retired or sent back since the line was queued: ask the policy now
+      const readable = (i: (typeof waiting)[number]) => i.case_id === null || (i.status !== null && i.author_id !== null && canSeeCase(user, { authorId: i.author_id, status: i.status }));
+      const items = waiting.filter(readable);
+      const dropped = waiting.filter((i) => !readable(i));
+      if (dropped.length) await trx.updateTable('digest_items').set({ sent_at: now.toISOString() }).where('id', 'in', dropped.map((i) => i.id)).execute();
+      const lessonRows = wantsLessons
         ? await trx
             .selectFrom('cases')
-            .select(['id', 'title', 'lesson_summary'])
+            .select(['id', 'title', 'lesson_summary', 'author_id', 'status'])
             .where('status', '=', 'verified')
             .where('lesson_summary', 'is not', null)
             .where('lesson_summary', '!=', '')
@@ -28,6 +42,7 @@ export async function sendDigests(deps: AppDeps, now = new Date()): Promise<{ ma
             .orderBy('verified_at')
             .execute()
         : [];
+      const lessons = lessonRows.filter((l) => canSeeCase(user, { authorId: l.author_id, status: l.status }));
       if (!items.length && !lessons.length) return false;
       const stamp = now.toISOString();
       if (items.length) await trx.updateTable('digest_items').set({ sent_at: stamp }).where('id', 'in', items.map((i) => i.id)).execute();

@@ -1,4 +1,6 @@
-import { Jimp } from 'jimp';
+import { imageSize } from 'image-size';
+import { AppError } from '../errors';
+import { imageWorkers } from '../images/image-pool';
 
 export type ImageFormat = 'png' | 'jpeg' | 'gif' | 'bmp';
 
@@ -12,7 +14,6 @@ export function sniffImage(head: Buffer): ImageFormat | null {
 }
 
 export const MAX_IMAGE_PIXELS = 60_000_000;
-const THUMB = { w: 360, h: 240 };
 
 export interface ReencodedImage {
   image: Buffer;
@@ -23,26 +24,43 @@ export interface ReencodedImage {
   height: number;
 }
 
-/**
- * Decodes and re-encodes the screenshot, which drops every metadata block (EXIF, GPS, comments),
- * and makes a thumbnail. JPEG stays JPEG; PNG, GIF (first frame) and BMP become PNG.
- * Returns null when the bytes do not decode as the image they claim to be.
- */
-export async function reencodeImage(bytes: Buffer, format: ImageFormat): Promise<ReencodedImage | 'too_many_pixels' | null> {
-  let img: Awaited<ReturnType<typeof Jimp.read>>;
+/** Width and height as the file's header states them (PNG IHDR, JPEG SOF, GIF, BMP), without decoding; null when unreadable. */
+export function headerSize(bytes: Buffer): { width: number; height: number } | null {
   try {
-    img = await Jimp.read(bytes);
+    const { width, height } = imageSize(bytes);
+    return width && height ? { width, height } : null;
   } catch {
     return null;
   }
-  const { width, height } = img.bitmap;
-  if (width * height > MAX_IMAGE_PIXELS) return 'too_many_pixels';
+}
+
+/**
+ * Checks the header's dimensions, then decodes and re-encodes the screenshot in a worker, which
+ * drops every metadata block (EXIF, GPS, comments), and makes a thumbnail. JPEG stays JPEG; PNG,
+ * GIF (first frame) and BMP become PNG. A pixel bomb is refused from its header, before any
+ * decoding. Returns null when the bytes do not decode as the image they claim to be.
+ */
+export async function reencodeImage(bytes: Buffer, format: ImageFormat): Promise<ReencodedImage | 'too_many_pixels' | null> {
+  const size = headerSize(bytes);
+  if (!size) return null;
+  if (size.width * size.height > MAX_IMAGE_PIXELS) return 'too_many_pixels';
   const jpeg = format === 'jpeg';
-  const mime = jpeg ? 'image/jpeg' : 'image/png';
-  const encode = (i: typeof img) => (jpeg ? i.getBuffer('image/jpeg', { quality: 88 }) : i.getBuffer('image/png'));
-  const image = await encode(img);
-  const thumb = img.clone();
-  if (width > THUMB.w || height > THUMB.h) thumb.scaleToFit({ w: THUMB.w, h: THUMB.h });
-  const thumbnail = await encode(thumb);
-  return { image, thumbnail, contentType: mime, extension: jpeg ? 'jpg' : 'png', width, height };
+  let done;
+  try {
+    done = await imageWorkers.reencode(bytes, jpeg);
+  } catch (err) {
+    if (/queue/i.test((err as Error).message)) throw new AppError('rate_limited', 'The server is busy with other images; try again in a minute');
+    throw new AppError('too_large', `The image could not be decoded within the server's memory limit (${(err as Error).message}); scale it down first`);
+  }
+  if (!done) return null;
+  // the header may lie; the decoded bitmap is what counts
+  if (done.width * done.height > MAX_IMAGE_PIXELS) return 'too_many_pixels';
+  return {
+    image: Buffer.from(done.image),
+    thumbnail: Buffer.from(done.thumbnail),
+    contentType: jpeg ? 'image/jpeg' : 'image/png',
+    extension: jpeg ? 'jpg' : 'png',
+    width: done.width,
+    height: done.height,
+  };
 }

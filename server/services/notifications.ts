@@ -1,4 +1,6 @@
+import { canSeeCase } from '../../shared/auth/case-policy';
 import type { NotificationKind } from '../../shared/schemas/review';
+import { findCaseById } from '../db/repositories/cases';
 import { prefsOf, queueDigestItem } from '../db/repositories/notification-prefs';
 import { findUserById, listUsersWithRole } from '../db/repositories/users';
 import { watchersOf } from '../db/repositories/watches';
@@ -17,15 +19,20 @@ export interface CaseNotice {
 
 /**
  * Sends one notice to each recipient by their preference: at once, in the daily digest, or not
- * at all. Returns who was told (either way).
+ * at all. Returns who was told (either way). Only people who may open the case as it is now are
+ * told: the same policy as `GET /api/cases/:id`, asked at send time.
  */
 export async function notifyUsers(deps: AppDeps, userIds: Iterable<number>, notice: CaseNotice, exceptUserId?: number): Promise<Set<number>> {
   const told = new Set<number>();
   const url = `${deps.config.publicUrl}/cases/${notice.caseId}`;
+  const row = await findCaseById(deps.db, notice.caseId);
+  if (!row) return told;
+  const facts = { authorId: row.author_id, status: row.status };
   for (const id of new Set(userIds)) {
     if (id === exceptUserId) continue;
     const user = await findUserById(deps.db, id);
     if (!user || user.active !== 1) continue;
+    if (!canSeeCase(user, facts)) continue;
     const mode = (await prefsOf(deps.db, id))[notice.kind] ?? 'instant';
     if (mode === 'off') continue;
     told.add(id);

@@ -1,3 +1,4 @@
+import { canSeeCase } from '../../shared/auth/case-policy';
 import { canModerate, type Actor } from '../../shared/auth/roles';
 import type { TagInfo } from '../../shared/schemas/tags';
 import { recordAudit } from '../db/repositories/audit-log';
@@ -9,16 +10,32 @@ async function ensureTagRow(db: Db, tag: string) {
   await db.insertInto('tags').values({ tag, created_at: new Date().toISOString() }).onConflict((oc) => oc.doNothing()).execute();
 }
 
-export async function listTags({ db }: AppDeps): Promise<TagInfo[]> {
-  const counts = await db.selectFrom('case_tags').select(['tag', (eb) => eb.fn.countAll<number>().as('n')]).groupBy('tag').execute();
+/**
+ * Every tag the actor may know of, with how many cases they may open carry it. A tag that only
+ * cases hidden from the actor use is left out (its name alone can tell of a draft); a curated tag
+ * no case uses yet is listed.
+ */
+export async function listTags({ db }: AppDeps, actor: Actor): Promise<TagInfo[]> {
+  const uses = await db
+    .selectFrom('case_tags')
+    .innerJoin('cases', 'cases.id', 'case_tags.case_id')
+    .select(['case_tags.tag', 'case_tags.case_id', 'cases.author_id', 'cases.status'])
+    .distinct()
+    .execute();
+  const visible = new Map<string, number>();
+  const used = new Set<string>();
+  for (const u of uses) {
+    used.add(u.tag);
+    if (canSeeCase(actor, { authorId: u.author_id, status: u.status })) visible.set(u.tag, (visible.get(u.tag) ?? 0) + 1);
+  }
   const meta = await db.selectFrom('tags').selectAll().execute();
   const syn = await db.selectFrom('tag_synonyms').selectAll().execute();
-  const names = new Set([...counts.map((c) => c.tag), ...meta.map((m) => m.tag)]);
+  const names = new Set([...visible.keys(), ...meta.map((m) => m.tag).filter((t) => !used.has(t))]);
   return [...names].sort().map((tag) => {
     const m = meta.find((x) => x.tag === tag);
     return {
       tag,
-      count: Number(counts.find((c) => c.tag === tag)?.n ?? 0),
+      count: visible.get(tag) ?? 0,
       synonyms: syn.filter((s) => s.tag === tag).map((s) => s.synonym).sort(),
       retired: m?.retired === 1,
       description: m?.description ?? null,

@@ -103,3 +103,57 @@ describe('sign-in', () => {
     expect(res.body.error).toMatch(/no api route/i);
   });
 });
+
+describe('session rows', () => {
+  it('should not rewrite the session row on every signed-in request, only once a minute', async () => {
+    const { createTestContext: create, signedIn: signIn } = await import('./helpers/test-context');
+    const ctx = await create();
+    try {
+      const eng = await signIn(ctx, 'engineer');
+      const expiry = async () => (await ctx.db.selectFrom('sessions').select('expires_at').where('user_id', 'is not', null).executeTakeFirstOrThrow()).expires_at;
+      const before = await expiry();
+      for (let i = 0; i < 3; i++) await eng.get('/api/auth/me').expect(200);
+      expect(await expiry()).toBe(before);
+      // a session last extended over a minute ago is extended again
+      await ctx.db.updateTable('sessions').set({ expires_at: before - 120_000 }).execute();
+      await eng.get('/api/auth/me').expect(200);
+      expect(await expiry()).toBeGreaterThan(before - 120_000);
+    } finally {
+      await ctx.close();
+    }
+  });
+});
+
+describe('CSRF tokens belong to a session', () => {
+  it('should refuse the token from before sign-in after it, and another session’s token', async () => {
+    const { createTestContext: create, demoEmail: email, DEMO_PASSWORD: pw } = await import('./helpers/test-context');
+    const request = (await import('supertest')).default;
+    const ctx = await create();
+    try {
+      const agent = request.agent(ctx.app);
+      const before: string = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
+      const login = await agent.post('/api/auth/login').set('x-csrf-token', before).send({ email: email('engineer'), password: pw }).expect(200);
+      const renewed = decodeURIComponent(String(login.headers['set-cookie']).match(/ft\.csrf=([^;]+)/)![1]);
+      expect(renewed).toBeTruthy();
+      expect(renewed).not.toBe(before);
+      const sid = String(login.headers['set-cookie']).match(/ft\.sid=([^;]+)/)![1];
+      // the pre-sign-in token, replayed with its cookie and the signed-in session, no longer passes
+      const stale = await request(ctx.app).post('/api/cases').set('Cookie', `ft.sid=${sid}; ft.csrf=${encodeURIComponent(before)}`).set('x-csrf-token', before).send({ title: 'Stale token', summary: 'must be refused' });
+      expect(stale.status).toBe(403);
+      expect(stale.body.error).toMatch(/CSRF/);
+      await agent.post('/api/cases').set('x-csrf-token', renewed).send({ title: 'With the renewed token', summary: 'a summary long enough' }).expect(201);
+      expect((await agent.get('/api/auth/csrf').expect(200)).body.csrfToken).toBe(renewed);
+
+      // a second person's valid token and cookie do not work with the first person's session
+      const other = request.agent(ctx.app);
+      const t0: string = (await other.get('/api/auth/csrf')).body.csrfToken;
+      await other.post('/api/auth/login').set('x-csrf-token', t0).send({ email: email('moderator'), password: pw }).expect(200);
+      const theirs: string = (await other.get('/api/auth/csrf')).body.csrfToken;
+      const crossed = await request(ctx.app).post('/api/cases').set('Cookie', `ft.sid=${sid}; ft.csrf=${encodeURIComponent(theirs)}`).set('x-csrf-token', theirs).send({ title: 'Crossed token', summary: 'must be refused' });
+      expect(crossed.status).toBe(403);
+      expect(crossed.body.error).toMatch(/CSRF/);
+    } finally {
+      await ctx.close();
+    }
+  });
+});

@@ -46,4 +46,18 @@ describe('password reset by e-mail', () => {
     expect(res.body.error).toMatch(/expired/i);
     await (await client(ctx)).login(email).expect(200);
   });
+
+  it('should end every older reset link once one of them is used', async () => {
+    const email = demoEmail('moderator');
+    const c = await client(ctx);
+    await c.post('/api/auth/password-reset', { email }).expect(202);
+    await c.post('/api/auth/password-reset', { email }).expect(202);
+    const links = (await mailsTo(ctx, email)).filter((m) => /reset/i.test(m.subject)).map((m) => linkPath(m.text, ctx.config.publicUrl).split('/').pop()!);
+    expect(links.length).toBeGreaterThanOrEqual(2);
+    const [older, newer] = links.slice(-2);
+    await c.post('/api/auth/password-reset/confirm', { token: newer, password: 'newest-link-password' }).expect(200);
+    const res = await c.post('/api/auth/password-reset/confirm', { token: older, password: 'older-link-password' }).expect(410);
+    expect(res.body.error).toMatch(/already used/i);
+    await (await client(ctx)).login(email, 'newest-link-password').expect(200);
+  });
 });

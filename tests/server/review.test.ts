@@ -98,6 +98,7 @@ describe('mail queue', () => {
     await ctx.fake.close();
     const queue = createMailQueue(ctx.db, createMailer(`smtp://127.0.0.1:${port}?ignoreTLS=true&connectionTimeout=2000`, true));
     await queue.send({ to: 'late@falsetrace.test', subject: 'Queued while down', text: 'hello', html: '<p>hello</p>' });
+    await queue.flush();
     expect(await pendingMailCount(ctx.db)).toBe(1);
     const row = await ctx.db.selectFrom('mail_queue').selectAll().executeTakeFirstOrThrow();
     expect(row.attempts).toBe(1);

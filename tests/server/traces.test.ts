@@ -46,6 +46,7 @@ describe('capture traces for plotting', () => {
     mod = await signedIn(ctx, 'moderator');
     const admin = await signedIn(ctx, 'admin');
     await admin.post('/api/admin/people/invitations', { email: 'trace.reader@falsetrace.test', role: 'engineer' }).expect(201);
+    await ctx.mail.flush();
     const mail = (await ctx.db.selectFrom('outbox_messages').selectAll().execute()).find((m) => m.to_addr.includes('trace.reader'))!;
     const token = mail.text.match(/accept-invitation\/(\S+)/)![1];
     other = await client(ctx);

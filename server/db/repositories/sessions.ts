@@ -11,8 +11,11 @@ export async function upsertSession(db: Db, sid: string, data: string, userId: n
     .execute();
 }
 
+/** Extends a session's expiry, at most once a minute: a row is not rewritten for every request. */
+export const TOUCH_EVERY_MS = 60_000;
+
 export async function touchSession(db: Db, sid: string, expiresAtMs: number) {
-  await db.updateTable('sessions').set({ expires_at: expiresAtMs }).where('sid', '=', sid).execute();
+  await db.updateTable('sessions').set({ expires_at: expiresAtMs }).where('sid', '=', sid).where('expires_at', '<=', expiresAtMs - TOUCH_EVERY_MS).execute();
 }
 
 export async function deleteSession(db: Db, sid: string) {

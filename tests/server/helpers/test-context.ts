@@ -9,7 +9,7 @@ import { openDatabase, type Db } from '../../../server/db/database';
 import { migrateToLatest } from '../../../server/db/migrate';
 import { listOutboxMessages } from '../../../server/db/repositories/outbox';
 import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
-import { createMailQueue, type MailQueue } from '../../../server/mail/mail-queue';
+import { createMailQueue, type BackgroundMailQueue } from '../../../server/mail/mail-queue';
 import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { openCaseSearch, type CaseSearch } from '../../../server/search/case-search';
 import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
@@ -21,28 +21,40 @@ export interface TestContext {
   app: ReturnType<typeof createApp>;
   db: Db;
   mailer: Mailer;
-  mail: MailQueue;
+  mail: BackgroundMailQueue;
   fake: LocalSmtpFake;
   config: Config;
   search: CaseSearch;
   close(): Promise<void>;
 }
 
+export interface TestContextOptions {
+  /** Send to this SMTP server instead of the local fake (which still runs). */
+  smtpUrl?: string;
+  mailTimeoutsMs?: { connect: number; greeting: number; socket: number };
+  /** Keep the database as a file in the data folder, as the server does (backup, crash tests). */
+  onDisk?: boolean;
+  /** As TRUST_PROXY would set it. */
+  trustProxy?: Config['trustProxy'];
+}
+
 /** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
-export async function createTestContext(): Promise<TestContext> {
-  const db = openDatabase(':memory:');
+export async function createTestContext(options: TestContextOptions = {}): Promise<TestContext> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-test-'));
+  const db = openDatabase(options.onDisk ? path.join(dataDir, 'falsetrace.sqlite') : ':memory:');
   await migrateToLatest(db);
   await seedDemoUsers(db, DEMO_PASSWORD);
   const fake = await startLocalSmtpFake(db);
-  const mailer = createMailer(`smtp://127.0.0.1:${fake.port}?ignoreTLS=true`, true);
+  const mailer = createMailer(options.smtpUrl ?? `smtp://127.0.0.1:${fake.port}?ignoreTLS=true`, !options.smtpUrl, options.mailTimeoutsMs);
   const config: Config = {
     port: 0,
-    dataDir: mkdtempSync(path.join(tmpdir(), 'falsetrace-test-')),
+    dataDir,
     publicUrl: 'http://falsetrace.local',
     sessionSecret: 'test-secret-test-secret-test-secret',
     seedDemo: false,
     demoPassword: DEMO_PASSWORD,
     production: false,
+    trustProxy: options.trustProxy,
   };
   const mail = createMailQueue(db, mailer);
   const search = await openCaseSearch(db, { dataDir: config.dataDir });
@@ -56,6 +68,8 @@ export async function createTestContext(): Promise<TestContext> {
     config,
     search,
     async close() {
+      mail.stop();
+      await mail.idle();
       search.close();
       (app.locals.sessionStore as { close(): void }).close();
       mailer.close();
@@ -66,22 +80,33 @@ export async function createTestContext(): Promise<TestContext> {
   };
 }
 
-/** A cookie-keeping client that sends the CSRF header on every state-changing call. */
+/**
+ * A cookie-keeping client that sends the CSRF header on every state-changing call. Sign-in renews
+ * the token (it is bound to the session), so the client takes the new one from the answer.
+ */
 export async function client(ctx: TestContext) {
   const agent = request.agent(ctx.app);
-  const token: string = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken;
+  const state = { token: (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken as string };
+  // as the browser's client does after sign-in: use the renewed token the server set as a cookie
+  const adopt = (test: request.Test) =>
+    test.on('response', (res: { headers?: Record<string, string | string[] | undefined> }) => {
+      const cookies = ([] as string[]).concat(res.headers?.['set-cookie'] ?? []);
+      const renewed = cookies.map((c) => c.match(/^ft\.csrf=([^;]+)/)?.[1]).find(Boolean);
+      if (renewed) state.token = decodeURIComponent(renewed);
+    });
   return {
     agent,
-    token,
+    get token() {
+      return state.token;
+    },
     get: (url: string) => agent.get(url),
-    post: (url: string, body?: object) => agent.post(url).set('x-csrf-token', token).send(body),
-    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', token).send(body),
-    put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', token).send(body),
-    del: (url: string) => agent.delete(url).set('x-csrf-token', token),
+    post: (url: string, body?: object) => adopt(agent.post(url).set('x-csrf-token', state.token).send(body)),
+    patch: (url: string, body?: object) => agent.patch(url).set('x-csrf-token', state.token).send(body),
+    put: (url: string, body?: object) => agent.put(url).set('x-csrf-token', state.token).send(body),
+    del: (url: string) => agent.delete(url).set('x-csrf-token', state.token),
     upload: (url: string, bytes: Buffer, filename: string, contentType = 'application/octet-stream') =>
-      agent.post(url).set('x-csrf-token', token).attach('file', bytes, { filename, contentType }),
-    login: (email: string, password = DEMO_PASSWORD) =>
-      agent.post('/api/auth/login').set('x-csrf-token', token).send({ email, password }),
+      agent.post(url).set('x-csrf-token', state.token).attach('file', bytes, { filename, contentType }),
+    login: (email: string, password = DEMO_PASSWORD) => adopt(agent.post('/api/auth/login').set('x-csrf-token', state.token).send({ email, password })),
   };
 }
 
@@ -91,7 +116,9 @@ export async function signedIn(ctx: TestContext, role: Role) {
   return c;
 }
 
+/** Mails the fake received for this address, after the background sender has delivered what is due. */
 export async function mailsTo(ctx: TestContext, email: string) {
+  await ctx.mail.flush();
   return (await listOutboxMessages(ctx.db)).filter((m) => m.to_addr.toLowerCase().includes(email.toLowerCase()));
 }
 

@@ -20,6 +20,7 @@ function ExportForm() {
     <div className="flex flex-col gap-3">
       <p className="text-sm text-muted">
         A zip with every case as JSON for import elsewhere, and as a Markdown page with its screenshots and captures for reading.
+        For moving cases between teams, not a backup.
       </p>
       <div className="grid gap-3 sm:grid-cols-2">
         <SelectField label="Cause" options={CAUSE_OPTIONS} value={filters.cause ?? ''} onChange={set('cause')} />
@@ -128,13 +129,22 @@ function ImportForm() {
 /** Export and import of the whole casebook, for admins (shown on the People page). */
 export function CasebookTransferPanel() {
   return (
-    <div className="mt-6 grid gap-6 lg:grid-cols-2">
-      <Panel title="Export the casebook">
-        <ExportForm />
-      </Panel>
-      <Panel title="Import a casebook">
-        <ImportForm />
-      </Panel>
-    </div>
+    <>
+      <div className="mt-6 grid gap-6 lg:grid-cols-2">
+        <Panel title="Export the casebook">
+          <ExportForm />
+        </Panel>
+        <Panel title="Import a casebook">
+          <ImportForm />
+        </Panel>
+      </div>
+      <p className="mt-3 text-sm text-muted">
+        Export and import move cases between teams. To back up this installation — people, reviews, history, settings and every file —{' '}
+        <a href="/api/admin/backup" download className="underline">
+          download a full backup
+        </a>{' '}
+        (or run <code>npm run backup</code> on the server); it is brought back whole with <code>npm run restore</code> while the server is stopped, never through Import.
+      </p>
+    </>
   );
 }

@@ -1,0 +1,24 @@
+import { copyFileSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { build } from 'esbuild';
+
+// npm run build:server → dist-server/: the server as plain JavaScript for `node dist-server/index.mjs`,
+// so production runs without tsx or npm between the process manager's signals and the server.
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const out = path.join(root, 'dist-server');
+rmSync(out, { recursive: true, force: true });
+mkdirSync(path.join(out, 'migrations'), { recursive: true });
+
+const common = { platform: 'node', format: 'esm', target: 'node20', packages: 'external', sourcemap: true, logLevel: 'warning' } as const;
+await build({ ...common, entryPoints: [path.join(root, 'server/index.ts')], bundle: true, outfile: path.join(out, 'index.mjs') });
+await build({
+  ...common,
+  entryPoints: readdirSync(path.join(root, 'migrations')).filter((f) => /^\d.*\.ts$/.test(f)).map((f) => path.join(root, 'migrations', f)),
+  bundle: true,
+  outdir: path.join(out, 'migrations'),
+  outExtension: { '.js': '.js' },
+});
+// the image worker is plain JavaScript already; the pool finds it beside the bundle
+copyFileSync(path.join(root, 'server/images/reencode-worker.mjs'), path.join(out, 'reencode-worker.mjs'));
+console.log(`server built into ${path.relative(root, out)}/ (start it with: node dist-server/index.mjs)`);

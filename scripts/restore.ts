@@ -1,0 +1,18 @@
+import path from 'node:path';
+import { restoreBackup } from '../server/backup/restore';
+
+// DATA_DIR=/srv/falsetrace npm run restore -- FILE.zip    (with the server stopped)
+const archive = process.argv[2];
+if (!archive || !process.env.DATA_DIR) {
+  console.error('Usage: DATA_DIR=/path/to/data npm run restore -- BACKUP.zip   (stop the server first)');
+  process.exit(2);
+}
+const dataDir = path.resolve(process.env.DATA_DIR);
+try {
+  const result = await restoreBackup(path.resolve(archive), dataDir);
+  console.log(`restored ${result.files} files from ${result.manifest.createdAt} into ${dataDir}`);
+  if (result.asideDir) console.log(`the folder's previous files are kept in ${result.asideDir}; delete it once the restore is checked`);
+} catch (err) {
+  console.error(`restore refused: ${(err as Error).message}`);
+  process.exit(1);
+}

@@ -1,0 +1,26 @@
+import { Router } from 'express';
+import { backupFileName, writeBackup } from '../backup/backup';
+import type { AppDeps } from '../deps';
+import { requireRole } from '../middleware/require-auth';
+
+/**
+ * `GET /api/admin/backup`: the whole installation (database, uploads, session secret) as one
+ * zip, taken online. Not the casebook export: this one restores everything, for this team only.
+ */
+export function backupRoutes(deps: AppDeps) {
+  const r = Router();
+  r.use(requireRole('admin'));
+  r.get('/', async (_req, res) => {
+    res.setHeader('Content-Type', 'application/zip');
+    res.setHeader('Content-Disposition', `attachment; filename="${backupFileName()}"`);
+    res.setHeader('Cache-Control', 'no-store');
+    try {
+      await writeBackup(deps.db, deps.config.dataDir, res);
+    } catch (err) {
+      // the headers are gone already: cut the download so it cannot pass for a whole backup
+      console.error('[falsetrace] backup failed:', err);
+      res.destroy(err as Error);
+    }
+  });
+  return r;
+}

@@ -22,6 +22,9 @@ export interface ShapeInputs {
 // a sine has 41 % there (2·arccos(0.8)/π), a square with edges of a fifth of its period 80 %.
 const TWO_LEVEL_SHARE = 0.7;
 const SINE_POWER_SHARE = 0.92;
+// A sine spends 41 % of its time near its extremes; a square rounded by one pole that settles
+// within its half period (τ ≤ T/12) spends more than 55 % there, however sine-like its spectrum.
+const ROUNDED_SQUARE_SHARE = 0.55;
 const CLIPPED_SINE_POWER_SHARE = 0.8;
 // A clipped trace this close to two levels is a square clipped at its rails, not a clipped sine (74 % at twice the rails).
 const CLIPPED_SQUARE_SHARE = 0.85;
@@ -48,7 +51,8 @@ export function classifyShape(input: ShapeInputs): WaveShape {
   // a square puts at most 81 % of its power in the fundamental (8/π²), less with sharp edges;
   // a sine clipped at half its amplitude still has 95 % there
   // (and repeats: a single step's spectrum also crowds into its lowest bins)
-  const sineLike = fundamentalShare !== null && fundamentalShare >= SINE_POWER_SHARE && periodS !== null;
+  const sineLike =
+    fundamentalShare !== null && fundamentalShare >= SINE_POWER_SHARE && periodS !== null && !(transitions.length > 1 && isTwoLevel(volts, levels, ROUNDED_SQUARE_SHARE));
   if (!sineLike && transitions.length > 0 && (drooped || (levels.twoStates && isTwoLevel(volts, levels, TWO_LEVEL_SHARE)))) {
     if (transitions.length === 1) return 'step';
     if (periodS === null) return transitions.length === 2 ? 'pulse' : 'other';

@@ -106,6 +106,7 @@ const ROUTES: Record<string, Entry> = {
   'GET /api/attachments/:id/file': { rule: 'see', call: (c, f) => c.get(`/api/attachments/${f.screenshotId}/file`) },
   'GET /api/attachments/:id/thumbnail': { rule: 'see', call: (c, f) => c.get(`/api/attachments/${f.screenshotId}/thumbnail`) },
   'GET /api/attachments/:id/trace': { rule: 'see', call: (c, f) => c.get(`/api/attachments/${f.captureId}/trace`) },
+  'PATCH /api/attachments/:id/capture': { rule: 'edit', call: (c, f) => c.patch(`/api/attachments/${f.captureId}/capture`, { role: 'before' }) },
   'POST /api/diagnosis/': { rule: 'engineer', call: (c) => c.post('/api/diagnosis', {}) },
   'POST /api/captures/analyze': { rule: 'engineer', call: (c) => c.upload('/api/captures/analyze', stepCsv(50), 'a.csv', 'text/csv') },
   'GET /api/review/queue': { rule: 'moderator', call: (c) => c.get('/api/review/queue') },

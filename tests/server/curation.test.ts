@@ -139,6 +139,7 @@ describe('lessons, tags, watches and the digest', () => {
       ['evidence', 'attention'],
       ['lesson', 'attention'],
       ['safety', 'attention'],
+      ['capture_settings', 'not_needed'],
     ]);
     expect((await mod.get('/api/review/count')).body.waiting).toBeGreaterThan(0);
   });

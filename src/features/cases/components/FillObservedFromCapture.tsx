@@ -18,14 +18,17 @@ const UNITS: Record<ObservedKey, QuantityUnit | null> = {
   humFrequencyHz: 'Hz',
 };
 
-/** The text (or the box) a field gets: four significant figures, enough for a measurement and easy to read. */
-const fieldValue = (p: ObservedProposal): string | boolean => (typeof p.value === 'boolean' ? p.value : showQuantity(p.value as number, UNITS[p.field]!, 4));
-const shown = (p: ObservedProposal) => (p.value === null ? 'none' : typeof p.value === 'boolean' ? (p.value ? 'yes' : 'no') : (fieldValue(p) as string));
+/**
+ * The text a field gets: four significant figures for a quantity, enough for a measurement and
+ * easy to read; the clipped select's 'yes' / 'no' for a yes-or-no reading.
+ */
+const fieldValue = (p: ObservedProposal): string => (typeof p.value === 'boolean' ? (p.value ? 'yes' : 'no') : showQuantity(p.value as number, UNITS[p.field]!, 4));
+const shown = (p: ObservedProposal) => (p.value === null ? 'none' : fieldValue(p));
 
 /** Whether the field already says (to four figures) what the capture measured. */
 function same(current: unknown, p: ObservedProposal): boolean {
   if (p.value === null) return true;
-  if (typeof p.value === 'boolean') return current === p.value;
+  if (typeof p.value === 'boolean') return current === fieldValue(p);
   const unit = UNITS[p.field]!;
   const read = readQuantity(typeof current === 'string' ? current : '', unit);
   return read.kind === 'ok' && showQuantity(read.value, unit, 4) === fieldValue(p);
@@ -45,7 +48,7 @@ export function FillObservedFromCapture({ form, capture }: { form: CaseFormApi; 
   const measured = inForm.filter((p) => p.value !== null);
   if (measured.length === 0) return null;
   const changes = measured.filter((p) => !same(observed[p.field], p));
-  const overwrites = changes.filter((p) => observed[p.field] !== '' && observed[p.field] !== undefined && observed[p.field] !== null && observed[p.field] !== false);
+  const overwrites = changes.filter((p) => observed[p.field] !== '' && observed[p.field] !== undefined && observed[p.field] !== null);
   const apply = () => {
     const set = form.setValue as unknown as (name: string, value: unknown, options: object) => void;
     for (const p of changes) set(`setup.observed.${p.field}`, fieldValue(p), { shouldDirty: true, shouldValidate: true, shouldTouch: true });

@@ -88,6 +88,7 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   const { baseV, topV } = anchor;
   if (baseV === null || topV === null || !(topV > baseV)) return { ok: false, reason: 'the capture has no two levels to scale a model to' };
   const name = CAUSE_LABELS[hypothesis.cause];
+  if (hypothesis.cause === 'faithful') return { ok: false, reason: 'the engine reads the trace as true, so there is no error to draw over it' };
   if (NO_EDGE_CAUSES.has(hypothesis.cause)) {
     return { ok: false, reason: `the ${name.toLowerCase()} model predicts a frequency, droop or hum rather than an edge, so it is compared in numbers (see its plot) and not drawn over the capture` };
   }

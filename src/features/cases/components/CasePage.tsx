@@ -34,7 +34,12 @@ function Section({ id, title, children, className = '' }: { id: string; title: s
 
 function CauseChips({ c }: { c: Case }) {
   const engine = c.diagnosis?.hypotheses[0];
-  const engineCause = engine && engine.likelihood > 0 ? engine.cause : null;
+  const verdict = c.diagnosis?.verdict;
+  const observedSomething = Object.values(c.setup?.observed ?? {}).some((v) => typeof v === 'number' || typeof v === 'boolean');
+  // the chip names what the engine really concluded: a fitting cause, a true trace once something
+  // was observed, or nothing at all while the verdict rests on an empty observation
+  const engineCause =
+    engine && verdict === 'measurement-error' && engine.fits ? engine.cause : engine && verdict === 'faithful' && observedSomething ? 'faithful' : null;
   const stated = c.statedCause === 'other' ? `Other: ${c.statedCauseOther ?? 'unnamed'}` : c.statedCause;
   return (
     <ul className="flex flex-wrap items-center gap-2" aria-label="Causes">
@@ -43,6 +48,11 @@ function CauseChips({ c }: { c: Case }) {
           <span className="mr-1 text-xs text-muted">Stated</span>
           <CauseChip cause={c.statedCause === 'other' ? 'other' : c.statedCause} title={stated ?? undefined} tone={c.disagreesWithEngine ? 'plain' : 'agree'} />
           {c.statedCause === 'other' && c.statedCauseOther && <span className="ml-1 text-xs">({c.statedCauseOther})</span>}
+        </li>
+      )}
+      {verdict === 'unexplained' && (
+        <li className="text-xs text-muted">
+          Engine: <span className="text-caution">nothing it models fits</span>
         </li>
       )}
       {engineCause && (

@@ -43,4 +43,26 @@ describe.skipIf(skipBrowser)('symptom search on the Bench', () => {
     await screenshot(page, 'search-similar');
     await context.close();
   });
+
+  it('should find an aliasing case by its symptom, offer its cause as a facet, and group its lesson under it', async () => {
+    // the demo casebook holds verified aliasing cases (an invented team's PWM read at too low a sample rate)
+    const context = await app.browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signIn(page, app.server.baseUrl, 'engineer@falsetrace.test');
+    const box = page.getByRole('search', { name: 'Symptom search' }).getByRole('searchbox');
+    await box.pressSequentially('sample rate too low', { delay: 30 });
+    const facet = page.getByRole('group', { name: 'Cause' }).getByRole('button', { name: /Aliasing/ });
+    await facet.waitFor();
+    await facet.click();
+    await expect.poll(() => facet.getAttribute('aria-pressed')).toBe('true');
+    const results = page.getByTestId('search-result');
+    await expect.poll(() => results.count()).toBeGreaterThan(0);
+    const causes = await results.getByTestId('result-cause').allTextContents();
+    expect(causes.every((c) => /Aliasing/.test(c))).toBe(true);
+    await screenshot(page, 'search-facet-aliasing');
+    await page.goto(`${app.server.baseUrl}/lessons`);
+    await page.getByRole('heading', { name: /Aliasing: sample rate too low/ }).waitFor();
+    await screenshot(page, 'lessons-aliasing');
+    await context.close();
+  });
 });

@@ -51,8 +51,18 @@ export async function startServer(config: Config) {
   );
   digestTimer.unref();
 
-  const server: Server = await new Promise((resolve) => {
-    const s = app.listen(config.port, () => resolve(s));
+  // Express 5 hands a listen error (the port is taken, no permission) to this callback
+  const server: Server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.port, (err?: Error) => (err ? reject(err) : resolve(s)));
+  }).catch(async (err: NodeJS.ErrnoException) => {
+    clearInterval(digestTimer);
+    mail.stop();
+    search.close();
+    mailer.close();
+    await fake?.close();
+    await db.destroy();
+    const why = err.code === 'EADDRINUSE' ? `port ${config.port} is already in use` : err.code === 'EACCES' ? `no permission to listen on port ${config.port}` : err.message;
+    throw new Error(`[falsetrace] cannot listen: ${why}`, { cause: err });
   });
 
   /**

@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express from 'express';
 import session from 'express-session';
@@ -64,6 +65,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
       strictTransportSecurity: config.production,
     }),
   );
+  // gzip every text answer (JSON, scripts, styles, CSV); zips and images go as they are
+  app.use(compression());
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 
@@ -112,6 +115,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
 
   const clientDir = options.clientDir;
   if (clientDir && existsSync(path.join(clientDir, 'index.html'))) {
+    // Vite names every built asset after its content hash, so those never change: cache a year
+    app.use('/assets', express.static(path.join(clientDir, 'assets'), { index: false, maxAge: '365d', immutable: true }));
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
     // a screen's script from an older build is gone: say so, rather than answer with the page
     app.use('/assets', (req, _res, next) => next(new AppError('not_found', `No such file /assets${req.path}; reload the page`)));

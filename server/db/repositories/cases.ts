@@ -51,14 +51,19 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise
   const { n } = await base.select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   const desc = q.sort.startsWith('-');
   const column = SORT_COLUMNS[q.sort.replace(/^-/, '') as keyof typeof SORT_COLUMNS];
-  const rows = await base
-    .selectAll('cases')
-    .select('users.name as author_name')
+  // a deferred join: sort and cut the page on ids alone, then read the wide rows of that page only
+  // (narratives and diagnosis JSON of every visible case would otherwise be sorted to return 20)
+  const page = await base
+    .select('cases.id')
     .orderBy(column, desc ? 'desc' : 'asc')
     .orderBy('cases.id', 'desc')
     .limit(q.pageSize)
     .offset((q.page - 1) * q.pageSize)
     .execute();
+  if (page.length === 0) return { rows: [], total: Number(n) };
+  const wide = await withAuthor(db).where('cases.id', 'in', page.map((p) => p.id)).execute();
+  const byId = new Map(wide.map((r) => [r.id, r]));
+  const rows = page.map((p) => byId.get(p.id)).filter((r): r is CaseRowWithAuthor => r !== undefined);
   return { rows, total: Number(n) };
 }
 

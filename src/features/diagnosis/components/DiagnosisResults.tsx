@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { DiagnosisInput, DiagnosisResult } from '../../../../shared/schemas/diagnosis';
+import type { DiagnosisInput, DiagnosisResult, Hypothesis } from '../../../../shared/schemas/diagnosis';
 import { Alert } from '../../../components/ui/Alert';
 import { SafetyCaution } from '../../../components/ui/SafetyCaution';
 import { VerdictSummary } from '../../../components/ui/VerdictSummary';
@@ -24,8 +24,10 @@ export interface DiagnosisResultsProps {
 /** Ranked causes with their numbers and plots, the risks, and what the engine assumed. */
 export function DiagnosisResults({ result, input, server, unreadable }: DiagnosisResultsProps) {
   const top = result.hypotheses[0];
-  const shown = result.hypotheses.filter((h, i) => i === 0 || h.likelihood >= FOLD_BELOW);
-  const folded = result.hypotheses.slice(shown.length);
+  // the lead and every other hypothesis that fits with some weight stay open; the rest fold away
+  const open = (h: Hypothesis, i: number) => i === 0 || (h.fits && h.likelihood >= FOLD_BELOW);
+  const shown = result.hypotheses.filter(open);
+  const folded = result.hypotheses.filter((h, i) => !open(h, i));
   const observedAny = hasObservation(input);
   const recordNext = whatToRecordNext(result, input);
   return (

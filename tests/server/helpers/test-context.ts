@@ -110,6 +110,11 @@ export async function client(ctx: TestContext) {
   };
 }
 
+/** The version a PATCH says it edits, read the way the editor does: the case as this client loads it. */
+export async function updatedAtOf(c: Awaited<ReturnType<typeof client>>, caseId: number): Promise<string> {
+  return (await c.get(`/api/cases/${caseId}`).expect(200)).body.case.updatedAt;
+}
+
 export async function signedIn(ctx: TestContext, role: Role) {
   const c = await client(ctx);
   await c.login(demoEmail(role)).expect(200);

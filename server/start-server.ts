@@ -11,6 +11,7 @@ import { migrateToLatest } from './db/migrate';
 import { countUsers } from './db/repositories/users';
 import { startLocalSmtpFake } from './mail/local-smtp-fake';
 import { createMailQueue } from './mail/mail-queue';
+import { resolvePasswordResetRequests } from './services/auth';
 import { createMailer } from './mail/mailer';
 import { openCaseSearch } from './search/case-search';
 import { seedDemoCasebook } from './seed/demo/seed-casebook';
@@ -32,7 +33,8 @@ export async function startServer(config: Config) {
   const fake = config.smtpUrl ? undefined : await startLocalSmtpFake(db);
   const mailer = createMailer(config.smtpUrl ?? `smtp://127.0.0.1:${fake!.port}?ignoreTLS=true`, !config.smtpUrl);
 
-  const mail = createMailQueue(db, mailer);
+  // the queue's sweep also turns password reset requests into mails
+  const mail = createMailQueue(db, mailer, { prepare: (queue) => resolvePasswordResetRequests({ db, config, mail: queue }) });
   if (config.seedDemo && (await countUsers(db)) === 0) {
     const seeded = await seedDemoCasebook({ db, mailer, mail, config }, config.demoPassword);
     console.log(`[falsetrace] empty database: demo casebook seeded (${seeded.people} people, ${seeded.cases} cases, ${seeded.attachments} attachments)`);

@@ -147,6 +147,13 @@ export interface MailQueueTable {
   created_at: string;
 }
 
+/** A reset asked for an address not yet looked up (the background sender resolves and deletes it). */
+export interface PasswordResetRequestsTable {
+  id: Generated<number>;
+  email: string;
+  created_at: string;
+}
+
 export interface WatchesTable {
   id: Generated<number>;
   user_id: number;
@@ -207,6 +214,7 @@ export interface Database {
   app_state: AppStateTable;
   audit_log: AuditLogTable;
   mail_queue: MailQueueTable;
+  password_reset_requests: PasswordResetRequestsTable;
   watches: WatchesTable;
   notification_prefs: NotificationPrefsTable;
   digest_items: DigestItemsTable;

@@ -13,6 +13,8 @@ export interface MailQueue {
   send(message: MailMessage): Promise<void>;
   /** Stores the mail (inside the caller's transaction when given) for the next sweep. */
   enqueue(message: MailMessage, trx?: Db): Promise<void>;
+  /** Starts a sweep soon (after the one running), without waiting for it. */
+  wake(): void;
   /** Tries every mail whose retry time has come; returns how many went out. */
   retryDue(now?: Date): Promise<number>;
   start(intervalMs?: number): void;
@@ -27,7 +29,12 @@ export interface BackgroundMailQueue extends MailQueue {
   idle(): Promise<void>;
 }
 
-export function createMailQueue(db: Db, mailer: Mailer): BackgroundMailQueue {
+export interface MailQueueOptions {
+  /** Work that turns requests into mails (password resets), run at the start of every sweep. */
+  prepare?: (queue: MailQueue) => Promise<unknown>;
+}
+
+export function createMailQueue(db: Db, mailer: Mailer, options: MailQueueOptions = {}): BackgroundMailQueue {
   let timer: NodeJS.Timeout | undefined;
   let running: Promise<number> | undefined;
 
@@ -64,13 +71,16 @@ export function createMailQueue(db: Db, mailer: Mailer): BackgroundMailQueue {
     // one sweep at a time, so a slow SMTP server never gets the same mail twice
     running ??= (async () => {
       let sent = 0;
-      for (const row of await dueMails(db, now.toISOString())) if (await attempt(row.id, now)) sent++;
+      await options.prepare?.(queue).catch((e) => console.error('[falsetrace] preparing mails failed:', e));
+      // what prepare just queued is due too
+      const due = new Date(Math.max(now.getTime(), Date.now()));
+      for (const row of await dueMails(db, due.toISOString())) if (await attempt(row.id, now)) sent++;
       return sent;
     })().finally(() => (running = undefined));
     return running;
   }
 
-  return {
+  const queue: BackgroundMailQueue = {
     async send(message) {
       const now = new Date().toISOString();
       await insertQueuedMail(db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now, created_at: now });
@@ -80,6 +90,7 @@ export function createMailQueue(db: Db, mailer: Mailer): BackgroundMailQueue {
       const now = new Date().toISOString();
       await insertQueuedMail(trx ?? db, { to_addr: message.to, subject: message.subject, text: message.text, html: message.html, next_attempt_at: now, created_at: now });
     },
+    wake,
     retryDue,
     async flush() {
       await running?.catch(() => undefined);
@@ -97,4 +108,5 @@ export function createMailQueue(db: Db, mailer: Mailer): BackgroundMailQueue {
       if (timer) clearInterval(timer);
     },
   };
+  return queue;
 }

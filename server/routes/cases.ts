@@ -43,7 +43,7 @@ export function caseRoutes(deps: AppDeps) {
 
   r.patch('/:id', async (req, res) => {
     const caseId = id(req.params.id);
-    res.json({ case: await updateCase(deps, req.user!, caseId, parseInput(casePatchSchema, req.body, 'The change')) });
+    res.json({ case: await updateCase(deps, req.user!, caseId, parseInput(casePatchSchema, req.body, 'The change'), { requireBase: true }) });
   });
 
   r.delete('/:id', async (req, res) => {

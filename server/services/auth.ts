@@ -2,6 +2,7 @@ import type { AcceptInvitationInput, ChangePasswordInput, ResetConfirmInput, Use
 import { dummyPasswordHash, hashPassword, verifyPassword } from '../auth/password';
 import { hashLinkToken, newLinkToken } from '../auth/tokens';
 import { consumeAuthToken, findAuthToken, insertAuthToken } from '../db/repositories/auth-tokens';
+import { deleteResetRequest, insertResetRequest, pendingResetRequests } from '../db/repositories/password-reset-requests';
 import { deleteUserSessions } from '../db/repositories/sessions';
 import { findUserByEmail, findUserById, insertUser, updateUser } from '../db/repositories/users';
 import type { AppDeps } from '../deps';
@@ -60,21 +61,40 @@ export async function acceptInvitation(deps: AppDeps, input: AcceptInvitationInp
   });
 }
 
-/** Mails a reset link when the address belongs to an active account; the caller answers the same either way. */
+/**
+ * Writes the request down and wakes the background sender: the same single write whether or not
+ * the address has an account, so neither the answer nor its time says which (the lookup, the
+ * link and the mail happen later, in `resolvePasswordResetRequests`).
+ */
 export async function requestPasswordReset(deps: AppDeps, email: string): Promise<void> {
-  const user = await findUserByEmail(deps.db, email);
-  if (!user || user.active !== 1) return;
-  const { token, tokenHash } = newLinkToken();
-  const now = Date.now();
-  await insertAuthToken(deps.db, {
-    kind: 'password_reset',
-    token_hash: tokenHash,
-    email: user.email,
-    user_id: user.id,
-    expires_at: new Date(now + RESET_TTL_MS).toISOString(),
-    created_at: new Date(now).toISOString(),
-  });
-  await deps.mail.send(passwordResetMail(user.email, `${deps.config.publicUrl}/reset-password/${token}`));
+  await insertResetRequest(deps.db, email, new Date().toISOString());
+  deps.mail.wake();
+}
+
+/** Run by the mail queue before each sweep: a reset link for each request from an active account. */
+export async function resolvePasswordResetRequests({ db, config, mail }: Pick<AppDeps, 'db' | 'config' | 'mail'>): Promise<number> {
+  let mailed = 0;
+  for (const request of await pendingResetRequests(db)) {
+    const user = await findUserByEmail(db, request.email);
+    await db.transaction().execute(async (trx) => {
+      await deleteResetRequest(trx, request.id);
+      if (!user || user.active !== 1) return;
+      const { token, tokenHash } = newLinkToken();
+      // the link lives an hour from when it was asked for, not from when the sender got to it
+      const askedAt = new Date(request.created_at).getTime();
+      await insertAuthToken(trx, {
+        kind: 'password_reset',
+        token_hash: tokenHash,
+        email: user.email,
+        user_id: user.id,
+        expires_at: new Date(askedAt + RESET_TTL_MS).toISOString(),
+        created_at: request.created_at,
+      });
+      await mail.enqueue(passwordResetMail(user.email, `${config.publicUrl}/reset-password/${token}`), trx);
+      mailed++;
+    });
+  }
+  return mailed;
 }
 
 export async function confirmPasswordReset(deps: AppDeps, input: ResetConfirmInput): Promise<void> {

@@ -85,10 +85,22 @@ export async function createCase({ db, search }: AppDeps, actor: Actor, input: C
   return loadCase(db, actor, id);
 }
 
-export async function updateCase({ db, search }: AppDeps, actor: Actor, id: number, input: CasePatchInput): Promise<Case> {
+export interface UpdateCaseOptions {
+  /** Refuse a change that does not say which version it edits (HTTP callers); the seed edits its own fresh rows. */
+  requireBase?: boolean;
+}
+
+export async function updateCase({ db, search }: AppDeps, actor: Actor, id: number, input: CasePatchInput, options: UpdateCaseOptions = {}): Promise<Case> {
   const row = await visibleCaseRow(db, actor, id);
   if (!canEditCase(actor, { authorId: row.author_id, status: row.status })) {
     throw forbidden(row.author_id === actor.id ? `A case that is ${row.status.replace('_', ' ')} cannot be edited by its author` : 'Only the author or a moderator may edit this case');
+  }
+  // asked after the access checks, so the answer says nothing about a case the caller may not edit
+  if (options.requireBase && !input.baseUpdatedAt) {
+    throw new AppError(
+      'conflict',
+      'Say which version you edited: send baseUpdatedAt with the case\'s updatedAt as you loaded it (GET /api/cases/:id), so a save cannot silently overwrite a newer one.',
+    );
   }
   if (input.baseUpdatedAt && input.baseUpdatedAt !== row.updated_at) {
     throw new AppError('conflict', 'This case was saved elsewhere since you opened it. Reload to see the newer version; your edits are kept in this browser.');

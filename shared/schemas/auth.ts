@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ROLES } from '../auth/roles';
+import { stripControlChars } from './clean-text';
 
 export const emailSchema = z
   .string({ error: 'Enter an e-mail address' })
@@ -15,6 +16,7 @@ export const newPasswordSchema = z
 
 export const personNameSchema = z
   .string({ error: 'Enter a name' })
+  .overwrite(stripControlChars)
   .trim()
   .min(1, 'Enter a name')
   .max(100, 'Use at most 100 characters');

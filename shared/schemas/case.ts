@@ -8,6 +8,7 @@ import {
   scopeInputSchema,
   signalInputSchema,
 } from './diagnosis';
+import { stripControlChars, stripControlCharsMultiline } from './clean-text';
 
 export const CASE_STATUSES = ['draft', 'in_review', 'needs_changes', 'verified', 'retired'] as const;
 export const caseStatusSchema = z.enum(CASE_STATUSES, { error: `Status must be one of ${CASE_STATUSES.join(', ')}` });
@@ -27,12 +28,19 @@ export const statedCauseSchema = z.union([causeSchema, z.literal('other')], {
 });
 export type StatedCause = z.infer<typeof statedCauseSchema>;
 
-const text = (label: string, max: number) => z.string({ error: `${label} must be text` }).trim().max(max, `${label}: at most ${max} characters`);
-const optionalText = (label: string, max: number) => text(label, max).nullish();
+/** Single-line text loses every control and bidi character; `multiline` keeps tabs and newlines. */
+const text = (label: string, max: number, multiline = false) =>
+  z
+    .string({ error: `${label} must be text` })
+    .overwrite(multiline ? stripControlCharsMultiline : stripControlChars)
+    .trim()
+    .max(max, `${label}: at most ${max} characters`);
+const optionalText = (label: string, max: number, multiline = false) => text(label, max, multiline).nullish();
 
 /** Tags are short lower-case slugs, e.g. `10x-at-1x`, `gate-drive`. */
 export const tagSchema = z
   .string()
+  .overwrite(stripControlChars)
   .trim()
   .toLowerCase()
   .min(1, 'A tag cannot be empty')
@@ -63,22 +71,22 @@ export const caseSetupSchema = z.object({
     })
     .nullish(),
   signal: signalInputSchema.nullish(),
-  observed: observedInputSchema.extend({ description: optionalText('Observation', 2000) }).nullish(),
+  observed: observedInputSchema.extend({ description: optionalText('Observation', 2000, true) }).nullish(),
 });
 export type CaseSetup = z.infer<typeof caseSetupSchema>;
 
 const caseFields = {
   title: text('Title', 160).min(3, 'Give the case a title of at least 3 characters'),
   summary: text('Symptom summary', 280).min(3, 'Say in one line what the trace did'),
-  narrative: text('Narrative', 50_000).optional(),
+  narrative: text('Narrative', 50_000, true).optional(),
   setup: caseSetupSchema.optional(),
   statedCause: statedCauseSchema.nullish(),
   statedCauseOther: optionalText('Other cause', 200),
-  fix: optionalText('Fix', 5000),
+  fix: optionalText('Fix', 5000, true),
   lessonSummary: optionalText('Lesson', 200),
-  lessonDetail: optionalText('Lesson detail', 5000),
+  lessonDetail: optionalText('Lesson detail', 5000, true),
   /** How to probe this circuit safely; the review asks for it whenever the engine raises a risk. */
-  safetyNote: optionalText('Safety note', 2000),
+  safetyNote: optionalText('Safety note', 2000, true),
   tags: z.array(tagSchema).max(12, 'At most 12 tags').optional(),
 };
 
@@ -175,7 +183,7 @@ export const caseListQuerySchema = z.object({
 export type CaseListQuery = z.infer<typeof caseListQuerySchema>;
 
 export const commentInputSchema = z.object({
-  body: text('Comment', 10_000).min(1, 'Write something first'),
+  body: text('Comment', 10_000, true).min(1, 'Write something first'),
 });
 export type CommentInput = z.infer<typeof commentInputSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { stripControlCharsMultiline } from './clean-text';
 
 export const REVIEW_ACTIONS = ['verify', 'send_back', 'retire', 'duplicate'] as const;
 export type ReviewAction = (typeof REVIEW_ACTIONS)[number];
@@ -7,7 +8,7 @@ export type ReviewAction = (typeof REVIEW_ACTIONS)[number];
 export const reviewInputSchema = z
   .object({
     action: z.enum(REVIEW_ACTIONS, { error: `action must be one of ${REVIEW_ACTIONS.join(', ')}` }),
-    note: z.string().trim().max(5000, 'The note has at most 5000 characters').optional(),
+    note: z.string().overwrite(stripControlCharsMultiline).trim().max(5000, 'The note has at most 5000 characters').optional(),
     duplicateOf: z.coerce.number().int().positive('duplicateOf must be a case id').optional(),
   })
   .superRefine((v, ctx) => {

@@ -185,6 +185,7 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
       const patched = await eng.call('PATCH', `/api/cases/${ids.probe}`, {
         lessonSummary: 'Check the channel attenuation setting matches the probe before reading amplitude',
         lessonDetail: 'A 10x probe on a channel set to 1x shows a tenth of the signal; many scopes do not sense the switch position.',
+        baseUpdatedAt: back.updatedAt,
       });
       expect(patched.status, JSON.stringify(patched.body)).toBe(200);
       await submit(eng, ids.probe);

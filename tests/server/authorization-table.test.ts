@@ -26,6 +26,7 @@ interface Fixture {
   captureId: number;
   commentId: number;
   tag: string;
+  updatedAt: string;
 }
 
 type CaseRule = 'see' | 'edit' | 'submit' | 'delete' | 'review' | 'own-comment' | 'hide' | 'moderate';
@@ -84,7 +85,7 @@ const ROUTES: Record<string, Entry> = {
   'GET /api/cases/authors': { rule: 'engineer', call: (c) => c.get('/api/cases/authors') },
   'POST /api/cases/': { rule: 'engineer', call: (c) => c.post('/api/cases', {}) },
   'GET /api/cases/:id': { rule: 'see', call: (c, f) => c.get(`/api/cases/${f.caseId}`) },
-  'PATCH /api/cases/:id': { rule: 'edit', call: (c, f) => c.patch(`/api/cases/${f.caseId}`, { summary: 'edited in the table' }) },
+  'PATCH /api/cases/:id': { rule: 'edit', call: (c, f) => c.patch(`/api/cases/${f.caseId}`, { summary: 'edited in the table', baseUpdatedAt: f.updatedAt }) },
   'DELETE /api/cases/:id': { rule: 'delete', call: (c, f) => c.del(`/api/cases/${f.caseId}`) },
   'POST /api/cases/:id/submit': { rule: 'submit', call: (c, f) => c.post(`/api/cases/${f.caseId}/submit`) },
   'POST /api/cases/:id/attachments': { rule: 'edit', call: (c, f) => c.upload(`/api/cases/${f.caseId}/attachments`, stepCsv(50), 'a.csv', 'text/csv') },
@@ -175,7 +176,7 @@ describe('authorization: every route × role × ownership × case state', () => 
     const cap = await ctx.db.insertInto('attachments').values({ ...base, kind: 'capture', storage_name: `c${k}.csv`, original_name: 'c.csv', content_type: 'text/csv; charset=utf-8', size_bytes: 1 }).returning('id').executeTakeFirstOrThrow();
     const comment = await ctx.db.insertInto('comments').values({ case_id: id, author_id: authorId, body: 'author comment', created_at: now, updated_at: now }).returning('id').executeTakeFirstOrThrow();
     await ctx.search.syncCase(id);
-    return { caseId: id, screenshotId: shot.id, captureId: cap.id, commentId: comment.id, tag };
+    return { caseId: id, screenshotId: shot.id, captureId: cap.id, commentId: comment.id, tag, updatedAt: now };
   }
 
   it('should have an entry for every route, and no entry for a route that is gone', () => {

@@ -8,7 +8,7 @@ import { writeBackup } from '../../server/backup/backup';
 import { restoreBackup } from '../../server/backup/restore';
 import { PID_FILE } from '../../server/backup/server-lock';
 import { pngBytes, stepCsv } from './helpers/fixtures';
-import { createTestContext, invitedEngineer, signedIn, type TestContext } from './helpers/test-context';
+import { createTestContext, invitedEngineer, signedIn, type TestContext, updatedAtOf } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
@@ -56,7 +56,7 @@ describe('backup and restore of the whole installation', () => {
     await eng.upload(`/api/cases/${id}/attachments`, stepCsv(400), 'edge.csv', 'text/csv').expect(201);
     await eng.post(`/api/cases/${id}/comments`, { body: 'Spring tip fixed it' }).expect(201);
     await eng.post(`/api/cases/${id}/submit`).expect(200);
-    await mod.patch(`/api/cases/${id}`, { summary: 'overshoot at 120 MHz, gone with a spring tip' }).expect(200);
+    await mod.patch(`/api/cases/${id}`, { summary: 'overshoot at 120 MHz, gone with a spring tip', baseUpdatedAt: await updatedAtOf(mod, id) }).expect(200);
     await mod.post(`/api/cases/${id}/review`, { action: 'verify' }).expect(200);
     await mod.put('/api/tags/ground-lead/synonyms', { synonyms: ['gnd-lead'] }).expect(200);
     const colleague = await invitedEngineer(ctx, 'leaver@falsetrace.test');

@@ -3,7 +3,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { pngBytes, stepCsv } from './helpers/fixtures';
-import { createTestContext, invitedEngineer, signedIn, type TestContext } from './helpers/test-context';
+import { createTestContext, invitedEngineer, signedIn, type TestContext, updatedAtOf } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
@@ -48,6 +48,12 @@ describe('case write-ups', () => {
 
     const stale = await author.patch(`/api/cases/${id}`, { title: 'Other title', baseUpdatedAt: created.body.case.updatedAt }).expect(409);
     expect(stale.body.error).toMatch(/saved elsewhere/);
+    // a change that does not say which version it edits could overwrite a newer save unseen
+    for (const base of [undefined, '']) {
+      const blind = await author.patch(`/api/cases/${id}`, { title: 'Blind overwrite', baseUpdatedAt: base }).expect(409);
+      expect(blind.body.error).toMatch(/send baseUpdatedAt/);
+    }
+    expect((await author.get(`/api/cases/${id}`)).body.case).toMatchObject({ title: 'Gate drive read 1.2 V', updatedAt: patched.body.case.updatedAt });
 
     expect((await author.post(`/api/cases/${id}/submit`).expect(200)).body.case.status).toBe('in_review');
     const again = await author.patch(`/api/cases/${id}`, { title: 'Sneaky edit' }).expect(403);
@@ -71,7 +77,7 @@ describe('case write-ups', () => {
     const read = (await author.get(`/api/cases/${id}`).expect(200)).body.case;
     expect(read.safetyNote).toBe(safetyNote);
     expect(read.setup.scope.sampleRateHz).toBe(1e9);
-    const cleared = await author.patch(`/api/cases/${id}`, { safetyNote: null }).expect(200);
+    const cleared = await author.patch(`/api/cases/${id}`, { safetyNote: null, baseUpdatedAt: read.updatedAt }).expect(200);
     expect(cleared.body.case.safetyNote).toBeNull();
     expect(cleared.body.case.setup.circuit.referenceV).toBe(48);
     const bad = await author.post('/api/cases', { title: 'Bad fields', summary: 'out of range', setup: { scope: { coupling: 'gnd' }, observed: { tiltPct: 400 } } }).expect(400);
@@ -169,7 +175,7 @@ describe('case write-ups', () => {
 
     it('should let only the author (and moderators) edit', async () => {
       await other.patch(`/api/cases/${draftId}`, { title: 'Taken over' }).expect(404);
-      await mod.patch(`/api/cases/${draftId}`, { summary: 'moderator tidied the summary' }).expect(200);
+      await mod.patch(`/api/cases/${draftId}`, { summary: 'moderator tidied the summary', baseUpdatedAt: await updatedAtOf(mod, draftId) }).expect(200);
       await request(ctx.app).patch(`/api/cases/${draftId}`).send({ title: 'anon' }).expect(403); // no CSRF token at all
       await other.post(`/api/cases/${draftId}/submit`).expect(404);
       await mod.post(`/api/cases/${draftId}/submit`).expect(403);
@@ -185,9 +191,9 @@ describe('case write-ups', () => {
 
   it('should keep a revision per save after submission and diff any two', async () => {
     const c = (await author.post('/api/cases', { title: 'Slow edges on the SPI clock', summary: 'edges looked 40 ns slow', tags: ['spi'] })).body.case;
-    await author.patch(`/api/cases/${c.id}`, { summary: 'draft edits keep no revision' }).expect(200);
+    await author.patch(`/api/cases/${c.id}`, { summary: 'draft edits keep no revision', baseUpdatedAt: c.updatedAt }).expect(200);
     await author.post(`/api/cases/${c.id}/submit`).expect(200);
-    await mod.patch(`/api/cases/${c.id}`, { summary: 'edges looked 40 ns slow with the 1x probe', setup: { probe: { nominalAttenuation: 1, tipCapacitanceF: 95e-12 } } }).expect(200);
+    await mod.patch(`/api/cases/${c.id}`, { summary: 'edges looked 40 ns slow with the 1x probe', setup: { probe: { nominalAttenuation: 1, tipCapacitanceF: 95e-12 } }, baseUpdatedAt: await updatedAtOf(mod, c.id) }).expect(200);
     const { revisions } = (await author.get(`/api/cases/${c.id}/revisions`).expect(200)).body;
     expect(revisions.map((r: { number: number }) => r.number)).toEqual([2, 1]);
     expect(revisions[0].authorName).toBe('Tomasz Lindqvist');

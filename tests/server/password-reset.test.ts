@@ -1,4 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { sqliteOf } from '../../server/db/database';
 import { client, createTestContext, demoEmail, linkPath, mailsTo, signedIn, type TestContext } from './helpers/test-context';
 
 describe('password reset by e-mail', () => {
@@ -59,5 +60,50 @@ describe('password reset by e-mail', () => {
     const res = await c.post('/api/auth/password-reset/confirm', { token: older, password: 'older-link-password' }).expect(410);
     expect(res.body.error).toMatch(/already used/i);
     await (await client(ctx)).login(email, 'newest-link-password').expect(200);
+  });
+});
+
+describe('password reset: the same work for a known and an unknown address', () => {
+  let ctx: TestContext;
+  beforeAll(async () => {
+    ctx = await createTestContext();
+    // no background sweeps: what is recorded is the request's own work, and mail goes out only on flush
+    ctx.mail.stop();
+  });
+  afterAll(() => ctx.close());
+
+  /** Every SQL statement the server runs while answering one reset request. */
+  async function statementsFor(email: string) {
+    const c = await client(ctx);
+    const sqlite = sqliteOf(ctx.db);
+    const prepare = vi.spyOn(sqlite, 'prepare');
+    try {
+      const res = await c.post('/api/auth/password-reset', { email }).expect(202);
+      return { body: res.body, sql: prepare.mock.calls.map(([sql]) => sql) };
+    } finally {
+      prepare.mockRestore();
+    }
+  }
+
+  it('should run the same statements for an active account, an unknown address and a deactivated account', async () => {
+    const leaver = 'leaver@falsetrace.test';
+    await ctx.db.insertInto('users').values({ email: leaver, name: 'Left the team', role: 'engineer', password_hash: null, active: 0, created_at: '2026-01-01T00:00:00.000Z', updated_at: '2026-01-01T00:00:00.000Z' }).execute();
+    const known = await statementsFor(demoEmail('engineer'));
+    const unknown = await statementsFor('nobody@falsetrace.test');
+    const inactive = await statementsFor(leaver);
+
+    expect(known.sql.some((q) => /insert into "password_reset_requests"/.test(q))).toBe(true);
+    expect(known.sql.some((q) => /"users"|"auth_tokens"|"mail_queue"/.test(q))).toBe(false);
+    expect(unknown.sql).toEqual(known.sql);
+    expect(inactive.sql).toEqual(known.sql);
+    expect(unknown.body).toEqual(known.body);
+    expect(inactive.body).toEqual(known.body);
+
+    // the background sender then mails only the active account, and forgets every request
+    expect(await mailsTo(ctx, demoEmail('engineer'))).toHaveLength(1);
+    expect(await mailsTo(ctx, 'nobody@falsetrace.test')).toHaveLength(0);
+    expect(await mailsTo(ctx, leaver)).toHaveLength(0);
+    expect(await ctx.db.selectFrom('password_reset_requests').selectAll().execute()).toEqual([]);
+    expect(await ctx.db.selectFrom('auth_tokens').select('email').where('kind', '=', 'password_reset').execute()).toEqual([{ email: demoEmail('engineer') }]);
   });
 });

@@ -3,7 +3,7 @@ import { startLocalSmtpFake } from '../../server/mail/local-smtp-fake';
 import { createMailQueue } from '../../server/mail/mail-queue';
 import { createMailer } from '../../server/mail/mailer';
 import { pendingMailCount } from '../../server/db/repositories/mail-queue';
-import { createTestContext, mailsTo, signedIn, type TestContext } from './helpers/test-context';
+import { createTestContext, mailsTo, signedIn, type TestContext, updatedAtOf } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
@@ -47,7 +47,7 @@ describe('review desk actions', () => {
     await mod.post(`/api/cases/${id}/review`, { action: 'send_back', note: 'Attach the capture, please.' }).expect(200);
     const back = (await eng.get(`/api/cases/${id}`)).body.case;
     expect(back).toMatchObject({ status: 'needs_changes', reviewNote: 'Attach the capture, please.', permissions: { edit: true } });
-    await eng.patch(`/api/cases/${id}`, { lessonSummary: 'Check the probe ratio before the loop' }).expect(200);
+    await eng.patch(`/api/cases/${id}`, { lessonSummary: 'Check the probe ratio before the loop', baseUpdatedAt: back.updatedAt }).expect(200);
     await eng.post(`/api/cases/${id}/submit`).expect(200);
     await mod.post(`/api/cases/${id}/review`, { action: 'verify' }).expect(200);
     expect((await eng.get(`/api/cases/${id}`)).body.case.status).toBe('verified');
@@ -80,7 +80,7 @@ describe('review desk actions', () => {
 
   it('should audit a moderator edit with before and after', async () => {
     const id = await submitted('Typo in the title');
-    await mod.patch(`/api/cases/${id}`, { title: 'Typo fixed in the title' }).expect(200);
+    await mod.patch(`/api/cases/${id}`, { title: 'Typo fixed in the title', baseUpdatedAt: await updatedAtOf(mod, id) }).expect(200);
     const [entry] = (await mod.get(`/api/cases/${id}/history`)).body.history;
     expect(entry).toMatchObject({ action: 'moderator_edit', before: { title: 'Typo in the title' }, after: { title: 'Typo fixed in the title' } });
   });

@@ -7,7 +7,7 @@ import { openCaseSearch } from '../../server/search/case-search';
 import { rankCases } from '../../server/search/rank';
 import { searchSourceRows, searchTags, synonymsByTag } from '../../server/db/repositories/search-source';
 import { SEARCH_FIXTURES } from './helpers/search-fixtures';
-import { client, createTestContext, invitedEngineer, signedIn, type TestContext } from './helpers/test-context';
+import { client, createTestContext, invitedEngineer, signedIn, type TestContext, updatedAtOf } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
@@ -115,7 +115,7 @@ describe('case search', () => {
     const id = (await eng.post('/api/cases', { title: 'Unicornfish probe trimmer', summary: 'Draft about a trimmer' }).expect(201)).body.case.id;
     expect(topIds(await search(eng, { q: 'unicornfish ' }))).toEqual([id]);
     expect(topIds(await search(other, { q: 'unicornfish ' }))).toEqual([]);
-    await eng.patch(`/api/cases/${id}`, { title: 'Narwhal probe trimmer', tags: ['narwhal-tag'] }).expect(200);
+    await eng.patch(`/api/cases/${id}`, { title: 'Narwhal probe trimmer', tags: ['narwhal-tag'], baseUpdatedAt: await updatedAtOf(eng, id) }).expect(200);
     expect((await search(eng, { q: 'unicornfish ' })).total).toBe(0);
     const renamed = await search(eng, { q: 'narwhal ' });
     expect(topIds(renamed)).toEqual([id]);

@@ -53,6 +53,7 @@ export const DEMO_CASES: DemoCase[] = [
 const silentMail: MailQueue = {
   send: async () => {},
   enqueue: async () => {},
+  wake: () => {},
   retryDue: async () => 0,
   start: () => {},
   stop: () => {},

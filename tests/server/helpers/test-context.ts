@@ -10,6 +10,7 @@ import { migrateToLatest } from '../../../server/db/migrate';
 import { listOutboxMessages } from '../../../server/db/repositories/outbox';
 import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
 import { createMailQueue, type BackgroundMailQueue } from '../../../server/mail/mail-queue';
+import { resolvePasswordResetRequests } from '../../../server/services/auth';
 import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { openCaseSearch, type CaseSearch } from '../../../server/search/case-search';
 import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
@@ -56,7 +57,8 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
     production: false,
     trustProxy: options.trustProxy,
   };
-  const mail = createMailQueue(db, mailer);
+  // the queue's sweep also turns password reset requests into mails
+  const mail = createMailQueue(db, mailer, { prepare: (queue) => resolvePasswordResetRequests({ db, config, mail: queue }) });
   const search = await openCaseSearch(db, { dataDir: config.dataDir });
   const app = createApp({ db, mailer, mail, config, search });
   return {
@@ -108,6 +110,11 @@ export async function client(ctx: TestContext) {
       agent.post(url).set('x-csrf-token', state.token).attach('file', bytes, { filename, contentType }),
     login: (email: string, password = DEMO_PASSWORD) => adopt(agent.post('/api/auth/login').set('x-csrf-token', state.token).send({ email, password })),
   };
+}
+
+/** The version a PATCH says it edits, read the way the editor does: the case as this client loads it. */
+export async function updatedAtOf(c: Awaited<ReturnType<typeof client>>, caseId: number): Promise<string> {
+  return (await c.get(`/api/cases/${caseId}`).expect(200)).body.case.updatedAt;
 }
 
 export async function signedIn(ctx: TestContext, role: Role) {

@@ -3,8 +3,8 @@ import type { Case, CasePatchInput } from '../../../../shared/schemas/case';
 import { api } from '../../../lib/api-client';
 import { caseKeys } from './case-keys';
 
-/** PATCH with `baseUpdatedAt`: a 409 means someone else saved since that version. */
-export const updateCase = ({ id, ...patch }: CasePatchInput & { id: number }) =>
+/** PATCH with `baseUpdatedAt` (required): a 409 means someone else saved since that version. */
+export const updateCase = ({ id, ...patch }: CasePatchInput & { id: number; baseUpdatedAt: string }) =>
   api<{ case: Case }>(`/api/cases/${id}`, { method: 'PATCH', body: patch });
 
 export function useUpdateCase() {

@@ -63,7 +63,8 @@ export function useCaseAutosave({ form, userId, initialCase, onCreated }: Autosa
       const input = caseFormSchema.parse(values);
       if (caseId.current === null) return (await createCase(input)).case;
       try {
-        return (await updateCase({ id: caseId.current, ...input, baseUpdatedAt: base.current ?? undefined })).case;
+        // the server refuses a change that does not name the version it edits
+        return (await updateCase({ id: caseId.current, ...input, baseUpdatedAt: base.current ?? '' })).case;
       } catch (err) {
         if (retried || !(err instanceof ApiError) || err.status !== 409) throw err;
         const fresh = (await getCase(caseId.current)).case;

@@ -15,6 +15,21 @@ const tenXOnFast = {
   'scope.bandwidthHz': '200 MHz',
 } satisfies Partial<DiagnoseValues>;
 
+/** A 3.3 V, 1 ns clock probed through a 15 cm clip lead (the ground-lead and combined presets). */
+const clipLeadOnFast = {
+  ...tenXOnFast,
+  'probe.tipCapacitanceF': '12 pF',
+  'probe.groundKind': 'clip-lead',
+  'probe.groundLeadM': '15 cm',
+  'probe.bandwidthHz': '500 MHz',
+  'scope.bandwidthHz': '500 MHz',
+  'circuit.sourceResistanceOhm': '33 Ω',
+  'signal.expectedAmplitudeV': '3.3 V',
+  'signal.frequencyHz': '10 MHz',
+  'signal.riseTimeS': '1 ns',
+  'signal.kind': 'square',
+} satisfies Partial<DiagnoseValues>;
+
 /** Example setups that fill the form: each shows one way a measurement lies. */
 export const PRESETS: DiagnosePreset[] = [
   {
@@ -45,17 +60,7 @@ export const PRESETS: DiagnosePreset[] = [
     id: 'long-ground-clip',
     label: 'Long ground clip on a fast edge',
     values: {
-      ...tenXOnFast,
-      'probe.tipCapacitanceF': '12 pF',
-      'probe.groundKind': 'clip-lead',
-      'probe.groundLeadM': '15 cm',
-      'probe.bandwidthHz': '500 MHz',
-      'scope.bandwidthHz': '500 MHz',
-      'circuit.sourceResistanceOhm': '33 Ω',
-      'signal.expectedAmplitudeV': '3.3 V',
-      'signal.frequencyHz': '10 MHz',
-      'signal.riseTimeS': '1 ns',
-      'signal.kind': 'square',
+      ...clipLeadOnFast,
       'observed.amplitudeV': '3.3 V',
       'observed.overshootPct': '60 %',
       'observed.ringingFrequencyHz': '105 MHz',
@@ -110,18 +115,8 @@ export const PRESETS: DiagnosePreset[] = [
     id: 'ten-x-at-one-x-long-lead',
     label: '10x read at 1x on a 15 cm lead',
     values: {
-      ...tenXOnFast,
+      ...clipLeadOnFast,
       'scope.attenuationSetting': '1x',
-      'probe.tipCapacitanceF': '12 pF',
-      'probe.groundKind': 'clip-lead',
-      'probe.groundLeadM': '15 cm',
-      'probe.bandwidthHz': '500 MHz',
-      'scope.bandwidthHz': '500 MHz',
-      'circuit.sourceResistanceOhm': '33 Ω',
-      'signal.expectedAmplitudeV': '3.3 V',
-      'signal.frequencyHz': '10 MHz',
-      'signal.riseTimeS': '1 ns',
-      'signal.kind': 'square',
       'observed.amplitudeV': '330 mV',
       'observed.overshootPct': '60 %',
       'observed.ringingFrequencyHz': '105 MHz',

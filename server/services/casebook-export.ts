@@ -16,6 +16,7 @@ import {
   type CasebookExportQuery,
 } from '../../shared/schemas/casebook-archive';
 import { caseMarkdown } from '../casebook/case-markdown';
+import { caseOriginKey } from '../casebook/origin-key';
 import { zipFiles } from '../casebook/zip';
 import {
   attachmentsOfCases,
@@ -170,9 +171,15 @@ export async function exportCasebook(deps: AppDeps, actor: Actor, filters: Caseb
   for (const h of history) if (h.actorId) userIds.add(h.actorId);
   const users: ArchivedUser[] = await usersWithIds(db, [...userIds].sort((a, b) => a - b));
   const names = new Map(users.map((u) => [u.id, u.name]));
+  // the case's origin travels with it, so importing it anywhere twice is recognised
+  const emails = new Map(users.map((u) => [u.id, u.email]));
+  const rowById = new Map(rows.map((r) => [r.id, r]));
+  for (const c of cases) {
+    const row = rowById.get(c.id)!;
+    c.originKey = row.origin_key ?? caseOriginKey(emails.get(c.authorId)!, row.created_at);
+  }
   const userName = (id: number | null) => (id === null ? 'former member' : (names.get(id) ?? 'former member'));
 
-  const rowById = new Map(rows.map((r) => [r.id, r]));
   for (const c of cases) {
     const row = rowById.get(c.id)!;
     files.set(

@@ -1,8 +1,8 @@
-import { writeFile } from 'node:fs/promises';
+import { copyFile, readFile, writeFile } from 'node:fs/promises';
 import type { Actor } from '../../shared/auth/roles';
 import type { CasebookImportReport, ImportKind, ImportNote } from '../../shared/schemas/casebook-archive';
 import { readArchive, storedJson, ArchiveRefused, type ArchiveRecords } from '../casebook/import-plan';
-import { unzipFiles } from '../casebook/zip';
+import { unpackArchive } from '../casebook/unpack-archive';
 import { caseOriginKey } from '../casebook/origin-key';
 import {
   appendPinnedLesson,
@@ -160,8 +160,10 @@ async function storeFiles(deps: AppDeps, attachments: Records['attachments'], wr
   for (const a of attachments) {
     if (a.kind === 'screenshot') {
       // decoded and re-encoded exactly like an upload: header check, worker, no metadata kept
-      const format = sniffImage(Buffer.from(a.bytes.subarray(0, 64)));
-      const img = format ? await reencodeImage(Buffer.from(a.bytes), format) : null;
+      // one screenshot in memory at a time
+      const bytes = await readFile(a.path);
+      const format = sniffImage(bytes.subarray(0, 64));
+      const img = format ? await reencodeImage(bytes, format) : null;
       if (img === null) throw new AppError('unsupported_type', `Attachment ${a.id} (“${a.originalName}”) does not decode as an image; nothing was imported`);
       if (img === 'too_many_pixels') throw new AppError('too_large', `Attachment ${a.id} (“${a.originalName}”) has over ${MAX_IMAGE_PIXELS / 1e6} megapixels; nothing was imported`);
       const file = storage.newName(img.extension);
@@ -174,7 +176,7 @@ async function storeFiles(deps: AppDeps, attachments: Records['attachments'], wr
       continue;
     }
     const file = storage.newName('csv');
-    await writeFile(storage.fileFor(file), a.bytes);
+    await copyFile(a.path, storage.fileFor(file));
     written.push(file);
     stored.set(a.id, { file, thumbnail: null, sizeBytes: a.sizeBytes, width: a.width, height: a.height, contentType: a.contentType });
   }
@@ -279,18 +281,34 @@ async function insertRecords(trx: Db, d: Awaited<ReturnType<typeof decide>>, sto
  * nothing. The transaction holds the database's only connection, so no other write interleaves
  * between deciding what is already here and writing.
  */
-export async function importCasebook(deps: AppDeps, actor: Actor, zip: Uint8Array, options: { dryRun?: boolean } = {}): Promise<CasebookImportReport> {
-  const unzipped = unzipFiles(zip);
-  if (!unzipped.ok) throw new AppError('unsupported_type', `This is not a casebook archive Falsetrace can read: ${unzipped.message}. Nothing was imported.`);
-  let records: Records;
+export async function importCasebook(
+  deps: AppDeps,
+  actor: Actor,
+  archive: string,
+  options: { dryRun?: boolean; limits?: { maxEntries: number; maxBytes: number } } = {},
+): Promise<CasebookImportReport> {
+  const { unpacked, discard } = await unpackArchive(archive, storagePaths(deps.config).incomingDir, options.limits);
   try {
-    records = readArchive(unzipped.files);
-  } catch (err) {
-    if (err instanceof ArchiveRefused) throw new AppError('invalid_input', `The archive is damaged or incomplete: ${err.message}. Nothing was imported.`);
-    throw err;
+    if (!unpacked.ok) {
+      if (unpacked.tooLarge) throw new AppError('too_large', `This archive is refused: ${unpacked.message}. Nothing was unpacked or imported.`);
+      throw new AppError('unsupported_type', `This is not a casebook archive Falsetrace can read: ${unpacked.message}. Nothing was imported.`);
+    }
+    let records: Records;
+    try {
+      records = await readArchive(unpacked);
+    } catch (err) {
+      if (err instanceof ArchiveRefused) throw new AppError('invalid_input', `The archive is damaged or incomplete: ${err.message}. Nothing was imported.`);
+      throw err;
+    }
+    return await importRecords(deps, actor, records, Boolean(options.dryRun));
+  } finally {
+    await discard();
   }
+}
+
+async function importRecords(deps: AppDeps, actor: Actor, records: Records, dryRun: boolean): Promise<CasebookImportReport> {
   const first = await decide(deps.db, records);
-  if (options.dryRun || first.cases.length === 0) return reportOf(first, Boolean(options.dryRun));
+  if (dryRun || first.cases.length === 0) return reportOf(first, dryRun);
 
   const storage = storagePaths(deps.config);
   const written: string[] = [];

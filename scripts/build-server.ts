@@ -19,6 +19,7 @@ await build({
   outdir: path.join(out, 'migrations'),
   outExtension: { '.js': '.js' },
 });
-// the image worker is plain JavaScript already; the pool finds it beside the bundle
+// the image and zip workers are plain JavaScript already; their pools find them beside the bundle
 copyFileSync(path.join(root, 'server/images/reencode-worker.mjs'), path.join(out, 'reencode-worker.mjs'));
+copyFileSync(path.join(root, 'server/casebook/zip-worker.mjs'), path.join(out, 'zip-worker.mjs'));
 console.log(`server built into ${path.relative(root, out)}/ (start it with: node dist-server/index.mjs)`);

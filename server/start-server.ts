@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
 import { claimDataDir } from './backup/server-lock';
 import { sweepUploads } from './backup/upload-sweep';
+import { zipWorkers } from './casebook/zip-pool';
 import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
 import { openDatabase } from './db/database';
@@ -91,6 +92,7 @@ export async function startServer(config: Config) {
     await Promise.race([mail.idle(), new Promise((r) => setTimeout(r, 2000).unref())]);
     search.close();
     await imageWorkers.close();
+    await zipWorkers.close();
     mailer.close();
     await fake?.close();
     await db.destroy();

@@ -1,4 +1,5 @@
-import { createHash } from 'node:crypto';
+import { open, readFile } from 'node:fs/promises';
+import path from 'node:path';
 import type { z } from 'zod';
 import {
   ARCHIVE_FILES,
@@ -25,21 +26,38 @@ import { sniffImage } from '../services/image-intake';
 /** A whole archive refused before any record is looked at: damaged, foreign, or incomplete. */
 export class ArchiveRefused extends Error {}
 
-const sha256 = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
+/** An archive unpacked to a folder: each file's size and SHA-256 as measured while unpacking. */
+export interface UnpackedArchive {
+  dir: string;
+  files: Map<string, { bytes: number; sha256: string }>;
+}
 
-function readJson(files: Map<string, Uint8Array>, name: string): unknown {
-  const bytes = files.get(name);
-  if (!bytes) throw new ArchiveRefused(`${name} is missing from the archive`);
+const fileOf = (u: UnpackedArchive, name: string) => path.join(u.dir, name);
+
+async function readJson(u: UnpackedArchive, name: string): Promise<unknown> {
+  if (!u.files.has(name)) throw new ArchiveRefused(`${name} is missing from the archive`);
   try {
-    return JSON.parse(Buffer.from(bytes).toString('utf8'));
+    return JSON.parse(await readFile(fileOf(u, name), 'utf8'));
   } catch {
     throw new ArchiveRefused(`${name} is not valid JSON`);
   }
 }
 
+/** The first bytes of an unpacked file, enough to tell an image format. */
+async function headOf(file: string): Promise<Buffer> {
+  const fh = await open(file, 'r');
+  try {
+    const head = Buffer.alloc(64);
+    const { bytesRead } = await fh.read(head, 0, 64, 0);
+    return head.subarray(0, bytesRead);
+  } finally {
+    await fh.close();
+  }
+}
+
 /** The manifest, after checking that every file it lists is present and unchanged. */
-export function verifiedManifest(files: Map<string, Uint8Array>): ArchiveManifest {
-  const parsed = archiveManifestSchema.safeParse(readJson(files, ARCHIVE_FILES.manifest));
+export async function verifiedManifest(u: UnpackedArchive): Promise<ArchiveManifest> {
+  const parsed = archiveManifestSchema.safeParse(await readJson(u, ARCHIVE_FILES.manifest));
   if (!parsed.success) {
     const i = parsed.error.issues[0];
     throw new ArchiveRefused(`${ARCHIVE_FILES.manifest} ${i.path.length ? `${i.path.join('.')} ` : ''}${i.message}`);
@@ -48,9 +66,9 @@ export function verifiedManifest(files: Map<string, Uint8Array>): ArchiveManifes
     if (name !== ARCHIVE_FILES.manifest && !(name in parsed.data.files)) throw new ArchiveRefused(`${ARCHIVE_FILES.manifest} does not list ${name}`);
   }
   for (const [name, hash] of Object.entries(parsed.data.files)) {
-    const bytes = files.get(name);
-    if (!bytes) throw new ArchiveRefused(`${name} is missing from the archive`);
-    if (sha256(bytes) !== hash) throw new ArchiveRefused(`${name} does not match its checksum`);
+    const file = u.files.get(name);
+    if (!file) throw new ArchiveRefused(`${name} is missing from the archive`);
+    if (file.sha256 !== hash) throw new ArchiveRefused(`${name} does not match its checksum`);
   }
   return parsed.data;
 }
@@ -73,8 +91,8 @@ interface Checked<T> {
 }
 
 /** Validates each record of one file; refusals are reported, never thrown. */
-function checkAll<S extends z.ZodType>(files: Map<string, Uint8Array>, name: string, kind: ImportKind, schema: S, refused: ImportNote[]): Checked<z.infer<S>>[] {
-  const list = readJson(files, name);
+async function checkAll<S extends z.ZodType>(u: UnpackedArchive, name: string, kind: ImportKind, schema: S, refused: ImportNote[]): Promise<Checked<z.infer<S>>[]> {
+  const list = await readJson(u, name);
   if (!Array.isArray(list)) throw new ArchiveRefused(`${name} must hold a list of records`);
   const seen = new Set<number>();
   const out: Checked<z.infer<S>>[] = [];
@@ -103,41 +121,40 @@ export interface ArchiveRecords {
   cases: Checked<ArchivedCase>[];
   revisions: Checked<ArchivedRevision>[];
   comments: ArchivedComment[];
-  attachments: (ArchivedAttachment & { bytes: Uint8Array; thumbnailBytes: Uint8Array | null })[];
+  /** `path`: the attachment's file, unpacked and checked. */
+  attachments: (ArchivedAttachment & { path: string })[];
   history: ArchivedHistory[];
   pins: { caseId: number; position: number }[];
   refused: ImportNote[];
 }
 
-function attachmentProblem(a: ArchivedAttachment, files: Map<string, Uint8Array>): string | null {
-  const bytes = files.get(a.file);
-  if (!bytes) return `its file ${a.file} is missing from the archive`;
-  if (bytes.length !== a.sizeBytes) return `its file is ${bytes.length} bytes, the record says ${a.sizeBytes}`;
-  if (sha256(bytes) !== a.sha256) return `its file ${a.file} does not match its checksum`;
-  if (a.thumbnail && !files.has(a.thumbnail)) return `its thumbnail ${a.thumbnail} is missing from the archive`;
-  const format = sniffImage(Buffer.from(bytes.subarray(0, 64)));
+async function attachmentProblem(a: ArchivedAttachment, u: UnpackedArchive): Promise<string | null> {
+  const file = u.files.get(a.file);
+  if (!file) return `its file ${a.file} is missing from the archive`;
+  if (file.bytes !== a.sizeBytes) return `its file is ${file.bytes} bytes, the record says ${a.sizeBytes}`;
+  if (file.sha256 !== a.sha256) return `its file ${a.file} does not match its checksum`;
+  if (a.thumbnail && !u.files.has(a.thumbnail)) return `its thumbnail ${a.thumbnail} is missing from the archive`;
+  const format = sniffImage(await headOf(fileOf(u, a.file)));
   if (a.kind === 'screenshot' && `image/${format}` !== a.contentType) return `its file is not the ${a.contentType} image the record says`;
   if (a.kind === 'capture' && format) return 'its file is an image, not a CSV capture';
   return null;
 }
 
 /** Every record of a verified archive, validated with the shared schemas. */
-export function readArchive(files: Map<string, Uint8Array>): ArchiveRecords {
-  const manifest = verifiedManifest(files);
+export async function readArchive(u: UnpackedArchive): Promise<ArchiveRecords> {
+  const manifest = await verifiedManifest(u);
   const refused: ImportNote[] = [];
-  const users = checkAll(files, ARCHIVE_FILES.users, 'user', archivedUserSchema, refused).map((c) => c.record);
-  const cases = checkAll(files, ARCHIVE_FILES.cases, 'case', archivedCaseSchema, refused);
-  const revisions = checkAll(files, ARCHIVE_FILES.revisions, 'revision', archivedRevisionSchema, refused);
-  const comments = checkAll(files, ARCHIVE_FILES.comments, 'comment', archivedCommentSchema, refused).map((c) => c.record);
-  const attachments = checkAll(files, ARCHIVE_FILES.attachments, 'attachment', archivedAttachmentSchema, refused).flatMap(({ record: a }) => {
-    const problem = attachmentProblem(a, files);
-    if (problem) {
-      refused.push({ kind: 'attachment', id: a.id, reason: problem });
-      return [];
-    }
-    return [{ ...a, bytes: files.get(a.file)!, thumbnailBytes: a.thumbnail ? files.get(a.thumbnail)! : null }];
-  });
-  const history = checkAll(files, ARCHIVE_FILES.history, 'history', archivedHistorySchema, refused).map((c) => c.record);
-  const pins = checkAll(files, ARCHIVE_FILES.pinned, 'pin', archivedPinSchema, refused).map((c) => c.record);
+  const users = (await checkAll(u, ARCHIVE_FILES.users, 'user', archivedUserSchema, refused)).map((c) => c.record);
+  const cases = await checkAll(u, ARCHIVE_FILES.cases, 'case', archivedCaseSchema, refused);
+  const revisions = await checkAll(u, ARCHIVE_FILES.revisions, 'revision', archivedRevisionSchema, refused);
+  const comments = (await checkAll(u, ARCHIVE_FILES.comments, 'comment', archivedCommentSchema, refused)).map((c) => c.record);
+  const attachments: ArchiveRecords['attachments'] = [];
+  for (const { record: a } of await checkAll(u, ARCHIVE_FILES.attachments, 'attachment', archivedAttachmentSchema, refused)) {
+    const problem = await attachmentProblem(a, u);
+    if (problem) refused.push({ kind: 'attachment', id: a.id, reason: problem });
+    else attachments.push({ ...a, path: fileOf(u, a.file) });
+  }
+  const history = (await checkAll(u, ARCHIVE_FILES.history, 'history', archivedHistorySchema, refused)).map((c) => c.record);
+  const pins = (await checkAll(u, ARCHIVE_FILES.pinned, 'pin', archivedPinSchema, refused)).map((c) => c.record);
   return { manifest, users, cases, revisions, comments, attachments, history, pins, refused };
 }

@@ -61,6 +61,8 @@ export interface CasesTable {
   lesson_detail: string | null;
   /** Added by migration 0006; null on cases saved before it. */
   safety_note: Generated<string | null>;
+  /** Added by migration 0007: the key an imported case came with (see casebook/origin-key.ts); null on cases written here. */
+  origin_key: Generated<string | null>;
   status: Generated<CaseStatus>;
   /** JSON of DiagnosisResult */
   diagnosis: string | null;

@@ -1,4 +1,7 @@
-import { readFile, rm } from 'node:fs/promises';
+import { once } from 'node:events';
+import { createReadStream } from 'node:fs';
+import { rm, stat } from 'node:fs/promises';
+import { pipeline } from 'node:stream/promises';
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { casebookExportQuerySchema } from '../../shared/schemas/casebook-archive';
@@ -35,18 +38,30 @@ export function casebookRoutes(deps: AppDeps) {
   r.get('/export', async (req, res) => {
     const filters = parseInput(casebookExportQuerySchema, req.query, 'The export filters');
     const out = await exportCasebook(deps, req.user!, filters);
-    res.setHeader('Content-Type', 'application/zip');
-    res.setHeader('Content-Disposition', `attachment; filename="${out.filename}"`);
-    res.setHeader('X-Casebook-Cases', String(out.cases));
-    res.setHeader('Cache-Control', 'no-store');
-    res.send(out.zip);
+    try {
+      res.setHeader('Content-Type', 'application/zip');
+      res.setHeader('Content-Disposition', `attachment; filename="${out.filename}"`);
+      res.setHeader('Content-Length', String((await stat(out.file)).size));
+      res.setHeader('X-Casebook-Cases', String(out.cases));
+      res.setHeader('Cache-Control', 'no-store');
+      // from disk a chunk at a time, at the pace the client reads; the name goes as soon as it is open
+      const zip = createReadStream(out.file);
+      await once(zip, 'open');
+      await rm(out.file, { force: true });
+      await pipeline(zip, res).catch((err: unknown) => {
+        // a client that goes away mid-download is no error of ours
+        if (!res.headersSent) throw err;
+      });
+    } finally {
+      await rm(out.file, { force: true });
+    }
   });
 
   r.post('/import', archiveUpload(deps), async (req, res) => {
     const file = req.file!;
     try {
       const dryRun = /^(1|true|yes)$/i.test(String(req.query.dryRun ?? ''));
-      const report = await importCasebook(deps, req.user!, await readFile(file.path), { dryRun });
+      const report = await importCasebook(deps, req.user!, file.path, { dryRun });
       res.json({ report });
     } finally {
       await rm(file.path, { force: true });

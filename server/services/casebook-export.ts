@@ -1,5 +1,5 @@
-import { createHash } from 'node:crypto';
-import { readFile } from 'node:fs/promises';
+import { createHash, randomUUID } from 'node:crypto';
+import path from 'node:path';
 import type { Actor } from '../../shared/auth/roles';
 import type { CaseSetup, CaseStatus, StatedCause } from '../../shared/schemas/case';
 import {
@@ -16,7 +16,8 @@ import {
   type CasebookExportQuery,
 } from '../../shared/schemas/casebook-archive';
 import { caseMarkdown } from '../casebook/case-markdown';
-import { zipFiles } from '../casebook/zip';
+import { caseOriginKey } from '../casebook/origin-key';
+import { zipWorkers, type ZipEntrySource } from '../casebook/zip-pool';
 import {
   attachmentsOfCases,
   authorTagsOfCases,
@@ -47,6 +48,17 @@ export function caseFolder(id: number, title: string): string {
   return `cases/${String(id).padStart(4, '0')}-${slug || 'case'}`;
 }
 
+/** Records grouped by their case (thousands of cases would otherwise rescan every list per case). */
+function byCase<T extends { caseId: number }>(list: T[]): Map<number, T[]> {
+  const g = new Map<number, T[]>();
+  for (const x of list) {
+    const l = g.get(x.caseId);
+    if (l) l.push(x);
+    else g.set(x.caseId, [x]);
+  }
+  return g;
+}
+
 const safeName = (name: string) => name.replace(/[^\w.-]+/g, '_').slice(0, 120) || 'file';
 
 /** Ids of every case matching the filters that the actor may see, oldest first. */
@@ -60,7 +72,8 @@ async function matchingCaseIds(deps: AppDeps, actor: Actor, filters: CasebookExp
 }
 
 export interface CasebookExport {
-  zip: Buffer;
+  /** The zip, written to a temporary file the caller streams out and then removes. */
+  file: string;
   filename: string;
   cases: number;
 }
@@ -130,18 +143,31 @@ export async function exportCasebook(deps: AppDeps, actor: Actor, filters: Caseb
   }));
   const pins = (await pinsOfCases(db, ids)).map((p) => ({ caseId: p.case_id, position: p.position }));
 
-  const files = new Map<string, Uint8Array>();
+  // the zip's entries in order, and each one's SHA-256 for the manifest; attachments stay on disk
+  const entries: ZipEntrySource[] = [];
+  const hashes = new Map<string, string>();
+  const addBytes = (name: string, bytes: Uint8Array) => {
+    entries.push({ name, bytes });
+    hashes.set(name, sha256(bytes));
+  };
   const folders = new Map(rows.map((r) => [r.id, caseFolder(r.id, r.title)]));
   const attachments: (ArchivedAttachment & { localPath: string })[] = [];
-  for (const a of await attachmentsOfCases(db, ids)) {
+  const attachmentRows = await attachmentsOfCases(db, ids);
+  const onDisk = attachmentRows.flatMap((a) => [a.storage_name, ...(a.thumbnail_name ? [a.thumbnail_name] : [])]).map((n) => storage.fileFor(n));
+  const digests = new Map((await zipWorkers.hash(onDisk)).map((h, i) => [onDisk[i], h]));
+  const addFile = (name: string, storageName: string) => {
+    const file = storage.fileFor(storageName);
+    entries.push({ name, file });
+    hashes.set(name, digests.get(file)!);
+  };
+  for (const a of attachmentRows) {
     const folder = folders.get(a.case_id)!;
-    const bytes = await readFile(storage.fileFor(a.storage_name));
     const file = `${folder}/attachments/${a.id}-${safeName(a.original_name)}`;
-    files.set(file, bytes);
+    addFile(file, a.storage_name);
     let thumbnail: string | null = null;
     if (a.thumbnail_name) {
       thumbnail = `${folder}/attachments/thumbnails/${a.id}-${safeName(a.original_name)}`;
-      files.set(thumbnail, await readFile(storage.fileFor(a.thumbnail_name)));
+      addFile(thumbnail, a.thumbnail_name);
     }
     attachments.push({
       id: a.id,
@@ -156,7 +182,7 @@ export async function exportCasebook(deps: AppDeps, actor: Actor, filters: Caseb
       analysis: parse(a.analysis) as Record<string, unknown> | null,
       createdAt: a.created_at,
       file,
-      sha256: sha256(bytes),
+      sha256: hashes.get(file)!,
       thumbnail,
       localPath: file.slice(folder.length + 1),
     });
@@ -170,12 +196,19 @@ export async function exportCasebook(deps: AppDeps, actor: Actor, filters: Caseb
   for (const h of history) if (h.actorId) userIds.add(h.actorId);
   const users: ArchivedUser[] = await usersWithIds(db, [...userIds].sort((a, b) => a - b));
   const names = new Map(users.map((u) => [u.id, u.name]));
-  const userName = (id: number | null) => (id === null ? 'former member' : (names.get(id) ?? 'former member'));
-
+  // the case's origin travels with it, so importing it anywhere twice is recognised
+  const emails = new Map(users.map((u) => [u.id, u.email]));
   const rowById = new Map(rows.map((r) => [r.id, r]));
   for (const c of cases) {
     const row = rowById.get(c.id)!;
-    files.set(
+    c.originKey = row.origin_key ?? caseOriginKey(emails.get(c.authorId)!, row.created_at);
+  }
+  const userName = (id: number | null) => (id === null ? 'former member' : (names.get(id) ?? 'former member'));
+
+  const [commentsOf, attachmentsOf, historyOf] = [byCase(comments), byCase(attachments), byCase(history)];
+  for (const c of cases) {
+    const row = rowById.get(c.id)!;
+    addBytes(
       `${folders.get(c.id)!}/case.md`,
       Buffer.from(
         caseMarkdown({
@@ -183,21 +216,21 @@ export async function exportCasebook(deps: AppDeps, actor: Actor, filters: Caseb
           engineCause: row.engine_cause,
           authorName: userName(c.authorId),
           userName,
-          comments: comments.filter((m) => m.caseId === c.id),
-          attachments: attachments.filter((a) => a.caseId === c.id),
-          history: history.filter((h) => h.caseId === c.id),
+          comments: commentsOf.get(c.id) ?? [],
+          attachments: attachmentsOf.get(c.id) ?? [],
+          history: historyOf.get(c.id) ?? [],
         }),
       ),
     );
   }
-  files.set(ARCHIVE_FILES.users, json(users));
-  files.set(ARCHIVE_FILES.cases, json(cases));
-  files.set(ARCHIVE_FILES.revisions, json(revisions));
-  files.set(ARCHIVE_FILES.comments, json(comments));
-  files.set(ARCHIVE_FILES.attachments, json(attachments.map(({ localPath: _l, ...a }) => a)));
-  files.set(ARCHIVE_FILES.history, json(history));
-  files.set(ARCHIVE_FILES.pinned, json(pins));
-  files.set(
+  addBytes(ARCHIVE_FILES.users, json(users));
+  addBytes(ARCHIVE_FILES.cases, json(cases));
+  addBytes(ARCHIVE_FILES.revisions, json(revisions));
+  addBytes(ARCHIVE_FILES.comments, json(comments));
+  addBytes(ARCHIVE_FILES.attachments, json(attachments.map(({ localPath: _l, ...a }) => a)));
+  addBytes(ARCHIVE_FILES.history, json(history));
+  addBytes(ARCHIVE_FILES.pinned, json(pins));
+  addBytes(
     'README.md',
     Buffer.from(
       `# Falsetrace casebook\n\nExported ${now.toISOString()} with ${cases.length} case${cases.length === 1 ? '' : 's'}.\n\n` +
@@ -210,8 +243,11 @@ export async function exportCasebook(deps: AppDeps, actor: Actor, filters: Caseb
     version: ARCHIVE_VERSION,
     exportedAt: now.toISOString(),
     filters: Object.fromEntries(Object.entries(filters).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)])),
-    files: Object.fromEntries([...files].map(([name, bytes]) => [name, sha256(bytes)])),
+    files: Object.fromEntries(hashes),
   };
-  files.set(ARCHIVE_FILES.manifest, json(manifest));
-  return { zip: zipFiles(files), filename: `falsetrace-casebook-${now.toISOString().slice(0, 10)}.zip`, cases: cases.length };
+  addBytes(ARCHIVE_FILES.manifest, json(manifest));
+  // packed off the request thread, streamed from disk entry by entry, never whole in memory
+  const file = path.join(storage.incomingDir, `export-${randomUUID()}.zip`);
+  await zipWorkers.pack(file, entries);
+  return { file, filename: `falsetrace-casebook-${now.toISOString().slice(0, 10)}.zip`, cases: cases.length };
 }

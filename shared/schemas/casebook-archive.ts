@@ -66,6 +66,9 @@ export const archivedCaseSchema = z.object({
   tags: z.array(tagSchema).max(12, 'At most 12 tags'),
   status: caseStatusSchema,
   reviewNote: z.string().max(5000).nullable(),
+  /** Where the case first came from (server/casebook/origin-key.ts); absent in older archives, then derived on import. */
+  originKey: sha256.optional(),
+  /** An archive record number (this archive's `id` of the original), renumbered on import. */
   duplicateOf: id.nullable(),
   retiredReason: z.string().max(5000).nullable(),
   createdAt: time,

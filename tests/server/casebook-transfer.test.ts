@@ -26,7 +26,10 @@ async function download(c: Client, query = ''): Promise<Buffer> {
 
 const upload = (c: Client, zip: Uint8Array, query = '') => c.upload(`/api/admin/casebook/import${query}`, Buffer.from(zip), 'casebook.zip', 'application/zip');
 
-/** What a casebook holds, with users by e-mail (ids differ between databases) and files by content. */
+/**
+ * What a casebook holds, with users by e-mail and records numbered by their order (an import gives
+ * new ids, in the archive's order), files by content.
+ */
 async function contents(ctx: TestContext) {
   const { db } = ctx;
   const storage = storagePaths(ctx.config);
@@ -37,13 +40,20 @@ async function contents(ctx: TestContext) {
   const comments = await db.selectFrom('comments').selectAll().orderBy('id').execute();
   const attachments = await db.selectFrom('attachments').selectAll().orderBy('id').execute();
   const tags = await db.selectFrom('case_tags').selectAll().orderBy('case_id').orderBy('tag').execute();
+  const nth = (rows: { id: number }[]) => {
+    const order = new Map(rows.map((r, i) => [r.id, i + 1]));
+    return (id: number | null) => (id === null ? null : order.get(id));
+  };
+  const [caseNo, revisionNo, commentNo, attachmentNo] = [nth(cases), nth(revisions), nth(comments), nth(attachments)];
   return {
-    cases: cases.map(({ author_id, ...c }) => ({ ...c, author: who(author_id) })),
-    tags,
-    revisions: revisions.map(({ author_id, ...r }) => ({ ...r, author: who(author_id) })),
-    comments: comments.map(({ author_id, hidden_by, ...m }) => ({ ...m, author: who(author_id), hiddenBy: who(hidden_by) })),
+    cases: cases.map(({ author_id, origin_key: _o, ...c }) => ({ ...c, id: caseNo(c.id), duplicate_of: caseNo(c.duplicate_of), author: who(author_id) })),
+    tags: tags.map((t) => ({ ...t, case_id: caseNo(t.case_id) })),
+    revisions: revisions.map(({ author_id, ...r }) => ({ ...r, id: revisionNo(r.id), case_id: caseNo(r.case_id), author: who(author_id) })),
+    comments: comments.map(({ author_id, hidden_by, ...m }) => ({ ...m, id: commentNo(m.id), case_id: caseNo(m.case_id), author: who(author_id), hiddenBy: who(hidden_by) })),
     attachments: attachments.map(({ storage_name, thumbnail_name, uploaded_by, ...a }) => ({
       ...a,
+      id: attachmentNo(a.id),
+      case_id: caseNo(a.case_id),
       uploadedBy: who(uploaded_by),
       bytes: readFileSync(storage.fileFor(storage_name)).toString('base64'),
       thumbnail: thumbnail_name ? readFileSync(storage.fileFor(thumbnail_name)).toString('base64') : null,

@@ -4,7 +4,7 @@ import type { AttachmentsTable, AuditLogTable, CaseRevisionsTable, CasesTable, C
 // SQLite caps bound parameters per statement; big casebooks are read in slices
 const SLICE = 500;
 
-async function inSlices<T>(ids: readonly number[], read: (slice: number[]) => Promise<T[]>): Promise<T[]> {
+async function inSlices<T, K = number>(ids: readonly K[], read: (slice: K[]) => Promise<T[]>): Promise<T[]> {
   const out: T[] = [];
   for (let i = 0; i < ids.length; i += SLICE) out.push(...(await read(ids.slice(i, i + SLICE))));
   return out;
@@ -34,13 +34,25 @@ export const pinsOfCases = (db: Db, ids: readonly number[]) =>
 export const usersWithIds = (db: Db, ids: readonly number[]) =>
   inSlices(ids, (s) => db.selectFrom('users').select(['id', 'email', 'name', 'role']).where('id', 'in', s).orderBy('id').execute());
 
-type IdTable = 'cases' | 'case_revisions' | 'comments' | 'attachments';
-
-/** Which of these ids already exist in a table. */
-export async function existingIds(db: Db, table: IdTable, ids: readonly number[]): Promise<Set<number>> {
-  const rows = await inSlices(ids, (s) => db.selectFrom(table).select('id').where('id', 'in', s).execute());
-  return new Set(rows.map((r) => r.id));
+/** Cases that carry one of these origin keys (imported ones), by key. */
+export async function casesWithOriginKeys(db: Db, keys: readonly string[]): Promise<Map<string, number>> {
+  const rows = await inSlices(keys, (s) =>
+    db.selectFrom('cases').select(['id', 'origin_key']).where('origin_key', 'in', s).execute(),
+  );
+  return new Map(rows.map((r) => [r.origin_key!, r.id]));
 }
+
+/** Cases written here (no stored origin key) created at one of these moments, with their author's e-mail. */
+export const localCasesCreatedAt = (db: Db, times: readonly string[]) =>
+  inSlices(times, (s) =>
+    db
+      .selectFrom('cases')
+      .innerJoin('users', 'users.id', 'cases.author_id')
+      .select(['cases.id', 'cases.created_at', 'users.email'])
+      .where('cases.origin_key', 'is', null)
+      .where('cases.created_at', 'in', s)
+      .execute(),
+  );
 
 export async function usersByEmail(db: Db, emails: readonly string[]): Promise<Map<string, number>> {
   const rows: { id: number; email: string }[] = [];
@@ -54,7 +66,10 @@ export async function insertImportedUser(db: Db, user: Insertable<UsersTable>): 
   return (await db.insertInto('users').values(user).returning('id').executeTakeFirstOrThrow()).id;
 }
 
-export const insertImportedCase = (db: Db, row: Insertable<CasesTable> & { id: number }) => db.insertInto('cases').values(row).execute();
+/** Imported rows take fresh ids here; the caller maps the archive's numbers to them. */
+export async function insertImportedCase(db: Db, row: Insertable<CasesTable>): Promise<number> {
+  return (await db.insertInto('cases').values(row).returning('id').executeTakeFirstOrThrow()).id;
+}
 
 export async function insertImportedTags(db: Db, caseId: number, tags: readonly string[], source: 'author' | 'engine') {
   if (tags.length === 0) return;
@@ -65,14 +80,14 @@ export async function insertImportedTags(db: Db, caseId: number, tags: readonly 
     .execute();
 }
 
-export const linkImportedDuplicate = (db: Db, caseId: number, duplicateOf: number) =>
-  db.updateTable('cases').set({ duplicate_of: duplicateOf }).where('id', '=', caseId).execute();
+export const linkImportedDuplicate = (db: Db, caseId: number, duplicateOf: number, retiredReason: string | null) =>
+  db.updateTable('cases').set({ duplicate_of: duplicateOf, retired_reason: retiredReason }).where('id', '=', caseId).execute();
 
-export const insertImportedRevision = (db: Db, row: Insertable<CaseRevisionsTable> & { id: number }) => db.insertInto('case_revisions').values(row).execute();
+export const insertImportedRevision = (db: Db, row: Insertable<CaseRevisionsTable>) => db.insertInto('case_revisions').values(row).execute();
 
-export const insertImportedComment = (db: Db, row: Insertable<CommentsTable> & { id: number }) => db.insertInto('comments').values(row).execute();
+export const insertImportedComment = (db: Db, row: Insertable<CommentsTable>) => db.insertInto('comments').values(row).execute();
 
-export const insertImportedAttachment = (db: Db, row: Insertable<AttachmentsTable> & { id: number }) => db.insertInto('attachments').values(row).execute();
+export const insertImportedAttachment = (db: Db, row: Insertable<AttachmentsTable>) => db.insertInto('attachments').values(row).execute();
 
 /** History keeps its order but takes fresh ids: audit ids are shared by every case. */
 export const insertImportedHistory = (db: Db, row: Insertable<AuditLogTable>) => db.insertInto('audit_log').values(row).execute();

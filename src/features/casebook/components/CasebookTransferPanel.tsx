@@ -98,7 +98,7 @@ function ImportForm() {
   return (
     <div className="flex flex-col gap-3">
       <p className="text-sm text-muted">
-        Brings in an archive exported from Falsetrace. Cases already here (same number) are skipped; records that fail the checks are refused and listed. It all goes in at once, or not at all.
+        Brings in an archive exported from Falsetrace. Cases already here (imported before, or the same case by author and creation time) are skipped, and the rest get new numbers here; records that fail the checks are refused and listed. It all goes in at once, or not at all.
       </p>
       <label className="flex flex-col gap-1 text-sm font-semibold">
         Casebook archive (.zip)

@@ -102,6 +102,7 @@ export function balancedDividerOf(setup: ResolvedSetup): DividerParams {
 /** Smaller errors are within trace noise (our threshold, % of the level). */
 const MIN_ERROR = 0.02;
 const HIDDEN_TRIMMER_PRIOR = 0.35; // our estimate: probes moved between scopes are often not re-adjusted
+const TYPICAL_TRIMMER_ERROR = 0.5; // our estimate: the prior halves for every ~35 % of mis-trim
 /**
  * The input capacitance a probe is taken to have been compensated on when only the scope it
  * is used with now is recorded: a general-purpose 1 MΩ input (common practice, 10–20 pF).
@@ -228,7 +229,8 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
   candidates.push({
     cause: 'compensation',
     basis: 'fitted',
-    hiddenPrior: HIDDEN_TRIMMER_PRIOR,
+    // a probe moved between scopes is off by a few percent; a large error needs a trimmer turned far
+    hiddenPrior: HIDDEN_TRIMMER_PRIOR * Math.exp(-Math.abs(k) / TYPICAL_TRIMMER_ERROR),
     deviation: Math.abs(Math.log(1 + k)),
     predicted: predictedFor(setup, fitted),
     explanation: `The trace fits a probe ${over ? 'over' : 'under'}-compensated by ${percent(Math.abs(k) * 100)}: ${seenAs}. The fast divider C1/(C1+C2) passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(fitted.tipCapacitanceF, 'F')} instead of the ${eng(divider.tipCapacitanceF, 'F')} that balances R2·C2.`,

@@ -93,3 +93,21 @@ describe('loading in diagnose', () => {
     expect(top.estimates?.impliedSourceResistanceOhm).toBeCloseTo(2.5e6, 0);
   });
 });
+
+describe('loading from a recorded source impedance in the ranking', () => {
+  it('should rank loading above a guessed trimmer error when the recorded setup predicts the drop', () => {
+    // source: voltage divider |Z_p / (Z_s + Z_p)|, Z_p = 10 MΩ ∥ 12 pF, Z_s = 10 kΩ, at 1 MHz (mathjs)
+    const w = 2 * Math.PI * 1e6;
+    const zp = divide(1, add(1 / 10e6, complex(0, w * 12e-12))) as Complex;
+    const ratio = abs(divide(zp, add(zp, 10e3)) as Complex) as unknown as number;
+    const result = diagnose({
+      probe: { attenuation: 10, tipCapacitanceF: 12e-12 },
+      scope: { attenuationSetting: 10 },
+      circuit: { sourceResistanceOhm: 10e3 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'sine' },
+      observed: { amplitudeV: ratio },
+    });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].causes).toEqual(['loading']);
+  });
+});

@@ -14,8 +14,8 @@ describe('symptom queries', () => {
     ['reads 1.2 V instead of 12 V', 'read as: amplitude ×0.1 → attenuation mismatch'],
     ['expected 3.3 V got 0.33 V', 'read as: amplitude ×0.1 → attenuation mismatch'],
     ['ringing at 120 MHz', 'read as: ringing at 120 MHz → ground-lead ringing'],
-    ['15% overshoot on the square wave corners', 'read as: overshoot +15 % → compensation'],
     // an assumed 15 cm clip lead can also spike the corners when no ringing is stated
+    ['15% overshoot on the square wave corners', 'read as: overshoot +15 % → compensation or ground-lead ringing'],
     ['spikes on corners', 'read as: spikes on corners → compensation or ground-lead ringing'],
     ['rounded corners on the calibrator', 'read as: rounded corners → compensation'],
     ['edges rounded', 'read as: rounded edges → bandwidth'],

@@ -210,19 +210,10 @@ export function resolveSetup(input: DiagnosisInput): {
   return { setup, assumptions };
 }
 
-/** The observation with nulls dropped. */
+/** The observation with nulls dropped (the schema has already removed unknown keys). */
 export function observedOf(input: DiagnosisInput): Observed {
-  const o = input.observed ?? {};
-  return {
-    amplitudeV: o.amplitudeV ?? undefined,
-    riseTimeS: o.riseTimeS ?? undefined,
-    overshootPct: o.overshootPct ?? undefined,
-    ringingFrequencyHz: o.ringingFrequencyHz ?? undefined,
-    frequencyHz: o.frequencyHz ?? undefined,
-    clipped: o.clipped ?? undefined,
-    tiltPct: o.tiltPct ?? undefined,
-    humFrequencyHz: o.humFrequencyHz ?? undefined,
-  };
+  const entries = Object.entries(input.observed ?? {}).filter(([, value]) => value !== null && value !== undefined);
+  return Object.fromEntries(entries) as Observed;
 }
 
 /**

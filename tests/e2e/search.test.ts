@@ -27,8 +27,14 @@ describe.skipIf(skipBrowser)('symptom search on the Bench', () => {
     const facet = page.getByRole('group', { name: 'Cause' }).getByRole('button', { name: /Ground-lead ringing/ });
     await facet.click();
     await expect.poll(() => facet.getAttribute('aria-pressed')).toBe('true');
-    const causes = await results.getByTestId('result-cause').allTextContents();
-    expect(causes.every((c) => c === 'Ground-lead ringing')).toBe(true);
+    // the results refetch after the facet's button turns pressed: wait for the filtered list
+    const causesOnPage = () => results.getByTestId('result-cause').allTextContents();
+    await expect
+      .poll(async () => {
+        const causes = await causesOnPage();
+        return causes.length > 0 && causes.every((c) => c === 'Ground-lead ringing');
+      })
+      .toBe(true);
     await screenshot(page, 'search-facet');
 
     await page.getByRole('button', { name: 'Amplitude off by a round factor' }).click();
@@ -56,9 +62,12 @@ describe.skipIf(skipBrowser)('symptom search on the Bench', () => {
     await facet.click();
     await expect.poll(() => facet.getAttribute('aria-pressed')).toBe('true');
     const results = page.getByTestId('search-result');
-    await expect.poll(() => results.count()).toBeGreaterThan(0);
-    const causes = await results.getByTestId('result-cause').allTextContents();
-    expect(causes.every((c) => /Aliasing/.test(c))).toBe(true);
+    await expect
+      .poll(async () => {
+        const causes = await results.getByTestId('result-cause').allTextContents();
+        return causes.length > 0 && causes.every((c) => /Aliasing/.test(c));
+      })
+      .toBe(true);
     await screenshot(page, 'search-facet-aliasing');
     await page.goto(`${app.server.baseUrl}/lessons`);
     await page.getByRole('heading', { name: /Aliasing: sample rate too low/ }).waitFor();

@@ -11,6 +11,9 @@ import type { AppDeps } from './deps';
 import { AppError } from './errors';
 import { createCsrf } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
+import { logger as processLogger } from './logger';
+import { requestLog } from './ops/request-log';
+import { trackRoutePattern } from './ops/request-route';
 import { attachmentRoutes } from './routes/attachments';
 import { backupRoutes } from './routes/backup';
 import { authRoutes } from './routes/auth';
@@ -44,6 +47,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.disable('x-powered-by');
   // X-Forwarded-For names the client only behind a proxy the operator named (TRUST_PROXY)
   app.set('trust proxy', config.trustProxy ?? false);
+  // first, so the log line and its duration cover everything below
+  app.use(trackRoutePattern, requestLog(deps.logger ?? processLogger));
 
   app.use(
     helmet({

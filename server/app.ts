@@ -14,6 +14,8 @@ import { errorHandler } from './middleware/error-handler';
 import { logger as processLogger } from './logger';
 import { requestLog } from './ops/request-log';
 import { trackRoutePattern } from './ops/request-route';
+import { createMetrics } from './ops/metrics';
+import { mountOpsRoutes } from './routes/ops';
 import { attachmentRoutes } from './routes/attachments';
 import { backupRoutes } from './routes/backup';
 import { authRoutes } from './routes/auth';
@@ -49,6 +51,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.set('trust proxy', config.trustProxy ?? false);
   // first, so the log line and its duration cover everything below
   app.use(trackRoutePattern, requestLog(deps.logger ?? processLogger));
+  const metrics = config.metricsToken ? createMetrics(deps) : undefined;
+  if (metrics) app.use(metrics.observe);
 
   app.use(
     helmet({
@@ -96,6 +100,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
+  mountOpsRoutes(app, deps, metrics);
   app.use('/api', csrf.protect);
   app.use('/api/auth', authRoutes(deps, passport, csrf.tokenFor));
   app.use('/api/profile', profileRoutes(deps));

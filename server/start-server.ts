@@ -27,9 +27,10 @@ export async function startServer(config: Config) {
   const release = claimDataDir(config.dataDir);
   const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
   await migrateToLatest(db);
-  const swept = await sweepUploads(db, config.dataDir);
+  // a shared UPLOADS_DIR holds other instances' uploads in progress: only an hour-old leftover is a crash's
+  const swept = await sweepUploads(db, { dataDir: config.dataDir, uploadsDir: config.uploadsDir }, { minAgeMs: config.uploadsDir ? 60 * 60 * 1000 : 0 });
   if (swept.partial || swept.orphaned) {
-    logger.info(swept, `uploads: removed ${swept.partial} partial upload(s); moved ${swept.orphaned} file(s) no attachment names to orphaned-uploads/`);
+    logger.info(swept, `uploads: removed ${swept.partial} partial upload(s); moved ${swept.orphaned} file(s) no attachment names aside`);
   }
 
   const fake = config.smtpUrl ? undefined : await startLocalSmtpFake(db);

@@ -15,7 +15,7 @@ export function backupRoutes(deps: AppDeps) {
     res.setHeader('Content-Disposition', `attachment; filename="${backupFileName()}"`);
     res.setHeader('Cache-Control', 'no-store');
     try {
-      await writeBackup(deps.db, deps.config.dataDir, res);
+      await writeBackup(deps.db, { dataDir: deps.config.dataDir, uploadsDir: deps.config.uploadsDir }, res);
     } catch (err) {
       // the headers are gone already: cut the download so it cannot pass for a whole backup
       req.log.error({ err }, 'backup failed');

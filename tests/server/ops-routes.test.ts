@@ -102,3 +102,30 @@ describe('Prometheus metrics at /metrics', () => {
     expect(res.text).not.toMatch(/^falsetrace_search_index_lag_seconds\{/m);
   });
 });
+
+describe('operations settings', () => {
+  it('should refuse a short METRICS_TOKEN and leave metrics off without one', async () => {
+    const { mkdtempSync, rmSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const path = await import('node:path');
+    const { loadConfig } = await import('../../server/config');
+    const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-config-'));
+    try {
+      expect(() => loadConfig({ DATA_DIR: dataDir, METRICS_TOKEN: 'short' })).toThrow(/METRICS_TOKEN must be at least 16 characters/);
+      expect(loadConfig({ DATA_DIR: dataDir, METRICS_TOKEN: ` ${TOKEN} ` }).metricsToken).toBe(TOKEN);
+      expect(loadConfig({ DATA_DIR: dataDir, METRICS_TOKEN: '' }).metricsToken).toBeUndefined();
+    } finally {
+      rmSync(dataDir, { recursive: true, force: true });
+    }
+  });
+
+  it('should take LOG_LEVEL, refuse an unknown one, and stay quiet under vitest unless asked', async () => {
+    const { logLevelFrom } = await import('../../server/logger');
+    expect(logLevelFrom({ LOG_LEVEL: 'debug' })).toBe('debug');
+    expect(logLevelFrom({ LOG_LEVEL: 'WARN' })).toBe('warn');
+    expect(() => logLevelFrom({ LOG_LEVEL: 'loud' })).toThrow(/LOG_LEVEL must be one of/);
+    expect(logLevelFrom({ VITEST: 'true' })).toBe('silent');
+    expect(logLevelFrom({ VITEST: 'true' }, false)).toBe('info');
+    expect(logLevelFrom({})).toBe('info');
+  });
+});

@@ -4,7 +4,7 @@ import path from 'node:path';
 import { DATABASE_NAME, writeBackup } from '../server/backup/backup';
 import { openDatabase } from '../server/db/database';
 
-// npm run backup -- FILE     (DATA_DIR as for the server; safe while the server runs)
+// npm run backup -- FILE     (DATA_DIR and UPLOADS_DIR as for the server; safe while the server runs)
 const target = process.argv[2];
 if (!target) {
   console.error('Usage: npm run backup -- FILE.zip   (backs up DATA_DIR, default ./data)');
@@ -19,7 +19,8 @@ if (!existsSync(dbFile)) {
 const db = openDatabase(dbFile);
 const partial = `${path.resolve(target)}.partial`;
 try {
-  const manifest = await writeBackup(db, dataDir, createWriteStream(partial));
+  const uploadsDir = process.env.UPLOADS_DIR?.trim() ? path.resolve(process.env.UPLOADS_DIR.trim()) : undefined;
+  const manifest = await writeBackup(db, { dataDir, uploadsDir }, createWriteStream(partial));
   // only a finished archive gets the name a schedule looks for
   await rename(partial, path.resolve(target));
   const bytes = manifest.files.reduce((n, f) => n + f.bytes, 0);

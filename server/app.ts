@@ -11,6 +11,11 @@ import type { AppDeps } from './deps';
 import { AppError } from './errors';
 import { createCsrf } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
+import { logger as processLogger } from './logger';
+import { requestLog } from './ops/request-log';
+import { trackRoutePattern } from './ops/request-route';
+import { createMetrics } from './ops/metrics';
+import { mountOpsRoutes } from './routes/ops';
 import { attachmentRoutes } from './routes/attachments';
 import { backupRoutes } from './routes/backup';
 import { authRoutes } from './routes/auth';
@@ -44,6 +49,10 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.disable('x-powered-by');
   // X-Forwarded-For names the client only behind a proxy the operator named (TRUST_PROXY)
   app.set('trust proxy', config.trustProxy ?? false);
+  // first, so the log line and its duration cover everything below
+  app.use(trackRoutePattern, requestLog(deps.logger ?? processLogger));
+  const metrics = config.metricsToken ? createMetrics(deps) : undefined;
+  if (metrics) app.use(metrics.observe);
 
   app.use(
     helmet({
@@ -91,6 +100,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
+  mountOpsRoutes(app, deps, metrics);
   app.use('/api', csrf.protect);
   app.use('/api/auth', authRoutes(deps, passport, csrf.tokenFor));
   app.use('/api/profile', profileRoutes(deps));

@@ -16,6 +16,10 @@ export interface Config {
   production: boolean;
   /** TRUST_PROXY as Express's "trust proxy" setting; unset trusts no X-Forwarded-For. */
   trustProxy?: boolean | number | string;
+  /** METRICS_TOKEN: /metrics answers only with `Authorization: Bearer <it>`; unset, /metrics is off (404). */
+  metricsToken?: string;
+  /** UPLOADS_DIR: attachment files, shared by every instance; DATA_DIR/uploads when unset. */
+  uploadsDir?: string;
 }
 
 const isOff = (v: string | undefined) => v !== undefined && /^(0|false|no|off)$/i.test(v.trim());
@@ -28,6 +32,14 @@ function sessionSecretFor(dataDir: string, fromEnv: string | undefined): string 
   const secret = randomBytes(32).toString('hex');
   writeFileSync(file, secret, { mode: 0o600 });
   return secret;
+}
+
+/** A guessable token would put the metrics in anyone's reach; refuse one that is too short. */
+function metricsTokenFrom(value: string | undefined): string | undefined {
+  const token = value?.trim();
+  if (!token) return undefined;
+  if (token.length < 16) throw new Error('METRICS_TOKEN must be at least 16 characters (a random string); leave it unset to keep /metrics off');
+  return token;
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -45,5 +57,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     demoPassword: env.DEMO_PASSWORD || 'demo-probe-2026',
     production: env.NODE_ENV === 'production',
     trustProxy: trustProxySetting(env.TRUST_PROXY),
+    metricsToken: metricsTokenFrom(env.METRICS_TOKEN),
+    uploadsDir: env.UPLOADS_DIR?.trim() ? path.resolve(env.UPLOADS_DIR.trim()) : undefined,
   };
 }

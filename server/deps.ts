@@ -1,5 +1,6 @@
 import type { Config } from './config';
 import type { Db } from './db/database';
+import type { Logger } from './logger';
 import type { MailQueue } from './mail/mail-queue';
 import type { Mailer } from './mail/mailer';
 import type { CaseSearch } from './search/case-search';
@@ -13,4 +14,6 @@ export interface AppDeps {
   config: Config;
   /** The case search index; opened on first search when left out. */
   search?: CaseSearch;
+  /** Request and error log; the process logger (LOG_LEVEL) when left out. */
+  logger?: Logger;
 }

@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createApp } from './app';
+import { logger } from './logger';
 import { claimDataDir } from './backup/server-lock';
 import { sweepUploads } from './backup/upload-sweep';
 import { zipWorkers } from './casebook/zip-pool';
@@ -26,9 +27,10 @@ export async function startServer(config: Config) {
   const release = claimDataDir(config.dataDir);
   const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
   await migrateToLatest(db);
-  const swept = await sweepUploads(db, config.dataDir);
+  // a shared UPLOADS_DIR holds other instances' uploads in progress: only an hour-old leftover is a crash's
+  const swept = await sweepUploads(db, { dataDir: config.dataDir, uploadsDir: config.uploadsDir }, { minAgeMs: config.uploadsDir ? 60 * 60 * 1000 : 0 });
   if (swept.partial || swept.orphaned) {
-    console.log(`[falsetrace] uploads: removed ${swept.partial} partial upload(s); moved ${swept.orphaned} file(s) no attachment names to orphaned-uploads/`);
+    logger.info(swept, `uploads: removed ${swept.partial} partial upload(s); moved ${swept.orphaned} file(s) no attachment names aside`);
   }
 
   const fake = config.smtpUrl ? undefined : await startLocalSmtpFake(db);
@@ -38,7 +40,7 @@ export async function startServer(config: Config) {
   const mail = createMailQueue(db, mailer, { prepare: (queue) => resolvePasswordResetRequests({ db, config, mail: queue }) });
   if (config.seedDemo && (await countUsers(db)) === 0) {
     const seeded = await seedDemoCasebook({ db, mailer, mail, config }, config.demoPassword);
-    console.log(`[falsetrace] empty database: demo casebook seeded (${seeded.people} people, ${seeded.cases} cases, ${seeded.attachments} attachments)`);
+    logger.info(seeded, `empty database: demo casebook seeded (${seeded.people} people, ${seeded.cases} cases, ${seeded.attachments} attachments)`);
   }
 
   mail.start();
@@ -46,10 +48,10 @@ export async function startServer(config: Config) {
   // after seeding, so a fresh casebook is indexed; a matching snapshot in DATA_DIR skips the rebuild
   const searchStarted = performance.now();
   const search = await openCaseSearch(db, { dataDir: config.dataDir });
-  console.log(`[falsetrace] search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${search.index.size} cases in ${Math.round(performance.now() - searchStarted)} ms`);
+  logger.info(`search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${search.index.size} cases in ${Math.round(performance.now() - searchStarted)} ms`);
   const app = createApp({ db, mailer, mail, config, search }, { clientDir: CLIENT_DIR });
   const digestTimer = setInterval(
-    () => void runDailyDigestIfDue({ db, mailer, mail, config }).catch((e) => console.error('[falsetrace] digest failed:', e)),
+    () => void runDailyDigestIfDue({ db, mailer, mail, config }).catch((err) => logger.error({ err }, 'digest failed')),
     60 * 60 * 1000,
   );
   digestTimer.unref();
@@ -79,7 +81,7 @@ export async function startServer(config: Config) {
     let timer: NodeJS.Timeout | undefined;
     const late = new Promise<'late'>((resolve) => (timer = setTimeout(() => resolve('late'), graceMs)));
     if ((await Promise.race([closed, late])) === 'late') {
-      console.warn(`[falsetrace] requests still running after ${graceMs} ms; cutting them`);
+      logger.warn(`requests still running after ${graceMs} ms; cutting them`);
       server.closeAllConnections();
       await closed;
     }

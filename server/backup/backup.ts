@@ -4,7 +4,9 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { Writable } from 'node:stream';
 import SQLite from 'better-sqlite3';
+import { isPartialName } from '../atomic-file';
 import { sqliteOf, type Db } from '../db/database';
+import type { UploadDirs } from './upload-sweep';
 import { zipWriter, type WrittenEntry } from './zip-stream';
 
 export const BACKUP_FORMAT = 'falsetrace-backup';
@@ -24,12 +26,14 @@ export interface BackupManifest {
   files: WrittenEntry[];
 }
 
-/** Every upload file name (not the partial ones), sorted. */
-async function uploadNames(dataDir: string): Promise<string[]> {
-  const dir = path.join(dataDir, 'uploads');
-  if (!existsSync(dir)) return [];
-  const entries = await readdir(dir, { withFileTypes: true });
-  return entries.filter((e) => e.isFile() && !SKIP_UPLOAD_DIRS.has(e.name)).map((e) => e.name).sort();
+/** DATA_DIR/uploads unless UPLOADS_DIR put them elsewhere. */
+const uploadsOf = (dirs: UploadDirs) => dirs.uploadsDir ?? path.join(dirs.dataDir, 'uploads');
+
+/** Every upload file name (not the partial ones, not files being written), sorted. */
+async function uploadNames(uploads: string): Promise<string[]> {
+  if (!existsSync(uploads)) return [];
+  const entries = await readdir(uploads, { withFileTypes: true });
+  return entries.filter((e) => e.isFile() && !SKIP_UPLOAD_DIRS.has(e.name) && !isPartialName(e.name)).map((e) => e.name).sort();
 }
 
 /**
@@ -37,7 +41,7 @@ async function uploadNames(dataDir: string): Promise<string[]> {
  * writing meanwhile), checked so that every file its attachments name is on disk: a file
  * deleted between the copy and the read of the uploads makes the copy be taken again.
  */
-async function snapshot(db: Db, dataDir: string, workDir: string) {
+async function snapshot(db: Db, uploadsDir: string, workDir: string) {
   for (let attempt = 1; ; attempt++) {
     const copy = path.join(workDir, DATABASE_NAME);
     await rm(copy, { force: true });
@@ -51,28 +55,32 @@ async function snapshot(db: Db, dataDir: string, workDir: string) {
     } finally {
       check.close();
     }
-    const present = new Set(await uploadNames(dataDir));
+    const present = new Set(await uploadNames(uploadsDir));
     const missing = referenced.filter((n) => !present.has(n));
     if (!missing.length) return { copy, uploads: [...present], migrations };
-    if (attempt === 3) throw new Error(`Attachment files are missing from ${path.join(dataDir, 'uploads')}: ${missing.slice(0, 5).join(', ')}${missing.length > 5 ? ' …' : ''}`);
+    if (attempt === 3) throw new Error(`Attachment files are missing from ${uploadsDir}: ${missing.slice(0, 5).join(', ')}${missing.length > 5 ? ' …' : ''}`);
   }
 }
 
 /**
  * Writes one zip with the database, every upload and the session secret to `out`, then a
  * manifest with each file's size and SHA-256. Streams: neither the database nor the uploads are
- * held in memory whole.
+ * held in memory whole. `where` is DATA_DIR, or DATA_DIR and UPLOADS_DIR; the archive is the same
+ * either way (uploads under uploads/).
  */
-export async function writeBackup(db: Db, dataDir: string, out: Writable, now = new Date()): Promise<BackupManifest> {
+export async function writeBackup(db: Db, where: string | UploadDirs, out: Writable, now = new Date()): Promise<BackupManifest> {
+  const dirs = typeof where === 'string' ? { dataDir: where } : where;
+  const dataDir = dirs.dataDir;
+  const uploadsDir = uploadsOf(dirs);
   const workDir = await mkdtemp(path.join(tmpdir(), 'falsetrace-backup-'));
   try {
-    const { copy, uploads, migrations } = await snapshot(db, dataDir, workDir);
+    const { copy, uploads, migrations } = await snapshot(db, uploadsDir, workDir);
     const zip = zipWriter(out);
     const files: WrittenEntry[] = [await zip.addFile(DATABASE_NAME, copy)];
     const secret = path.join(dataDir, SECRET_NAME);
     if (existsSync(secret)) files.push(await zip.addFile(SECRET_NAME, secret));
     for (const name of uploads) {
-      const file = path.join(dataDir, 'uploads', name);
+      const file = path.join(uploadsDir, name);
       // an unreferenced file removed meanwhile is simply not part of this backup
       if (existsSync(file)) files.push(await zip.addFile(`uploads/${name}`, file));
     }

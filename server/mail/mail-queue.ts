@@ -1,5 +1,6 @@
 import type { Db } from '../db/database';
 import { dueMails, findQueuedMail, insertQueuedMail, markMailFailed, markMailSent } from '../db/repositories/mail-queue';
+import { logger } from '../logger';
 import type { MailMessage, Mailer } from './mailer';
 
 /** Backoff after the n-th failed attempt: 30 s, 1 min, 2 min … capped at 1 h. */
@@ -47,6 +48,7 @@ export function createMailQueue(db: Db, mailer: Mailer, options: MailQueueOption
       return true;
     } catch (err) {
       const attempts = row.attempts + 1;
+      logger.warn({ mailId: id, attempts, reason: String((err as Error).message ?? err) }, 'mail delivery failed; it stays queued for retry');
       await markMailFailed(db, id, attempts, new Date(now.getTime() + retryDelayMs(attempts)).toISOString(), String((err as Error).message ?? err));
       return false;
     }
@@ -64,14 +66,14 @@ export function createMailQueue(db: Db, mailer: Mailer, options: MailQueueOption
         wakeQueued = false;
         return stopped ? 0 : retryDue();
       })
-      .catch((e) => console.error('[falsetrace] mail sending failed:', e));
+      .catch((err) => logger.error({ err }, 'mail sending failed'));
   }
 
   async function retryDue(now = new Date()): Promise<number> {
     // one sweep at a time, so a slow SMTP server never gets the same mail twice
     running ??= (async () => {
       let sent = 0;
-      await options.prepare?.(queue).catch((e) => console.error('[falsetrace] preparing mails failed:', e));
+      await options.prepare?.(queue).catch((err) => logger.error({ err }, 'preparing mails failed'));
       // what prepare just queued is due too
       const due = new Date(Math.max(now.getTime(), Date.now()));
       for (const row of await dueMails(db, due.toISOString())) if (await attempt(row.id, now)) sent++;
@@ -100,7 +102,7 @@ export function createMailQueue(db: Db, mailer: Mailer, options: MailQueueOption
       while (running || wakeQueued) await (running ?? new Promise((r) => setTimeout(r, 10))).catch(() => undefined);
     },
     start(intervalMs = 15_000) {
-      timer = setInterval(() => void retryDue().catch((e) => console.error('[falsetrace] mail retry failed:', e)), intervalMs);
+      timer = setInterval(() => void retryDue().catch((err) => logger.error({ err }, 'mail retry failed')), intervalMs);
       timer.unref();
     },
     stop() {

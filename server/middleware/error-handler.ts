@@ -1,8 +1,9 @@
 import type { ErrorRequestHandler } from 'express';
 import { AppError } from '../errors';
+import { logger } from '../logger';
 
 /** The one place errors become HTTP: `{ error, issues? }`, never a stack trace. */
-export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof AppError) {
     res.status(err.status).json(err.issues ? { error: err.message, issues: err.issues } : { error: err.message });
     return;
@@ -22,6 +23,7 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     res.status(status).json({ error: err?.type === 'entity.parse.failed' ? 'The request body is not valid JSON' : String(err?.message ?? 'Bad request') });
     return;
   }
-  console.error('[falsetrace] unexpected error:', err);
+  // the request's own logger carries its request id
+  (req.log ?? logger).error({ err }, 'unexpected error');
   res.status(500).json({ error: 'Something went wrong on the server; the error was logged' });
 };

@@ -10,15 +10,15 @@ import { requireRole } from '../middleware/require-auth';
 export function backupRoutes(deps: AppDeps) {
   const r = Router();
   r.use(requireRole('admin'));
-  r.get('/', async (_req, res) => {
+  r.get('/', async (req, res) => {
     res.setHeader('Content-Type', 'application/zip');
     res.setHeader('Content-Disposition', `attachment; filename="${backupFileName()}"`);
     res.setHeader('Cache-Control', 'no-store');
     try {
-      await writeBackup(deps.db, deps.config.dataDir, res);
+      await writeBackup(deps.db, { dataDir: deps.config.dataDir, uploadsDir: deps.config.uploadsDir }, res);
     } catch (err) {
       // the headers are gone already: cut the download so it cannot pass for a whole backup
-      console.error('[falsetrace] backup failed:', err);
+      req.log.error({ err }, 'backup failed');
       res.destroy(err as Error);
     }
   });

@@ -1,4 +1,4 @@
-import { open, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { open, readFile, rm } from 'node:fs/promises';
 import { canEditCase } from '../../shared/auth/case-policy';
 import type { Actor } from '../../shared/auth/roles';
 import type { Attachment } from '../../shared/schemas/case';
@@ -62,9 +62,9 @@ export async function addAttachment(deps: AppDeps, actor: Actor, caseId: number,
       if (img === 'too_many_pixels') throw new AppError('too_large', 'The image has too many pixels (over 60 megapixels); crop or scale it first');
       const name = storage.newName(img.extension);
       const thumb = storage.newName(img.extension).replace(/(\.\w+)$/, '.thumb$1');
-      await writeFile(storage.fileFor(name), img.image);
+      await storage.write(name, img.image);
       written.push(name);
-      await writeFile(storage.fileFor(thumb), img.thumbnail);
+      await storage.write(thumb, img.thumbnail);
       written.push(thumb);
       attachment = await insertAttachment(deps.db, {
         case_id: caseId,
@@ -83,7 +83,7 @@ export async function addAttachment(deps: AppDeps, actor: Actor, caseId: number,
       const result = await analyzeCaptureFile(file.path);
       if (!result.ok) throw new AppError('unsupported_type', `Not an accepted screenshot (PNG, JPEG, GIF, BMP) or CSV capture: ${result.message}`);
       const name = storage.newName('csv');
-      await rename(file.path, storage.fileFor(name));
+      await storage.moveIn(file.path, name);
       written.push(name);
       attachment = await insertAttachment(deps.db, {
         case_id: caseId,

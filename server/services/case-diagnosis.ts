@@ -2,6 +2,7 @@ import { diagnosisInputFromSetup } from '../../shared/diagnosis/from-case-setup'
 import { diagnose } from '../../shared/diagnosis/ranker';
 import type { CaseSetup, StatedCause } from '../../shared/schemas/case';
 import { CAUSES, type Cause, type DiagnosisResult } from '../../shared/schemas/diagnosis';
+import { logger } from '../logger';
 
 export interface StoredDiagnosis {
   diagnosis: DiagnosisResult | null;
@@ -32,7 +33,7 @@ export function recomputeDiagnosis(setup: CaseSetup, statedCause: StatedCause | 
     diagnosis = diagnose(diagnosisInputFromSetup(setup));
   } catch (err) {
     // a model bug must not lose the author's save; the case shows no diagnosis instead
-    console.error('[falsetrace] diagnosis failed:', err);
+    logger.error({ err }, 'diagnosis failed');
   }
   const engineCause = clearTopCause(diagnosis);
   const disagrees = Boolean(statedCause && (CAUSES as readonly string[]).includes(statedCause) && engineCause && engineCause !== statedCause);

@@ -1,4 +1,4 @@
-import { copyFile, readFile, writeFile } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
 import type { Actor } from '../../shared/auth/roles';
 import type { CasebookImportReport, ImportKind, ImportNote } from '../../shared/schemas/casebook-archive';
 import { readArchive, storedJson, ArchiveRefused, type ArchiveRecords } from '../casebook/import-plan';
@@ -168,15 +168,15 @@ async function storeFiles(deps: AppDeps, attachments: Records['attachments'], wr
       if (img === 'too_many_pixels') throw new AppError('too_large', `Attachment ${a.id} (“${a.originalName}”) has over ${MAX_IMAGE_PIXELS / 1e6} megapixels; nothing was imported`);
       const file = storage.newName(img.extension);
       const thumbnail = storage.newName(img.extension).replace(/(\.\w+)$/, '.thumb$1');
-      await writeFile(storage.fileFor(file), img.image);
+      await storage.write(file, img.image);
       written.push(file);
-      await writeFile(storage.fileFor(thumbnail), img.thumbnail);
+      await storage.write(thumbnail, img.thumbnail);
       written.push(thumbnail);
       stored.set(a.id, { file, thumbnail, sizeBytes: img.image.length, width: img.width, height: img.height, contentType: img.contentType });
       continue;
     }
     const file = storage.newName('csv');
-    await copyFile(a.path, storage.fileFor(file));
+    await storage.copyIn(a.path, file);
     written.push(file);
     stored.set(a.id, { file, thumbnail: null, sizeBytes: a.sizeBytes, width: a.width, height: a.height, contentType: a.contentType });
   }

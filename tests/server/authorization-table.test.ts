@@ -61,6 +61,7 @@ function outcomeOf(status: number, body: { error?: string }): Outcome {
 }
 
 const ROUTES: Record<string, Entry> = {
+  'GET /api/ready': { rule: 'public', call: (c) => c.get('/api/ready') },
   'GET /api/auth/csrf': { rule: 'public', call: (c) => c.get('/api/auth/csrf') },
   'GET /api/auth/me': { rule: 'public', call: (c) => c.get('/api/auth/me') },
   'POST /api/auth/login': { rule: 'public', call: (c) => c.post('/api/auth/login', {}) },
@@ -204,6 +205,11 @@ describe('authorization: every route × role × ownership × case state', () => 
     }
     expect(wrong).toEqual([]);
   }, 120_000);
+
+  it('should keep /metrics (outside /api) to its bearer token: no session opens it, and it is off here', async () => {
+    // the token cases are in ops-routes.test.ts; a session of any role is never enough
+    for (const who of WHO) expect((await clients[who].get('/metrics')).status).toBe(404);
+  });
 
   it('should answer every other route by role', async () => {
     const rank: Record<Who, number> = { anon: 0, author: 1, other: 1, moderator: 2, admin: 3 };

@@ -37,6 +37,8 @@ export interface TestContextOptions {
   onDisk?: boolean;
   /** As TRUST_PROXY would set it. */
   trustProxy?: Config['trustProxy'];
+  /** As UPLOADS_DIR would set it (removed with the context). */
+  uploadsDir?: string;
 }
 
 /** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
@@ -56,6 +58,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
     demoPassword: DEMO_PASSWORD,
     production: false,
     trustProxy: options.trustProxy,
+    uploadsDir: options.uploadsDir,
   };
   // the queue's sweep also turns password reset requests into mails
   const mail = createMailQueue(db, mailer, { prepare: (queue) => resolvePasswordResetRequests({ db, config, mail: queue }) });
@@ -78,6 +81,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
       await fake.close();
       await db.destroy();
       rmSync(config.dataDir, { recursive: true, force: true });
+      if (config.uploadsDir) rmSync(config.uploadsDir, { recursive: true, force: true });
     },
   };
 }

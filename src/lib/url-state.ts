@@ -1,4 +1,4 @@
-import { useCallback, useMemo } from 'react';
+import { useCallback, useMemo, useRef } from 'react';
 import { useSearchParams } from 'react-router-dom';
 
 /** A change to the query string: a value sets the key, '' / null / undefined removes it. */
@@ -51,6 +51,10 @@ export function sameParams(a: URLSearchParams, b: URLSearchParams): boolean {
  */
 export function useUrlState<K extends string>(keys: readonly K[]) {
   const [params, setParams] = useSearchParams();
+  // React Router hands out a new setter whenever the query changes; `write` stays one function,
+  // so an effect that writes the address does not run again just because the address changed
+  const setter = useRef(setParams);
+  setter.current = setParams;
   const keyList = keys.join();
   // eslint-disable-next-line react-hooks/exhaustive-deps
   const values = useMemo(() => pickParams(params, keys), [params, keyList]);
@@ -61,9 +65,9 @@ export function useUrlState<K extends string>(keys: readonly K[]) {
       const next = applyParamChanges(prev, changes, options);
       // an unchanged state is no new place to go back to
       if (sameParams(prev, next)) return;
-      setParams(next, { replace: options.replace });
+      setter.current(next, { replace: options.replace });
     },
-    [setParams],
+    [],
   );
   return { params, values, write };
 }

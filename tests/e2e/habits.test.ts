@@ -223,4 +223,22 @@ describe.skipIf(skipBrowser)('habits: links, keys and plots', () => {
     expect(pngDownload.suggestedFilename()).toMatch(/capture\.png$/);
     await context.close();
   });
+
+  it('should show the touched screens in light and dark', async () => {
+    for (const colorScheme of ['light', 'dark'] as const) {
+      const { context, page } = await open({ colorScheme });
+      await page.goto(`${app.server.baseUrl}/?q=${encodeURIComponent('ringing at 110 MHz')}&cause=ground-lead`);
+      await page.getByTestId('search-result').first().waitFor();
+      await page.keyboard.press('j');
+      await screenshot(page, `habits-bench-${colorScheme}`);
+      await page.goto(`${app.server.baseUrl}/cases?status=verified&sort=title`);
+      await page.locator('table tbody tr').first().waitFor();
+      await page.keyboard.press('j');
+      await screenshot(page, `habits-cases-${colorScheme}`);
+      await page.goto(`${app.server.baseUrl}/diagnose?preset=long-ground-clip`);
+      await page.locator('[data-testid="line-chart"] canvas').first().waitFor();
+      await screenshot(page, `habits-diagnose-${colorScheme}`);
+      await context.close();
+    }
+  });
 });

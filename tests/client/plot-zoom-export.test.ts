@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { clampSpan, wheelZoomFactor, zoomSpan } from '../../src/components/charts/zoom-gestures';
 import { csvField, fileNameFor, toCsv } from '../../src/components/charts/plot-export';
 import { zoomWindowAt } from '../../src/features/captures/components/view-window';
+import { captureReadingRows } from '../../src/features/captures/components/capture-readings';
+import { readStoredAnalysis } from '../../src/features/captures/stored-analysis';
 
 describe('plot zoom', () => {
   it('should widen for a wheel turned towards the reader and narrow the other way, by the same ratio', () => {
@@ -61,5 +63,19 @@ describe('plot CSV', () => {
   it('should name the file after the plot', () => {
     expect(fileNameFor('Magnitude response: probe + scope', 'png')).toBe('magnitude-response-probe-scope.png');
     expect(fileNameFor('***', 'csv')).toBe('plot.csv');
+  });
+});
+
+describe('capture readings CSV', () => {
+  it('should list what the analysis measured, leave out what it could not, and add the window and cursors', () => {
+    const analysis = readStoredAnalysis({ points: 2500, sampleIntervalS: 1e-6, riseTimeS: 8.03e-7, topV: 3.3, baseV: null });
+    const rows = captureReadingRows(analysis, { fromS: 0, toS: 2.5e-3 }, { a: { tS: 1e-4, v: 0 }, b: { tS: 3e-4, v: 3.3 } });
+    expect(rows[0]).toEqual(['quantity', 'value', 'unit']);
+    expect(rows).toContainEqual(['Samples', 2500, '']);
+    expect(rows).toContainEqual(['Rise time (10–90 %)', 8.03e-7, 's']);
+    expect(rows.some((r) => r[0] === 'Base level')).toBe(false);
+    expect(rows).toContainEqual(['Window shown to', 2.5e-3, 's']);
+    const dt = rows.find((r) => r[0] === 'Cursor Δt (B − A)');
+    expect(dt?.[1]).toBeCloseTo(2e-4, 15);
   });
 });

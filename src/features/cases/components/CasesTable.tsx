@@ -95,7 +95,7 @@ export function CasesTable({ rows, total, sort, page, pageSize, onSort, onPage }
               {group.headers.map((header) => {
                 const sorted = header.column.getIsSorted();
                 return (
-                  <th key={header.id} scope="col" className="pb-2 pr-3 font-semibold" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
+                  <th key={header.id} scope="col" className={`pb-2 pr-3 font-semibold ${header.column.id === 'title' ? 'pl-2.5' : ''}`} aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
                     {header.column.getCanSort() ? (
                       <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
                         <table.FlexRender header={header} />
@@ -116,7 +116,7 @@ export function CasesTable({ rows, total, sort, page, pageSize, onSort, onPage }
           {table.getRowModel().rows.map((row, i) => (
             <tr key={row.id} className="border-t border-rule align-top" {...keyboard.rowProps(i)}>
               {row.getAllCells().map((cell) => (
-                <td key={cell.id} className={`py-2.5 pr-3 ${cell.column.id === 'title' ? 'max-w-[28rem]' : ''}`}>
+                <td key={cell.id} className={`py-2.5 pr-3 ${cell.column.id === 'title' ? 'max-w-[28rem] pl-2.5' : ''}`}>
                   <table.FlexRender cell={cell} />
                 </td>
               ))}

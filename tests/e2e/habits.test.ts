@@ -146,6 +146,9 @@ describe.skipIf(skipBrowser)('habits: links, keys and plots', () => {
       await page.keyboard.press('j');
       await expect.poll(() => entries.first().getAttribute('aria-current')).toBe('true');
       await screenshot(page, `habits-review-selected-${colorScheme}`);
+      const caseHref = await entries.first().getByRole('heading').getByRole('link').getAttribute('href');
+      await page.keyboard.press('Enter');
+      await page.waitForURL((url) => url.pathname === caseHref);
       await context.close();
     }
   });
@@ -165,6 +168,24 @@ describe.skipIf(skipBrowser)('habits: links, keys and plots', () => {
     await page.mouse.wheel(0, -400);
     await expect.poll(span).toBeLessThan(whole * 0.9);
     await screenshot(page, 'habits-diagnose-zoomed');
+    await page.mouse.dblclick(box.x + box.width / 2, box.y + box.height / 2);
+    await expect.poll(span).toBeCloseTo(whole, 9);
+
+    // two fingers moving apart: pointer events as a touch screen sends them
+    await chart.locator('.u-over').evaluate((over) => {
+      const r = over.getBoundingClientRect();
+      const y = r.top + r.height / 2;
+      const send = (type: string, pointerId: number, x: number) =>
+        over.dispatchEvent(new PointerEvent(type, { pointerId, pointerType: 'touch', clientX: x, clientY: y, bubbles: true, isPrimary: pointerId === 1 }));
+      const mid = r.left + r.width / 2;
+      send('pointerdown', 1, mid - 40);
+      send('pointerdown', 2, mid + 40);
+      send('pointermove', 1, mid - 120);
+      send('pointermove', 2, mid + 120);
+      send('pointerup', 1, mid - 120);
+      send('pointerup', 2, mid + 120);
+    });
+    await expect.poll(span).toBeLessThan(whole * 0.6);
     await page.mouse.dblclick(box.x + box.width / 2, box.y + box.height / 2);
     await expect.poll(span).toBeCloseTo(whole, 9);
 

@@ -189,6 +189,15 @@ describe.skipIf(skipBrowser)('habits: links, keys and plots', () => {
     await page.mouse.dblclick(box.x + box.width / 2, box.y + box.height / 2);
     await expect.poll(span).toBeCloseTo(whole, 9);
 
+    // once the server has run the setup, the address holds it and can be copied
+    await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: app.server.baseUrl });
+    await page.getByRole('button', { name: 'Diagnose', exact: true }).click();
+    await page.getByRole('button', { name: 'Copy link to this setup' }).click();
+    await page.getByTestId('copy-link-status').getByText('Link copied').waitFor();
+    const copied = await page.evaluate(() => navigator.clipboard.readText());
+    expect(copied).toBe(page.url());
+    expect(copied).toContain('probe.groundLeadM=0.15');
+
     const figure = page.getByRole('list', { name: 'Causes, most likely first' }).getByRole('article').first().locator('figure').first();
     const [download] = await Promise.all([page.waitForEvent('download'), figure.getByRole('button', { name: 'Download CSV (curves)' }).click()]);
     const csv = readFileSync((await download.path())!, 'utf8');

@@ -1,7 +1,8 @@
 import { readFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { screenshot, signIn, skipBrowser } from './helpers/browser';
+import path from 'node:path';
+import { SCREENSHOT_DIR, screenshot, signIn, skipBrowser } from './helpers/browser';
 import { useRealApp } from './helpers/real-app';
 
 // Runs against the demo casebook the server seeds: shareable search and table addresses,
@@ -251,6 +252,14 @@ describe.skipIf(skipBrowser)('habits: links, keys and plots', () => {
     // source: PNG specification (ISO/IEC 15948), 5.2 — the eight-byte signature
     expect([...png.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
     expect(pngDownload.suggestedFilename()).toMatch(/capture\.png$/);
+    await pngDownload.saveAs(path.join(SCREENSHOT_DIR, 'habits-capture-export.png'));
+    // the spectrum is an SVG: drawn onto a canvas with the page's colours written in
+    const spectrumDownloads = page.getByRole('group', { name: /^Download .* spectrum$/ }).first();
+    const [spectrumPng] = await Promise.all([page.waitForEvent('download'), spectrumDownloads.getByRole('button', { name: 'Download PNG' }).click()]);
+    expect([...readFileSync((await spectrumPng.path())!).subarray(0, 4)]).toEqual([0x89, 0x50, 0x4e, 0x47]);
+    await spectrumPng.saveAs(path.join(SCREENSHOT_DIR, 'habits-spectrum-export.png'));
+    const [spectrumCsv] = await Promise.all([page.waitForEvent('download'), spectrumDownloads.getByRole('button', { name: 'Download CSV (spectrum)' }).click()]);
+    expect(readFileSync((await spectrumCsv.path())!, 'utf8').split('\r\n')[0]).toBe('frequency (Hz),amplitude (V)');
     await context.close();
   });
 

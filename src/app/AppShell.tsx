@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { ROLE_LABELS } from '../../shared/auth/roles';
+import { KeyboardShortcuts } from '../components/keyboard/KeyboardShortcuts';
 import { ThemeToggle } from '../components/ui/ThemeToggle';
 import { useMe } from '../features/auth/api/get-me';
 import { useLogout } from '../features/auth/api/logout';
@@ -80,7 +81,14 @@ export function AppShell() {
       </main>
       <footer className="border-t border-rule py-4 text-center text-xs text-muted">
         Falsetrace — the team casebook of measurements that lied.
+        {user && (
+          <>
+            {' '}
+            Press <kbd className="rounded border border-rule px-1 font-mono">?</kbd> for keyboard shortcuts.
+          </>
+        )}
       </footer>
+      {user && <KeyboardShortcuts />}
     </div>
   );
 }

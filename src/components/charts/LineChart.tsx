@@ -1,5 +1,6 @@
-import { lazy, Suspense, useId } from 'react';
+import { lazy, Suspense, useId, useRef } from 'react';
 import { SERIES_DRAW, type SeriesStyle } from './chart-theme';
+import { PlotDownloads } from './PlotDownloads';
 
 export type { SeriesStyle } from './chart-theme';
 
@@ -55,6 +56,11 @@ function Swatch({ style }: { style: SeriesStyle }) {
 export function LineChart({ height = 260, title, summary, series, ...plot }: LineChartProps) {
   const titleId = useId();
   const summaryId = useId();
+  const plotRef = useRef<HTMLDivElement>(null);
+  const csvRows = () => [
+    [`${plot.xLabel ?? 'x'}${plot.xUnit ? ` (${plot.xUnit})` : ''}`, ...series.map((s) => `${s.label}${plot.yUnit ? ` (${plot.yUnit})` : ''}`)],
+    ...plot.x.map((xv, i) => [xv, ...series.map((s) => s.values[i])]),
+  ];
   return (
     <figure className="flex min-w-0 flex-col gap-2" aria-labelledby={titleId} aria-describedby={summaryId}>
       <figcaption id={titleId} className="text-sm font-semibold">
@@ -68,7 +74,7 @@ export function LineChart({ height = 260, title, summary, series, ...plot }: Lin
           </li>
         ))}
       </ul>
-      <div role="img" aria-label={`${title}. ${summary}`} className="min-w-0" style={{ minHeight: height }}>
+      <div ref={plotRef} role="img" aria-label={`${title}. ${summary}`} className="min-w-0" style={{ minHeight: height }}>
         <Suspense
           fallback={
             <p className="flex items-center justify-center text-sm text-muted" style={{ height }}>
@@ -78,6 +84,10 @@ export function LineChart({ height = 260, title, summary, series, ...plot }: Lin
         >
           <UplotChart {...plot} series={series} height={height} />
         </Suspense>
+      </div>
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <p className="text-xs text-muted">Scroll or pinch over the plot to zoom; double-click to see it all.</p>
+        <PlotDownloads plot={plotRef} name={title} rows={csvRows} csvLabel="Download CSV (curves)" />
       </div>
       <p id={summaryId} className="text-sm text-muted">
         {summary}

@@ -3,6 +3,7 @@ import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import { formatAxisValue, readChartTheme, SERIES_DRAW, useThemeVersion } from './chart-theme';
 import type { LineChartProps } from './LineChart';
+import { attachZoomGestures, clampSpan, zoomSpan } from './zoom-gestures';
 
 type Props = Pick<LineChartProps, 'x' | 'series' | 'xUnit' | 'yUnit' | 'xLabel' | 'yLabel' | 'logX' | 'yFromZero'> & { height: number };
 
@@ -57,16 +58,43 @@ export default function UplotChart({ x, series, xUnit, yUnit, xLabel, yLabel, lo
           spanGaps: false,
         })),
       ],
-      hooks: { setCursor: [(u) => setCursorIdx(u.cursor.idx ?? null)] },
+      hooks: {
+        setCursor: [(u) => setCursorIdx(u.cursor.idx ?? null)],
+        // the span on screen, readable from outside (tests, and anyone inspecting the page)
+        setScale: [
+          (u, key) => {
+            if (key !== 'x') return;
+            el.dataset.xMin = String(u.scales.x.min);
+            el.dataset.xMax = String(u.scales.x.max);
+          },
+        ],
+      },
     };
     const data: uPlot.AlignedData = [Array.from(x), ...series.map((s) => Array.from(s.values))];
     const chart = new uPlot(opts, data, el);
+    const full: [number, number] = [x[0], x[x.length - 1]];
+    const showAll = () => chart.setScale('x', { min: full[0], max: full[1] });
+    const detachZoom = attachZoomGestures(chart.over, {
+      onZoom: (factor, anchor) => {
+        const { min, max } = chart.scales.x;
+        if (min === undefined || max === undefined) return;
+        const next = zoomSpan(min, max, factor, anchor, logX);
+        // a ten-thousandth of the whole is as close as a computed curve is worth looking
+        const tooNarrow = logX ? Math.log10(next[1] / next[0]) < Math.log10(full[1] / full[0]) * 1e-4 : next[1] - next[0] < (full[1] - full[0]) * 1e-4;
+        if (tooNarrow) return;
+        const kept = clampSpan(next, full[0], full[1], logX);
+        if (kept) chart.setScale('x', { min: kept[0], max: kept[1] });
+        else showAll();
+      },
+      onReset: showAll,
+    });
     const resize = new ResizeObserver(([entry]) => {
       const width = Math.floor(entry.contentRect.width);
       if (width > 0 && width !== chart.width) chart.setSize({ width, height });
     });
     resize.observe(el);
     return () => {
+      detachZoom();
       resize.disconnect();
       chart.destroy();
     };
@@ -85,7 +113,7 @@ export default function UplotChart({ x, series, xUnit, yUnit, xLabel, yLabel, lo
 
   return (
     <>
-      <div ref={host} className="ft-chart w-full" aria-hidden="true" />
+      <div ref={host} className="ft-chart w-full touch-pan-y" aria-hidden="true" data-testid="line-chart" />
       <p className="min-h-[1.25rem] font-mono text-[11px] text-muted" aria-hidden="true">
         {readout ?? '\u00a0'}
       </p>

@@ -30,7 +30,7 @@ function FieldShell({ label, error, hint, id, children }: FieldShellProps) {
 }
 
 const control =
-  'w-full rounded-md border bg-sheet px-3 py-2 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none';
+  'w-full rounded-md border bg-sheet px-3 py-2 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none focus:ring-2 focus:ring-agree/60';
 
 export interface TextFieldProps extends InputHTMLAttributes<HTMLInputElement> {
   label: string;

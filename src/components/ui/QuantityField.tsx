@@ -42,7 +42,7 @@ export const QuantityField = forwardRef<HTMLInputElement, QuantityFieldProps>(fu
           spellCheck={false}
           aria-invalid={message ? true : undefined}
           aria-describedby={describedBy}
-          className={`w-full min-w-0 rounded-md border bg-sheet py-2 pr-24 pl-3 font-mono text-sm leading-6 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none ${message ? 'border-caution' : 'border-rule'} ${className}`}
+          className={`w-full min-w-0 rounded-md border bg-sheet py-2 pr-24 pl-3 font-mono text-sm leading-6 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none focus:ring-2 focus:ring-agree/60 ${message ? 'border-caution' : 'border-rule'} ${className}`}
           {...rest}
         />
         {/* the value as understood, inside the box's right end so every field keeps the same width */}

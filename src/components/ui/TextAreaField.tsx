@@ -23,7 +23,7 @@ export const TextAreaField = forwardRef<HTMLTextAreaElement, TextAreaFieldProps>
         rows={rows}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${fieldId}-error` : hint ? `${fieldId}-hint` : undefined}
-        className={`w-full rounded-md border bg-sheet px-3 py-2 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none ${error ? 'border-caution' : 'border-rule'} ${className}`}
+        className={`w-full rounded-md border bg-sheet px-3 py-2 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none focus:ring-2 focus:ring-agree/60 ${error ? 'border-caution' : 'border-rule'} ${className}`}
         {...rest}
       />
       {hint && !error && (

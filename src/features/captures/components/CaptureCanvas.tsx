@@ -2,6 +2,7 @@ import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import { formatAxisValue, readChartTheme, SERIES_DRAW, useThemeVersion, withAlpha } from '../../../components/charts/chart-theme';
+import { attachZoomGestures } from '../../../components/charts/zoom-gestures';
 import type { CapturePlotData } from './plot-data';
 
 export interface LevelLine {
@@ -40,6 +41,10 @@ export interface CaptureCanvasProps {
   onSelectRange: (fromS: number, toS: number) => void;
   /** A click on the plot, snapped to the nearest capture sample drawn. */
   onPick: (cursor: PlotCursor) => void;
+  /** Wheel or pinch: scale the window by `factor` about the instant `anchorS`. */
+  onZoom?: (factor: number, anchorS: number) => void;
+  /** A double-click: the whole capture again. */
+  onShowAll?: () => void;
 }
 
 // a press that moves less than this is a click (a cursor), more is a drag (a zoom)
@@ -258,7 +263,12 @@ export default function CaptureCanvas(props: CaptureCanvasProps) {
     };
     u.over.addEventListener('pointerdown', onDown);
     u.over.addEventListener('pointerup', onUp);
+    const detachZoom = attachZoomGestures(u.over, {
+      onZoom: (factor, anchor) => latest.current.onZoom?.(factor, u.posToVal(anchor * u.over.clientWidth, 'x')),
+      onReset: () => latest.current.onShowAll?.(),
+    });
     return () => {
+      detachZoom();
       u.over.removeEventListener('pointerdown', onDown);
       u.over.removeEventListener('pointerup', onUp);
       u.destroy();
@@ -281,5 +291,6 @@ export default function CaptureCanvas(props: CaptureCanvasProps) {
     chart.current?.redraw(false);
   }, [props.levels, props.edges, props.cursors]);
 
-  return <div ref={host} className="ft-chart w-full touch-pan-y select-none" />;
+  // the window on screen, readable from outside (tests, and anyone inspecting the page)
+  return <div ref={host} className="ft-chart w-full touch-pan-y select-none" data-testid="capture-canvas" data-x-min={xRange[0]} data-x-max={xRange[1]} />;
 }

@@ -16,7 +16,9 @@ import { CaptureSettings } from './CaptureSettings';
 import { mergePlotData, withOtherTraces } from './plot-data';
 import { SpectrumPlot } from './SpectrumPlot';
 import { useUpdateCapture } from '../api/update-capture';
-import { clampWindow, panWindow, zoomWindow, type ViewWindow } from './view-window';
+import { clampWindow, panWindow, zoomWindow, zoomWindowAt, type ViewWindow } from './view-window';
+import { PlotDownloads } from '../../../components/charts/PlotDownloads';
+import { captureReadingRows } from './capture-readings';
 
 const CaptureCanvas = lazy(() => import('./CaptureCanvas'));
 
@@ -133,8 +135,17 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
     setView(next === null ? null : clampWindow(next, extent.startS, extent.endS, analysis.sampleIntervalS));
   };
   const current: ViewWindow = { fromS: xRange[0], toS: xRange[1] };
+  // cursors before each recent click, so the two clicks of a double-click (show all) place none
+  const picks = useRef<{ at: number; before: typeof cursors }[]>([]);
+  const showAllFromPlot = () => {
+    const recent = picks.current.find((p) => Date.now() - p.at < 800);
+    if (recent) setCursors(recent.before);
+    picks.current = [];
+    apply(null);
+  };
   const pick = (c: PlotCursor) =>
     setCursors((prev) => {
+      picks.current = [...picks.current.filter((p) => Date.now() - p.at < 800), { at: Date.now(), before: prev }];
       if (!prev.a) return { a: c };
       if (!prev.b) return { ...prev, b: c };
       return Math.abs(c.tS - prev.a.tS) <= Math.abs(c.tS - prev.b.tS) ? { ...prev, a: c } : { ...prev, b: c };
@@ -230,6 +241,8 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
               height={height}
               onSelectRange={(fromS, toS) => apply({ fromS, toS })}
               onPick={pick}
+              onZoom={(factor, anchorS) => apply(zoomWindowAt(current, factor, anchorS))}
+              onShowAll={showAllFromPlot}
             />
           </Suspense>
         ) : (
@@ -238,10 +251,16 @@ export default function CapturePlot({ attachment, setup, diagnosis, height = 300
           </p>
         )}
       </div>
-      <SpectrumPlot analysis={analysis} />
+      <SpectrumPlot analysis={analysis} name={attachment.originalName.replace(/\.[^.]+$/, '')} />
       </div>
       <CaptureSettings analysis={attachment.analysis ?? {}} setup={setup} />
-      <p className="text-xs text-muted">Drag across the plot to zoom into that stretch (or use the buttons); click or tap the trace to place cursor A, then B (a further click moves the nearer one).</p>
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <p className="text-xs text-muted">
+          Drag across the plot to zoom into that stretch, or scroll or pinch over it (or use the buttons); double-click to see it all. Click or tap the trace to place cursor A,
+          then B (a further click moves the nearer one).
+        </p>
+        <PlotDownloads plot={ref} name={`${attachment.originalName.replace(/\.[^.]+$/, '')} capture`} rows={() => captureReadingRows(analysis, current, cursors)} csvLabel="Download CSV (readings)" />
+      </div>
       <CaptureCursorReadout cursors={cursors} />
       <p id={summaryId} className="text-sm text-muted">
         {summary}

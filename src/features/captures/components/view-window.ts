@@ -34,3 +34,9 @@ export function panWindow(w: ViewWindow, share: number): ViewWindow {
   const stepS = (w.toS - w.fromS) * share;
   return { fromS: w.fromS + stepS, toS: w.toS + stepS };
 }
+
+/** The window scaled by `factor` about the instant `anchorS`, which stays where it is on screen (wheel and pinch). */
+export function zoomWindowAt(w: ViewWindow, factor: number, anchorS: number): ViewWindow {
+  const at = Math.min(w.toS, Math.max(w.fromS, anchorS));
+  return { fromS: at - (at - w.fromS) * factor, toS: at + (w.toS - at) * factor };
+}

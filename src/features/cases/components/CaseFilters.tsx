@@ -29,7 +29,7 @@ export function CaseFilters({ filters, onChange, active }: { filters: CaseListFi
   return (
     <form role="search" aria-label="Filter cases" onSubmit={(e) => e.preventDefault()} className="grid gap-3 sm:grid-cols-2 lg:grid-cols-6">
       <div className="sm:col-span-2">
-        <TextField label="Search" type="search" placeholder="title, symptom, narrative" value={q} onChange={(e) => setQ(e.target.value)} />
+        <TextField label="Search" type="search" placeholder="title, symptom, narrative" data-kb-search value={q} onChange={(e) => setQ(e.target.value)} />
       </div>
       <SelectField label="Cause" options={causeOptions} value={filters.cause ?? ''} onChange={(e) => onChange({ cause: e.target.value })} />
       <TextField label="Tag" placeholder="e.g. gate-drive" value={tag} onChange={(e) => setTag(e.target.value)} />

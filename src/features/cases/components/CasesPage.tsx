@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Alert } from '../../../components/ui/Alert';
+import { CopyLinkButton } from '../../../components/ui/CopyLinkButton';
 import { SelectField } from '../../../components/ui/Field';
 import { Loading, PageHeader, Panel } from '../../../components/ui/Panel';
 import { useCases } from '../api/list-cases';
@@ -63,6 +64,7 @@ export function CasesPage() {
               {data ? (data.total === 0 ? 'No cases' : `${first}–${last} of ${data.total} case${data.total === 1 ? '' : 's'}`) : ' '}
               {query.isFetching && data ? ' · updating…' : ''}
             </p>
+            <CopyLinkButton label="Copy link to this view" />
             <div className="w-full md:hidden">
               <SelectField label="Sort by" options={SORT_OPTIONS} value={SORT_OPTIONS.some((o) => o.value === sort) ? sort : '-updatedAt'} onChange={(e) => update({ sort: e.target.value })} />
             </div>

@@ -1,5 +1,6 @@
 import { createColumnHelper, rowPaginationFeature, rowSortingFeature, tableFeatures, useTable, type PaginationState, type SortingState, type Updater } from '@tanstack/react-table';
-import { Link } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
+import { useKeyboardList } from '../../../components/keyboard/use-keyboard-list';
 import type { CaseSummary } from '../../../../shared/schemas/case';
 import { CauseChip } from './CauseChip';
 import { StatusBadge } from './StatusBadge';
@@ -83,8 +84,10 @@ export function CasesTable({ rows, total, sort, page, pageSize, onSort, onPage }
     enableMultiSort: false,
     getRowId: (row) => String(row.id),
   });
+  const navigate = useNavigate();
+  const keyboard = useKeyboardList(rows, (c) => navigate(`/cases/${c.id}`));
   return (
-    <>
+    <div {...keyboard.listProps}>
       <table className="hidden w-full text-left text-sm md:table">
         <thead className="text-xs tracking-wide text-muted uppercase">
           {table.getHeaderGroups().map((group) => (
@@ -92,7 +95,7 @@ export function CasesTable({ rows, total, sort, page, pageSize, onSort, onPage }
               {group.headers.map((header) => {
                 const sorted = header.column.getIsSorted();
                 return (
-                  <th key={header.id} scope="col" className="pb-2 pr-3 font-semibold" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
+                  <th key={header.id} scope="col" className={`pb-2 pr-3 font-semibold ${header.column.id === 'title' ? 'pl-2.5' : ''}`} aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
                     {header.column.getCanSort() ? (
                       <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
                         <table.FlexRender header={header} />
@@ -110,10 +113,10 @@ export function CasesTable({ rows, total, sort, page, pageSize, onSort, onPage }
           ))}
         </thead>
         <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-t border-rule align-top">
+          {table.getRowModel().rows.map((row, i) => (
+            <tr key={row.id} className="border-t border-rule align-top" {...keyboard.rowProps(i)}>
               {row.getAllCells().map((cell) => (
-                <td key={cell.id} className={`py-2.5 pr-3 ${cell.column.id === 'title' ? 'max-w-[28rem]' : ''}`}>
+                <td key={cell.id} className={`py-2.5 pr-3 ${cell.column.id === 'title' ? 'max-w-[28rem] pl-2.5' : ''}`}>
                   <table.FlexRender cell={cell} />
                 </td>
               ))}
@@ -123,8 +126,8 @@ export function CasesTable({ rows, total, sort, page, pageSize, onSort, onPage }
       </table>
       {/* phones: the same rows as cards; the sort is chosen above the list */}
       <ul className="flex flex-col gap-2 md:hidden" aria-label="Cases">
-        {table.getRowModel().rows.map(({ original: c }) => (
-          <li key={c.id} className="rounded-md border border-rule bg-paper/50 p-3">
+        {table.getRowModel().rows.map(({ original: c }, i) => (
+          <li key={c.id} className="rounded-md border border-rule bg-paper/50 p-3" {...keyboard.rowProps(i)}>
             <Link to={`/cases/${c.id}`} className="font-serif font-bold">
               {c.title}
             </Link>
@@ -139,6 +142,6 @@ export function CasesTable({ rows, total, sort, page, pageSize, onSort, onPage }
           </li>
         ))}
       </ul>
-    </>
+    </div>
   );
 }

@@ -1,4 +1,5 @@
 import { useEffect, useState, type FormEvent } from 'react';
+import { CopyLinkButton } from '../../../components/ui/CopyLinkButton';
 import type { Assumption } from '../../../../shared/schemas/diagnosis';
 import { formatEngineering } from '../../../../shared/units/engineering';
 import { Button } from '../../../components/ui/Button';
@@ -129,6 +130,8 @@ export function DiagnoseForm({ form, assumptions }: { form: DiagnoseFormState; a
         <Button type="button" variant="secondary" onClick={form.clear}>
           Start over
         </Button>
+        {/* the address holds the setup once the server has run it; before that a link would show an older one */}
+        {form.server.current && <CopyLinkButton label="Copy link to this setup" />}
         <p className="basis-full text-xs text-muted">
           Results update as you type. Diagnose has the server recompute them and puts the setup in the address bar to share.
         </p>

@@ -1,8 +1,8 @@
 import { useCallback, useDeferredValue, useMemo, useState } from 'react';
-import { useSearchParams } from 'react-router-dom';
 import { diagnose } from '../../../../shared/diagnosis/ranker';
 import type { DiagnosisInput } from '../../../../shared/schemas/diagnosis';
 import { ApiError } from '../../../lib/api-client';
+import { useUrlState } from '../../../lib/url-state';
 import { useRunDiagnosis } from '../api/run-diagnosis';
 import { BLANK_VALUES, DEFAULT_VALUES, FIELDS, type DiagnoseValues, type FieldKey } from '../form/diagnose-fields';
 import type { DiagnosePreset } from '../form/presets';
@@ -18,7 +18,9 @@ export const fieldId = (key: FieldKey) => `diagnose-${key.replace('.', '-')}`;
  * diagnosis, and the server's run of the same input when "Diagnose" is pressed.
  */
 export function useDiagnoseForm() {
-  const [searchParams, setSearchParams] = useSearchParams();
+  const { params: searchParams, write } = useUrlState([]);
+  // the whole query is the form, so a write replaces it (and the entry: a fill is a correction, not a new place)
+  const setQuery = (query: URLSearchParams) => write(Object.fromEntries(query), { fresh: true, replace: true });
   const [initial] = useState(() => valuesFromQuery(searchParams));
   const [values, setValues] = useState<DiagnoseValues>(initial.values);
   const [touched, setTouched] = useState<ReadonlySet<FieldKey>>(() => new Set(initial.touched));
@@ -49,7 +51,7 @@ export function useDiagnoseForm() {
     setTouched(new Set());
     setShowAllErrors(false);
     server.reset();
-    setSearchParams(query, { replace: true });
+    setQuery(query);
   };
   const applyPreset = (preset: DiagnosePreset) => fill({ ...BLANK_VALUES, ...preset.values }, new URLSearchParams({ preset: preset.id }));
   const clear = () => fill(DEFAULT_VALUES, new URLSearchParams());
@@ -62,7 +64,7 @@ export function useDiagnoseForm() {
       return firstError;
     }
     server.mutate(reading.input);
-    setSearchParams(queryFromInput(reading.input), { replace: true });
+    setQuery(queryFromInput(reading.input));
     return undefined;
   };
 

@@ -41,11 +41,12 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
             </label>
             <input
               id="lesson-search"
+              data-kb-search
               type="search"
               value={text}
               onChange={(e) => setText(e.target.value)}
               placeholder="e.g. ground spring, 50 Ω, compensation"
-              className="w-full rounded-md border border-rule bg-sheet px-3 py-2 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none"
+              className="w-full rounded-md border border-rule bg-sheet px-3 py-2 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none focus:ring-2 focus:ring-agree/60"
             />
             <p className="text-xs text-muted" aria-live="polite">
               {lessons.data && (q ? `${count} lesson${count === 1 ? '' : 's'} match “${q}”.` : `${count} verified lesson${count === 1 ? '' : 's'}.`)}

@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
-import { useSearchParams } from 'react-router-dom';
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { useKeyboardList } from '../../../components/keyboard/use-keyboard-list';
 import { CAUSE_LABELS, CAUSES } from '../../../../shared/schemas/diagnosis';
 import { Alert } from '../../../components/ui/Alert';
 import { Loading, PageHeader, Panel } from '../../../components/ui/Panel';
@@ -8,6 +9,8 @@ import { QueueEntryCard } from './QueueEntryCard';
 import { ReviewNav } from './ReviewNav';
 
 const CAUSE_OPTIONS = [{ value: '', label: 'Any cause' }, ...CAUSES.map((c) => ({ value: c, label: CAUSE_LABELS[c] })), { value: 'other', label: 'Other cause' }];
+
+const NO_ENTRIES: never[] = [];
 
 /** The review desk: cases waiting for a moderator, oldest first, filters in the address. */
 export function ReviewDeskPage() {
@@ -30,7 +33,9 @@ export function ReviewDeskPage() {
     setParams(next, { replace: true });
   };
 
-  const entries = queue.data?.queue ?? [];
+  const entries = queue.data?.queue ?? NO_ENTRIES;
+  const navigate = useNavigate();
+  const keyboard = useKeyboardList(entries, (entry) => navigate(`/cases/${entry.case.id}`));
   const filtered = Boolean(cause || attention);
   return (
     <>
@@ -86,9 +91,9 @@ export function ReviewDeskPage() {
             </p>
           </Panel>
         )}
-        <ol className="flex flex-col gap-5" aria-label="Cases waiting for review">
-          {entries.map((entry) => (
-            <li key={entry.case.id}>
+        <ol className="flex flex-col gap-5" aria-label="Cases waiting for review" {...keyboard.listProps}>
+          {entries.map((entry, i) => (
+            <li key={entry.case.id} className="rounded-lg" {...keyboard.rowProps(i)}>
               <QueueEntryCard entry={entry} now={now} onDone={setDone} />
             </li>
           ))}

@@ -1,9 +1,14 @@
-import { useId, useState } from 'react';
+import { useId } from 'react';
+import { useLocation, useNavigate } from 'react-router-dom';
+import { useKeyboardList } from '../../../components/keyboard/use-keyboard-list';
+import { CopyLinkButton } from '../../../components/ui/CopyLinkButton';
 import { Loading } from '../../../components/ui/Panel';
 import { useSearchCases } from '../api/search-cases';
-import { useDebouncedValue } from '../hooks/use-debounced-value';
-import { SearchFacets, type FacetFilters } from './SearchFacets';
+import { useSearchAddress } from '../hooks/use-search-address';
+import { SearchFacets } from './SearchFacets';
 import { SearchResultItem } from './SearchResultItem';
+
+const NO_RESULTS: never[] = [];
 
 /** The symptom chips of the Bench; each reads as an observation the engine can diagnose. */
 export const SYMPTOM_CHIPS = [
@@ -25,14 +30,16 @@ export const SYMPTOM_CHIPS = [
  * query was read ("read as: amplitude ×0.1 → attenuation mismatch"), lists results with the
  * matched words marked and links to each case, and offers facet filters and symptom chips.
  */
-export function BenchSearch({ initialQuery = '', pageSize = 10 }: { initialQuery?: string; pageSize?: number }) {
+export function BenchSearch({ pageSize = 10 }: { pageSize?: number }) {
   const id = useId();
-  const [text, setText] = useState(initialQuery);
-  const [filters, setFilters] = useState<FacetFilters>({});
-  const q = useDebouncedValue(text, 200);
+  const navigate = useNavigate();
+  // `/` pressed on a page without a search box comes here to type
+  const focusRequested = Boolean((useLocation().state as { focusSearch?: boolean } | null)?.focusSearch);
+  const { text, setText, q, filters, setFilters, startSearch } = useSearchAddress();
   const search = useSearchCases({ q, ...filters, pageSize });
   const data = search.data;
   const active = q.trim() !== '' || Boolean(filters.cause || filters.tag || filters.status);
+  const keyboard = useKeyboardList(data?.results ?? NO_RESULTS, (r) => navigate(`/cases/${r.id}`));
 
   return (
     <div className="flex flex-col gap-4">
@@ -47,7 +54,9 @@ export function BenchSearch({ initialQuery = '', pageSize = 10 }: { initialQuery
           onChange={(e) => setText(e.target.value)}
           placeholder="e.g. reads a tenth of the expected 3.3 V, ringing at 120 MHz"
           autoComplete="off"
-          className="mt-1 w-full rounded-md border border-rule bg-paper px-3 py-3 text-lg focus:border-ink focus:outline-none"
+          autoFocus={focusRequested}
+          data-kb-search
+          className="mt-1 w-full rounded-md border border-rule bg-paper px-3 py-3 text-lg focus:border-ink focus:outline-none focus:ring-2 focus:ring-agree/60"
           aria-describedby={`${id}-reading`}
         />
         <p id={`${id}-reading`} className="mt-2 min-h-5 font-mono text-sm text-agree" aria-live="polite" data-testid="search-reading">
@@ -58,10 +67,7 @@ export function BenchSearch({ initialQuery = '', pageSize = 10 }: { initialQuery
             <li key={chip}>
               <button
                 type="button"
-                onClick={() => {
-                  setText(`${chip} `);
-                  setFilters({});
-                }}
+                onClick={() => startSearch(`${chip} `)}
                 className="rounded-full border border-rule px-3 py-1 text-sm hover:border-ink"
               >
                 {chip}
@@ -78,12 +84,15 @@ export function BenchSearch({ initialQuery = '', pageSize = 10 }: { initialQuery
             {search.isError && <p className="text-sm text-caution">{search.error.message}</p>}
             {data && (
               <>
-                <p className="text-sm text-muted" data-testid="search-total">
-                  {data.total === 0 ? 'No case matches yet. Try fewer words, or a symptom chip.' : `${data.total} case${data.total === 1 ? '' : 's'}`}
-                </p>
-                <ul className="flex flex-col divide-y divide-rule/70">
-                  {data.results.map((r) => (
-                    <SearchResultItem key={r.id} result={r} />
+                <div className="flex flex-wrap items-center justify-between gap-2">
+                  <p className="text-sm text-muted" data-testid="search-total">
+                    {data.total === 0 ? 'No case matches yet. Try fewer words, or a symptom chip.' : `${data.total} case${data.total === 1 ? '' : 's'}`}
+                  </p>
+                  <CopyLinkButton label="Copy link to this search" />
+                </div>
+                <ul className="flex flex-col divide-y divide-rule/70" {...keyboard.listProps}>
+                  {data.results.map((r, i) => (
+                    <SearchResultItem key={r.id} result={r} rowProps={keyboard.rowProps(i)} />
                   ))}
                 </ul>
               </>

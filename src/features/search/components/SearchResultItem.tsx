@@ -6,12 +6,12 @@ import { HighlightedText } from './HighlightedText';
 const FIELD_LABELS = { title: 'Title', summary: 'Summary', narrative: 'Narrative', fix: 'Fix', lesson: 'Lesson' } as const;
 
 /** One search result: the title (marked where it matched), the cause, and where else it matched. */
-export function SearchResultItem({ result }: { result: SearchResult }) {
+export function SearchResultItem({ result, rowProps }: { result: SearchResult; rowProps?: Record<string, unknown> }) {
   const title = result.highlights.find((h) => h.field === 'title');
   const summary = result.highlights.find((h) => h.field === 'summary');
   const snippets = result.highlights.filter((h) => h.field !== 'title' && h.field !== 'summary');
   return (
-    <li className="flex flex-col gap-1 py-3" data-testid="search-result">
+    <li className="-mx-2 flex flex-col gap-1 px-2 py-3" data-testid="search-result" {...rowProps}>
       <Link to={`/cases/${result.id}`} className="font-serif text-lg font-bold hover:underline">
         {title ? <HighlightedText text={title.text} ranges={title.ranges} /> : result.title}
       </Link>

@@ -14,10 +14,10 @@ Stages in cascade add their rise times **in quadrature** (root of the sum of squ
 
 Count each stage once. A probe's data-sheet bandwidth is usually the bandwidth *with the scope it is matched to*: that figure is the system's, not a second stage. Leave the probe's bandwidth blank for a matched probe and the engine takes the scope's figure as the whole system's; a 500 MHz probe and a 500 MHz scope added again in quadrature would wrongly make a 354 MHz system. A bandwidth-limit filter is always a stage of its own.`,
   formulas: [
-    { text: 't_r ≈ 0.35 / BW', meaning: 'one stage (exactly ln 9 / 2π = 0.3497)' },
-    { text: 't_shown = √(t_signal² + t_probe² + t_scope² + t_limit²)', meaning: 'stages in cascade' },
-    { text: 'BW_needed ≈ (3 … 5) × 0.35 / t_edge', meaning: 'rule of thumb for a true reading' },
-    { text: 'V_pp,shown / V_pp = tanh(T / 4τ)', meaning: 'a square wave of period T through one pole τ' },
+    { tex: String.raw`t_r \approx \frac{0.35}{\text{BW}}`, meaning: 'one stage (exactly ln 9 / 2π = 0.3497)' },
+    { tex: String.raw`t_\text{shown} = \sqrt{t_\text{signal}^2 + t_\text{probe}^2 + t_\text{scope}^2 + t_\text{limit}^2}`, meaning: 'stages in cascade' },
+    { tex: String.raw`\text{BW}_\text{needed} \approx (3 \ldots 5) \times \frac{0.35}{t_\text{edge}}`, meaning: 'rule of thumb for a true reading' },
+    { tex: String.raw`\frac{V_\text{pp,shown}}{V_\text{pp}} = \tanh\frac{T}{4\tau}`, meaning: 'a square wave of period T through one pole τ' },
   ],
   example: `A 2 ns edge on a matched 500 MHz probe and scope (0.7 ns) with the 20 MHz limit on (17.5 ns): √(2² + 0.7² + 17.5²) ns ≈ **17.6 ns**.`,
   diagnose: {
@@ -56,11 +56,11 @@ When they differ, an edge first jumps to the capacitive ratio and then settles t
 
 Every input has a slightly different capacitance, and it sits in C2. Moving a probe adjusted on a 16 pF input to a 20 pF one adds 4 pF to C2: the capacitive ratio drops, the probe is now **under**-compensated, and the corners round off. Adding capacitance never makes a spike.`,
   formulas: [
-    { text: 'jump = C1 / (C1 + C2)', meaning: 'level right after the edge' },
-    { text: 'settle = R2 / (R1 + R2)', meaning: 'level it decays to' },
-    { text: 'τ = (R1 ∥ R2) · (C1 + C2)', meaning: 'how long the decay takes' },
-    { text: 'R1·C1 = R2·C2', meaning: 'flat: correctly compensated' },
-    { text: 'corner = (jump / settle − 1) × 100 %', meaning: 'overshoot (+) or undershoot (−)' },
+    { tex: String.raw`\text{jump} = \frac{C_1}{C_1 + C_2}`, meaning: 'level right after the edge' },
+    { tex: String.raw`\text{settle} = \frac{R_2}{R_1 + R_2}`, meaning: 'level it decays to' },
+    { tex: String.raw`\tau = (R_1 \parallel R_2) \, (C_1 + C_2)`, meaning: 'how long the decay takes' },
+    { tex: String.raw`R_1 C_1 = R_2 C_2`, meaning: 'flat: correctly compensated' },
+    { tex: String.raw`\text{corner} = \left(\frac{\text{jump}}{\text{settle}} - 1\right) \times 100\,\%`, meaning: 'overshoot (+) or undershoot (−)' },
   ],
   example: `A 10x probe with 11 pF at the tip has C1 ≈ 12.2 pF and C2 = 110 pF when trimmed; τ ≈ 0.9 MΩ × 122 pF ≈ **110 µs**, which is why a 1 kHz square shows the corners best.
 
@@ -95,10 +95,10 @@ export const GROUND_LEAD_TOPIC: HelpTopic = {
 
 The straight-wire formula gives the inductance from length and wire radius; the resonance is 1/(2π√(LC)); the damping ratio sets the overshoot. Counting only the source resistance gives an upper bound on the overshoot: the probe's lossy cable and the lead's own resistance damp it further. Working backwards, an observed ringing frequency gives the inductance and so the lead length — if that comes out as the length of the clip lead, the lead is the culprit. An edge much slower than the ring period excites it less.`,
   formulas: [
-    { text: 'L ≈ (μ0·l / 2π) · (ln(2l / r) − 3/4)', meaning: 'straight round wire, length l, radius r' },
-    { text: 'f_ring = 1 / (2π · √(L · C))', meaning: 'resonance with the tip capacitance' },
-    { text: 'ζ = (R_s / 2) · √(C / L)', meaning: 'damping from the source resistance' },
-    { text: 'overshoot = exp(−π·ζ / √(1 − ζ²)) × 100 %', meaning: 'ideal step, ζ < 1' },
+    { tex: String.raw`L \approx \frac{\mu_0 l}{2\pi} \left(\ln\frac{2l}{r} - \frac{3}{4}\right)`, meaning: 'straight round wire, length l, radius r' },
+    { tex: String.raw`f_\text{ring} = \frac{1}{2\pi\sqrt{L C}}`, meaning: 'resonance with the tip capacitance' },
+    { tex: String.raw`\zeta = \frac{R_s}{2} \sqrt{\frac{C}{L}}`, meaning: 'damping from the source resistance' },
+    { tex: String.raw`\text{overshoot} = \exp\left(\frac{-\pi\zeta}{\sqrt{1 - \zeta^2}}\right) \times 100\,\%`, meaning: 'ideal step, ζ < 1' },
   ],
   example: `15 cm of 0.5 mm wire: L ≈ 190 nH. With 11 pF at the tip: f ≈ 1 / (2π √(190 nH × 11 pF)) ≈ **110 MHz**. A 5 Ω source gives ζ ≈ 0.02 — almost no damping.`,
   diagnose: {

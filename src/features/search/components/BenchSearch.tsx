@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { Loading } from '../../../components/ui/Panel';
 import { useSearchCases } from '../api/search-cases';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
@@ -25,7 +25,16 @@ export const SYMPTOM_CHIPS = [
  * query was read ("read as: amplitude ×0.1 → attenuation mismatch"), lists results with the
  * matched words marked and links to each case, and offers facet filters and symptom chips.
  */
-export function BenchSearch({ initialQuery = '', pageSize = 10 }: { initialQuery?: string; pageSize?: number }) {
+export function BenchSearch({
+  initialQuery = '',
+  pageSize = 10,
+  actions,
+}: {
+  initialQuery?: string;
+  pageSize?: number;
+  /** Shown under the box for the search as it stands (the Bench puts "Save this search" here). */
+  actions?: (current: { q: string; cause?: string; tag?: string }) => ReactNode;
+}) {
   const id = useId();
   const [text, setText] = useState(initialQuery);
   const [filters, setFilters] = useState<FacetFilters>({});
@@ -70,6 +79,8 @@ export function BenchSearch({ initialQuery = '', pageSize = 10 }: { initialQuery
           ))}
         </ul>
       </form>
+
+      {active && actions?.({ q, cause: filters.cause, tag: filters.tag })}
 
       {active && (
         <div className="grid gap-6 md:grid-cols-[1fr_14rem]">

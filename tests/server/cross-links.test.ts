@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { referencedCaseIds } from '../../shared/cases/case-references';
+import { createMigrator, migrateToLatest } from '../../server/db/migrate';
 import { createTestContext, invitedEngineer, signedIn, type TestContext } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
@@ -92,6 +93,17 @@ describe('cross-links between cases follow the visibility policy', () => {
     expect(forEngineer).toEqual([{ id: privateLinker, title: 'Private linker' }]);
     const draftForAuthor = (await colleague.get(`/api/cases/${secretDraft}`).expect(200)).body.case.referredBy;
     expect(draftForAuthor).toEqual([{ id: linking, title: 'Verified case that links' }]);
+  });
+
+  it('should fill the link table from the texts already written when the migration runs', async () => {
+    const before = await ctx.db.selectFrom('case_references').selectAll().orderBy('source_case_id').orderBy('target_case_id').execute();
+    expect(before.length).toBeGreaterThan(0);
+    const migrator = createMigrator(ctx.db);
+    // undo the saved searches and the link table, then bring them back: the links come back from the texts
+    for (let i = 0; i < 2; i++) expect((await migrator.migrateDown()).error).toBeUndefined();
+    await migrateToLatest(ctx.db);
+    const after = await ctx.db.selectFrom('case_references').selectAll().orderBy('source_case_id').orderBy('target_case_id').execute();
+    expect(after).toEqual(before);
   });
 
   it('should forget a link when the text no longer has it', async () => {

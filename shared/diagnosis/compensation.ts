@@ -206,8 +206,8 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
       deviation: Math.abs(Math.log(1 + recordedK)),
       predicted: setup.hasEdges || moved ? predictedFor(setup, divider) : {},
       explanation: moved
-        ? `A compensated probe keeps R1·C1 = R2·C2.${movedText} Signals much faster than τ ≈ ${eng(levels.timeConstantS, 's')} show that capacitive ratio as an amplitude error with flat tops; slower ones show it at the corners.`
-        : `No compensation state is recorded, so the probe is taken as adjusted: R1·C1 = R2·C2 (${eng(divider.tipResistanceOhm, 'Ω')} · ${eng(divider.tipCapacitanceF, 'F')} = ${eng(divider.inputResistanceOhm, 'Ω')} · ${eng(divider.inputCapacitanceF, 'F')}) and square-wave tops are flat. Out of adjustment, an edge would jump to C1/(C1+C2) and settle to R2/(R1+R2) = ${percent(levels.settle * 100)} with τ ≈ ${eng(levels.timeConstantS, 's')}; signals much faster than τ would show the capacitive ratio as an amplitude error.`,
+        ? `A compensated probe keeps $R_1 C_1 = R_2 C_2$.${movedText} Signals much faster than τ ≈ ${eng(levels.timeConstantS, 's')} show that capacitive ratio as an amplitude error with flat tops; slower ones show it at the corners.`
+        : `No compensation state is recorded, so the probe is taken as adjusted: $R_1 C_1 = R_2 C_2$ (${eng(divider.tipResistanceOhm, 'Ω')} · ${eng(divider.tipCapacitanceF, 'F')} = ${eng(divider.inputResistanceOhm, 'Ω')} · ${eng(divider.inputCapacitanceF, 'F')}) and square-wave tops are flat. Out of adjustment, an edge would jump to $C_1/(C_1+C_2)$ and settle to $R_2/(R_1+R_2)$ = ${percent(levels.settle * 100)} with τ ≈ ${eng(levels.timeConstantS, 's')}; signals much faster than τ would show the capacitive ratio as an amplitude error.`,
       confirm: CONFIRM,
       fix: "Check the probe on this scope's calibrator square wave and turn the trimmer until the top is flat.",
       estimates: { timeConstantS: levels.timeConstantS, balancedTipCapacitanceF: balancedDividerOf(setup).tipCapacitanceF, ...(moved ? { scopeChangeDeltaC2F: deltaC2F, jumpRatio: levels.jump, settleRatio: levels.settle } : {}) },

@@ -8,7 +8,7 @@ export const ALIASING_TOPIC: HelpTopic = {
   onScreen: `- The trace **looks slower than it is**: a 1 MHz clock drawn as a lazy 2 kHz wave, or a steady PWM that seems to crawl.
 - The frequency on screen **jumps when you change the timebase**, where a real signal would stay put.
 - Edges look uneven from cycle to cycle, or the trace looks like a smear of dots at long timebases.`,
-  physics: `A digital scope does not see the signal, only samples of it taken f_s times a second. Samples can only describe frequencies up to **half the sample rate**, f_s/2. A sine above that produces exactly the same samples as a slower one at **|f − k·f_s|** (k the nearest whole multiple): the record cannot tell them apart, so the screen draws the slow one.
+  physics: `A digital scope does not see the signal, only samples of it taken f_s times a second. Samples can only describe frequencies up to **half the sample rate**, f_s/2. A sine above that produces exactly the same samples as a slower one at $\\lvert f - k f_s \\rvert$ (k the nearest whole multiple): the record cannot tell them apart, so the screen draws the slow one.
 
 Most scopes lower the sample rate when the timebase gets longer (the memory is fixed), so a setup that was fine at 1 µs/div can alias at 1 ms/div. A square wave's harmonics fold too, long before its fundamental does.`,
   formulas: [
@@ -72,7 +72,7 @@ export const AC_COUPLING_TOPIC: HelpTopic = {
 - Low-frequency sines come out smaller than they are.`,
   physics: `AC coupling puts a capacitor in series with the input: with the 1 MΩ input resistor it is a **first-order high-pass** with a corner of a few Hz (the data-sheet figure, for a low-impedance source; about 10 Hz if not recorded). A passive probe's tip resistor is in series with the input at these frequencies, so a 10x probe lowers the corner tenfold: f_c × R_in / (R_tip + R_in).
 
-Each edge of a square passes whole; during the flat part the level decays toward zero with τ = 1/(2π f_c). In steady state the top droops by **tanh(T/4τ)** of the step (T the period) — for slow droop about π·f_c/(2f).`,
+Each edge of a square passes whole; during the flat part the level decays toward zero with $\\tau = 1/(2\\pi f_c)$. In steady state the top droops by $\\tanh(T/4\\tau)$ of the step (T the period) — for slow droop about π·f_c/(2f).`,
   formulas: [
     { tex: String.raw`f_\text{eff} = f_c \times \frac{R_\text{in}}{R_s + R_\text{tip} + R_\text{in}}`, meaning: 'corner behind a probe tip resistor' },
     { tex: String.raw`\text{tilt} = \tanh\frac{T}{4\tau} = \tanh\frac{\pi f_c}{2f}`, meaning: 'droop across each top, share of the step' },

@@ -45,7 +45,7 @@ On a **50 Ω** input the bottom of the divider becomes 50 Ω ∥ C2, and the div
 
 - At DC and low frequency the resistors set it: 50 Ω / (9 MΩ + 50 Ω), about 1/180 000, while the channel still multiplies by 10.
 - Above a few kHz, C1's reactance replaces the 9 MΩ and the ratio rises with frequency.
-- A fast edge passes the capacitive divider **C1/(C1+C2)**, about a tenth, and then decays through the 50 Ω with **τ = 50 Ω·(C1+C2)**, about 6 ns. An edge slower than τ gives a lower needle.
+- A fast edge passes the capacitive divider $C_1/(C_1+C_2)$, about a tenth, and then decays through the 50 Ω with $\\tau = 50\\,\\Omega \\cdot (C_1 + C_2)$, about 6 ns. An edge slower than τ gives a lower needle.
 
 A 50 Ω input also has a power limit: it dissipates V²/50 Ω, and typical inputs are rated about 5 V rms (half a watt). A passive probe does not make it safe: the needles put a tenth of every edge across the 50 Ω — 40 V for a 400 V switch node — and at a high switching rate they add up to real power. A direct cable from a strong source can damage the input outright.`,
   formulas: [

@@ -8,7 +8,7 @@ export const BANDWIDTH_TOPIC: HelpTopic = {
   onScreen: `- Measured **rise times are longer** than the part's data sheet or simulation, and do not improve when the circuit is made faster.
 - Fast square waves look **rounded, even sinusoidal**, and their amplitude drops.
 - A small "BW" marker next to the channel, or a 1x probe, is often the giveaway.`,
-  physics: `Every stage between the circuit and the screen — probe, scope front end, any bandwidth-limit filter — behaves roughly like a low-pass filter. A single-pole low-pass with bandwidth BW turns an ideal step into an exponential whose 10 %–90 % rise time is ln 9 / (2π · BW), which is the familiar **0.35 / BW**.
+  physics: `Every stage between the circuit and the screen — probe, scope front end, any bandwidth-limit filter — behaves roughly like a low-pass filter. A single-pole low-pass with bandwidth BW turns an ideal step into an exponential whose 10 %–90 % rise time is $\\ln 9 / (2\\pi \\cdot \\text{BW})$, which is the familiar $0.35 / \\text{BW}$.
 
 Stages in cascade add their rise times **in quadrature** (root of the sum of squares). So the edge you see is never faster than the slowest stage, and a system only 1–2× faster than the edge measures mostly itself. A 1x passive probe has only a few MHz of bandwidth; a 20 MHz limit filter alone makes every edge at least 17.5 ns.
 
@@ -50,7 +50,7 @@ export const COMPENSATION_TOPIC: HelpTopic = {
 - The error decays **smoothly and slowly** — over tens to hundreds of microseconds — with no ringing.
 - On signals much faster than that decay (a clock of several MHz) there is no visible corner at all: the **whole amplitude is off** by the same percentage, with flat tops.
 - It appears after the probe was moved to another scope or channel: **more input capacitance rounds the corners** (and reads fast signals low), less makes them spike.`,
-  physics: `A 10x passive probe is two RC sections in series: the tip resistor R1 with a small capacitor C1 across it, over the scope input R2 with everything in parallel with it, C2 (input, cable, trimmer). At low frequency the resistors set the ratio; at high frequency the capacitors do. The divider is flat for all frequencies only when the two sections have the same time constant, **R1·C1 = R2·C2** — that is what the trimmer adjusts.
+  physics: `A 10x passive probe is two RC sections in series: the tip resistor R1 with a small capacitor C1 across it, over the scope input R2 with everything in parallel with it, C2 (input, cable, trimmer). At low frequency the resistors set the ratio; at high frequency the capacitors do. The divider is flat for all frequencies only when the two sections have the same time constant, $R_1 C_1 = R_2 C_2$ — that is what the trimmer adjusts.
 
 When they differ, an edge first jumps to the capacitive ratio and then settles to the resistive one with the divider's time constant. A signal much faster than that time constant never settles: it is divided by the capacitive ratio throughout, so its amplitude is off by the corner error and its tops are flat.
 
@@ -93,7 +93,7 @@ export const GROUND_LEAD_TOPIC: HelpTopic = {
 - The circuit works fine; only the measurement rings.`,
   physics: `The probe's ground lead is a wire, and a wire has inductance — about 1 nH per millimetre for a thin lead, so a 15 cm clip lead is near 190 nH. Together with the capacitance at the probe tip it forms a **series resonant circuit** driven by the edge. The source resistance is the only damping, and a low-impedance driver barely damps it.
 
-The straight-wire formula gives the inductance from length and wire radius; the resonance is 1/(2π√(LC)); the damping ratio sets the overshoot. Counting only the source resistance gives an upper bound on the overshoot: the probe's lossy cable and the lead's own resistance damp it further. Working backwards, an observed ringing frequency gives the inductance and so the lead length — if that comes out as the length of the clip lead, the lead is the culprit. An edge much slower than the ring period excites it less.`,
+The straight-wire formula gives the inductance from length and wire radius; the resonance is $1/(2\\pi\\sqrt{LC})$; the damping ratio sets the overshoot. Counting only the source resistance gives an upper bound on the overshoot: the probe's lossy cable and the lead's own resistance damp it further. Working backwards, an observed ringing frequency gives the inductance and so the lead length — if that comes out as the length of the clip lead, the lead is the culprit. An edge much slower than the ring period excites it less.`,
   formulas: [
     { tex: String.raw`L \approx \frac{\mu_0 l}{2\pi} \left(\ln\frac{2l}{r} - \frac{3}{4}\right)`, meaning: 'straight round wire, length l, radius r' },
     { tex: String.raw`f_\text{ring} = \frac{1}{2\pi\sqrt{L C}}`, meaning: 'resonance with the tip capacitance' },

@@ -233,7 +233,7 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
     hiddenPrior: HIDDEN_TRIMMER_PRIOR * Math.exp(-Math.abs(k) / TYPICAL_TRIMMER_ERROR),
     deviation: Math.abs(Math.log(1 + k)),
     predicted: predictedFor(setup, fitted),
-    explanation: `The trace fits a probe ${over ? 'over' : 'under'}-compensated by ${percent(Math.abs(k) * 100)}: ${seenAs}. The fast divider C1/(C1+C2) passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(fitted.tipCapacitanceF, 'F')} instead of the ${eng(divider.tipCapacitanceF, 'F')} that balances R2·C2.`,
+    explanation: `The trace fits a probe ${over ? 'over' : 'under'}-compensated by ${percent(Math.abs(k) * 100)}: ${seenAs}. The fast divider $C_1/(C_1+C_2)$ passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(fitted.tipCapacitanceF, 'F')} instead of the ${eng(divider.tipCapacitanceF, 'F')} that balances R2·C2.`,
     confirm: CONFIRM,
     fix: `On the calibrator square wave, turn the compensation trimmer to ${over ? 'reduce' : 'increase'} the high-frequency gain until the corners are square, with no spike and no rounding.`,
     estimates: {

@@ -1,3 +1,4 @@
+import { causeLabel } from '../../../components/ui/CauseChip';
 import { useId, useState } from 'react';
 import { SAVED_SEARCH_DELIVERIES, type SavedSearchDelivery } from '../../../../shared/schemas/saved-searches';
 import { Button } from '../../../components/ui/Button';
@@ -70,7 +71,7 @@ export function SaveSearchButton({ search }: { search: CurrentSearch }) {
         />
         <p className="text-xs text-muted">
           Words: <span className="font-mono">{search.q.trim() || '(none)'}</span>
-          {search.cause && <> · cause {search.cause}</>}
+          {search.cause && <> · cause: {causeLabel(search.cause)}</>}
           {search.tag && <> · tag {search.tag}</>}
         </p>
       </div>

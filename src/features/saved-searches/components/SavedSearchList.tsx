@@ -1,3 +1,4 @@
+import { causeLabel } from '../../../components/ui/CauseChip';
 import { Link } from 'react-router-dom';
 import { Alert } from '../../../components/ui/Alert';
 import { Loading, Panel } from '../../../components/ui/Panel';
@@ -26,7 +27,7 @@ export function SavedSearchList() {
                   <p className="font-semibold break-words">{s.name}</p>
                   <p className="text-xs text-muted">
                     <span className="font-mono">{s.q || '(no words)'}</span>
-                    {s.cause && <> · cause {s.cause}</>}
+                    {s.cause && <> · cause: {causeLabel(s.cause)}</>}
                     {s.tag && <> · tag {s.tag}</>} · {s.delivery === 'mail' ? 'mail at once' : 'daily digest'}
                   </p>
                 </div>

@@ -26,6 +26,7 @@ import { commentRoutes } from './routes/comments';
 import { diagnosisRoutes } from './routes/diagnosis';
 import { lessonRoutes } from './routes/lessons';
 import { notificationRoutes } from './routes/notifications';
+import { savedSearchRoutes } from './routes/saved-searches';
 import { outboxRoutes } from './routes/outbox';
 import { peopleRoutes } from './routes/people';
 import { profileRoutes } from './routes/profile';
@@ -105,6 +106,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   app.use('/api/auth', authRoutes(deps, passport, csrf.tokenFor));
   app.use('/api/profile', profileRoutes(deps));
   app.use('/api/profile', notificationRoutes(deps));
+  app.use('/api/profile/saved-searches', savedSearchRoutes(deps));
   app.use('/api/admin/people', peopleRoutes(deps));
   app.use('/api/admin/casebook', casebookRoutes(deps));
   app.use('/api/admin/backup', backupRoutes(deps));

@@ -212,7 +212,24 @@ export interface AppStateTable {
   value: string;
 }
 
+export interface CaseReferencesTable {
+  source_case_id: number;
+  comment_id: number | null;
+  target_case_id: number;
+}
+
+export interface SavedSearchesTable {
+  id: Generated<number>;
+  user_id: number;
+  name: string;
+  query: string;
+  delivery: 'mail' | 'digest';
+  created_at: string;
+}
+
 export interface Database {
+  case_references: CaseReferencesTable;
+  saved_searches: SavedSearchesTable;
   app_state: AppStateTable;
   audit_log: AuditLogTable;
   mail_queue: MailQueueTable;

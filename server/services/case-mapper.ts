@@ -64,5 +64,8 @@ export function toCase(row: CaseRowWithAuthor, tags: string[], attachments: Atta
     reviewNote: row.review_note,
     submittedAt: row.submitted_at,
     permissions: { edit: canEditCase(actor, facts), submit: canSubmitCase(actor, facts), comment: canCommentOnCase(actor, facts) },
+    // filled by loadCase, which asks the visibility policy for each linked case
+    references: [],
+    referredBy: [],
   };
 }

@@ -14,6 +14,7 @@ import { recomputeDiagnosis } from './case-diagnosis';
 import { moderatorIds, notifyUsers } from './notifications';
 import { canonicalTags } from './tags';
 import { toCase, toCaseSummary } from './case-mapper';
+import { recordWriteUpReferences, visibleReferences, visibleReferrers } from './case-references';
 
 /** The case row if the actor may see it; a 404 otherwise, so existence does not leak. */
 export async function visibleCaseRow(db: Db, actor: Actor, id: number): Promise<CaseRowWithAuthor> {
@@ -25,7 +26,11 @@ export async function visibleCaseRow(db: Db, actor: Actor, id: number): Promise<
 export async function loadCase(db: Db, actor: Actor, id: number): Promise<Case> {
   const row = await visibleCaseRow(db, actor, id);
   const tags = (await tagsOfCases(db, [id])).get(id) ?? [];
-  return toCase(row, tags, await listAttachments(db, id), actor);
+  return {
+    ...toCase(row, tags, await listAttachments(db, id), actor),
+    references: await visibleReferences(db, actor, row.narrative, row.lesson_detail),
+    referredBy: await visibleReferrers(db, actor, id),
+  };
 }
 
 const authorTagsOf = async (db: Db, id: number) =>
@@ -77,6 +82,7 @@ export async function createCase({ db, search }: AppDeps, actor: Actor, input: C
     });
     await replaceCaseTags(trx, id, 'author', tags);
     await replaceCaseTags(trx, id, 'engine', d.engineTags);
+    await recordWriteUpReferences(trx, id, input.narrative ?? '', input.lessonDetail ?? null);
     // authors follow their own cases
     await watchCase(trx, actor.id, id);
     return id;
@@ -130,6 +136,9 @@ export async function updateCase({ db, search }: AppDeps, actor: Actor, id: numb
     });
     if (tags) await replaceCaseTags(trx, id, 'author', tags);
     await replaceCaseTags(trx, id, 'engine', d.engineTags);
+    if (input.narrative !== undefined || input.lessonDetail !== undefined) {
+      await recordWriteUpReferences(trx, id, input.narrative ?? row.narrative, input.lessonDetail !== undefined ? input.lessonDetail : row.lesson_detail);
+    }
     // drafts change freely; once submitted, every save is kept for the history
     if (row.submitted_at) await insertRevision(trx, id, actor.id, await snapshotOf(trx, id), now);
     if (actor.id !== row.author_id) {

@@ -2,12 +2,15 @@ import { canSeeCase } from '../../shared/auth/case-policy';
 import { canModerate, type Actor } from '../../shared/auth/roles';
 import type { Comment } from '../../shared/schemas/case';
 import { deleteComment, findComment, insertComment, listComments, updateComment, type CommentRow } from '../db/repositories/comments';
+import type { Db } from '../db/database';
 import type { AppDeps } from '../deps';
 import { forbidden, invalid, notFound } from '../errors';
 import { visibleCaseRow } from './cases';
+import { recordCommentReferences, visibleReferencesOfEach } from './case-references';
+import type { CaseReference } from '../../shared/cases/case-references';
 import { audienceOf, mentionedUserIds, notifyUsers } from './notifications';
 
-function toComment(row: CommentRow, actor: Actor): Comment {
+function toComment(row: CommentRow, actor: Actor, references: CaseReference[] = []): Comment {
   const own = row.author_id === actor.id;
   const hidden = row.hidden === 1;
   const mod = canModerate(actor);
@@ -22,12 +25,21 @@ function toComment(row: CommentRow, actor: Actor): Comment {
     createdAt: row.created_at,
     updatedAt: row.updated_at,
     permissions: { edit: own && !hidden, delete: own, hide: mod },
+    references,
   };
 }
 
+/** Comments as the reader gets them, each with the `#123` links it may follow. */
+async function toComments(db: Db, rows: CommentRow[], actor: Actor): Promise<Comment[]> {
+  const comments = rows.map((r) => toComment(r, actor));
+  const refs = await visibleReferencesOfEach(db, actor, comments.map((c) => [c.body]));
+  return comments.map((c, i) => ({ ...c, references: refs[i] }));
+}
+const oneComment = async (deps: AppDeps, id: number, actor: Actor) => (await toComments(deps.db, [(await findComment(deps.db, id))!], actor))[0];
+
 export async function commentsOf({ db }: AppDeps, actor: Actor, caseId: number): Promise<Comment[]> {
   await visibleCaseRow(db, actor, caseId);
-  return (await listComments(db, caseId)).map((r) => toComment(r, actor));
+  return toComments(db, await listComments(db, caseId), actor);
 }
 
 /** Each mention mails someone; a comment naming the whole team is a broadcast, not a comment. */
@@ -40,7 +52,8 @@ export async function addComment(deps: AppDeps, actor: Actor, caseId: number, bo
     throw invalid(`A comment may @mention at most ${MAX_MENTIONS_PER_COMMENT} people; this one names ${named.length}`, [{ path: 'body', message: `At most ${MAX_MENTIONS_PER_COMMENT} @mentions` }]);
   }
   const id = await insertComment(deps.db, caseId, actor.id, body, new Date().toISOString());
-  const comment = toComment((await findComment(deps.db, id))!, actor);
+  await recordCommentReferences(deps.db, caseId, id, body);
+  const comment = await oneComment(deps, id, actor);
   const excerpt = body.length > 600 ? `${body.slice(0, 600)}…` : body;
   // a mention is only sent to people who may read the case
   const mentioned: number[] = [];
@@ -67,7 +80,8 @@ export async function editComment(deps: AppDeps, actor: Actor, id: number, body:
   if (row.author_id !== actor.id) throw forbidden('You can edit only your own comments');
   if (row.hidden) throw forbidden('A hidden comment cannot be edited');
   await updateComment(deps.db, id, { body, updated_at: new Date().toISOString() });
-  return toComment((await findComment(deps.db, id))!, actor);
+  await recordCommentReferences(deps.db, row.case_id, id, body);
+  return oneComment(deps, id, actor);
 }
 
 export async function removeComment(deps: AppDeps, actor: Actor, id: number): Promise<void> {
@@ -77,8 +91,10 @@ export async function removeComment(deps: AppDeps, actor: Actor, id: number): Pr
 }
 
 export async function setCommentHidden(deps: AppDeps, actor: Actor, id: number, hidden: boolean): Promise<Comment> {
-  await visibleComment(deps, actor, id);
+  const row = await visibleComment(deps, actor, id);
   if (!canModerate(actor)) throw forbidden('Only moderators may hide comments');
   await updateComment(deps.db, id, { hidden: hidden ? 1 : 0, hidden_by: hidden ? actor.id : null });
-  return toComment((await findComment(deps.db, id))!, actor);
+  // a hidden comment's links no longer count as the case linking there
+  await recordCommentReferences(deps.db, row.case_id, id, hidden ? null : row.body);
+  return oneComment(deps, id, actor);
 }

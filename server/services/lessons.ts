@@ -5,9 +5,10 @@ import type { AppDeps } from '../deps';
 import { AppError, forbidden, invalid, notFound } from '../errors';
 import { recordAudit } from '../db/repositories/audit-log';
 import { containsText } from '../db/repositories/text-match';
+import { visibleReferencesOfEach } from './case-references';
 
 /** Verified lessons grouped by cause (causes in the engine's order, then the rest), plus the pinned checklist. */
-export async function listLessons({ db }: AppDeps, q?: string): Promise<LessonBook> {
+export async function listLessons({ db }: AppDeps, q?: string, reader?: Actor): Promise<LessonBook> {
   let query = db
     .selectFrom('cases')
     .leftJoin('pinned_lessons', 'pinned_lessons.case_id', 'cases.id')
@@ -19,7 +20,8 @@ export async function listLessons({ db }: AppDeps, q?: string): Promise<LessonBo
     query = query.where((eb) => eb.or([containsText('cases.lesson_summary', q), containsText('cases.lesson_detail', q), containsText('cases.title', q)]));
   }
   const rows = await query.orderBy('cases.verified_at', 'desc').execute();
-  const lessons: Lesson[] = rows.map((r) => ({
+  const refs = reader ? await visibleReferencesOfEach(db, reader, rows.map((r) => [r.lesson_detail])) : [];
+  const lessons: Lesson[] = rows.map((r, i) => ({
     caseId: r.id,
     title: r.title,
     cause: r.cause,
@@ -28,6 +30,7 @@ export async function listLessons({ db }: AppDeps, q?: string): Promise<LessonBo
     verifiedAt: r.verified_at,
     pinned: r.position !== null,
     pinPosition: r.position,
+    references: refs[i] ?? [],
   }));
   const order = [...CAUSES, 'other'] as string[];
   const causes = [...new Set(lessons.map((l) => l.cause ?? 'other'))].sort((a, b) => (order.indexOf(a) + 1 || 99) - (order.indexOf(b) + 1 || 99));

@@ -9,6 +9,7 @@ import type { AppDeps } from '../deps';
 import { AppError, forbidden, invalid, notFound } from '../errors';
 import { loadCase, visibleCaseRow } from './cases';
 import { audienceOf, notifyUsers } from './notifications';
+import { tellSavedSearches } from './saved-searches';
 
 const REVIEWABLE = { verify: ['in_review'], send_back: ['in_review'], retire: ['in_review', 'needs_changes', 'verified'], duplicate: ['in_review', 'needs_changes', 'verified'] } as const;
 
@@ -63,5 +64,9 @@ export async function reviewCase(deps: AppDeps, actor: User, id: number, input: 
   const kind = input.action === 'verify' ? 'verified' : input.action === 'send_back' ? 'sent_back' : 'retired';
   const audience = input.action === 'send_back' ? [row.author_id] : await audienceOf(deps, id, row.author_id);
   await notifyUsers(deps, audience, { kind, caseId: id, caseTitle: row.title, line, details: input.note ? [`Note: ${input.note}`] : [] }, actor.id);
+  if (input.action === 'verify') {
+    // the verification stands even if telling the saved searches fails
+    await tellSavedSearches(deps, id).catch((err) => console.error('[falsetrace] saved-search notices failed:', err));
+  }
   return loadCase(deps.db, actor, id);
 }

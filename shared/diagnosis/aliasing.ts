@@ -127,7 +127,7 @@ function recordedRate(setup: ResolvedSetup): Candidate {
     ...common,
     deviation,
     predicted: { frequencyHz: shownHz },
-    explanation: `At ${eng(rateHz, 'Sa/s')} only frequencies up to ${eng(nyquistHz, 'Hz')} are shown faithfully; the ${eng(signalHz, 'Hz')} signal folds down to |f − k·f_s| = ${eng(shownHz, 'Hz')} (k = ${Math.round(signalHz / rateHz)}), so the trace ${shownHz > signalHz * 1e-3 ? `looks ${factor(signalHz / shownHz)} times slower than it is` : 'shows a flat line or a slow wander'}.`,
+    explanation: `At ${eng(rateHz, 'Sa/s')} only frequencies up to ${eng(nyquistHz, 'Hz')} are shown faithfully; the ${eng(signalHz, 'Hz')} signal folds down to $\\lvert f - k f_s \\rvert$ = ${eng(shownHz, 'Hz')} (k = ${Math.round(signalHz / rateHz)}), so the trace ${shownHz > signalHz * 1e-3 ? `looks ${factor(signalHz / shownHz)} times slower than it is` : 'shows a flat line or a slow wander'}.`,
     fix: FIX,
     estimates,
     detailTags: ['undersampled'],

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { caseReferenceSchema } from '../cases/case-references';
 import {
   causeSchema,
   circuitInputSchema,
@@ -150,6 +151,10 @@ export const caseSchema = z.object({
   updatedAt: z.string(),
   submittedAt: z.string().nullable(),
   permissions: z.object({ edit: z.boolean(), submit: z.boolean(), comment: z.boolean() }),
+  /** Cases the narrative and lesson name as `#123` that the reader may open; others stay plain text. */
+  references: z.array(caseReferenceSchema),
+  /** Cases whose write-up or comments link here, as far as the reader may open them. */
+  referredBy: z.array(caseReferenceSchema),
 });
 export type Case = z.infer<typeof caseSchema>;
 
@@ -197,6 +202,8 @@ export const commentSchema = z.object({
   createdAt: z.string(),
   updatedAt: z.string(),
   permissions: z.object({ edit: z.boolean(), delete: z.boolean(), hide: z.boolean() }),
+  /** Cases the body names as `#123` that the reader may open. */
+  references: z.array(caseReferenceSchema),
 });
 export type Comment = z.infer<typeof commentSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { CaseReference } from '../cases/case-references';
 
 /** A verified case's lesson as the Lessons page and the bench checklist show it. */
 export interface Lesson {
@@ -10,6 +11,8 @@ export interface Lesson {
   verifiedAt: string | null;
   pinned: boolean;
   pinPosition: number | null;
+  /** Cases the lesson names as `#123` that the reader may open. */
+  references: CaseReference[];
 }
 
 export interface LessonGroup {

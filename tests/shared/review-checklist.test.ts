@@ -39,6 +39,8 @@ function aCase(overrides: Partial<Case>): Case {
     updatedAt: '2026-12-01T10:00:00.000Z',
     submittedAt: '2026-12-01T10:00:00.000Z',
     permissions: { edit: false, submit: false, comment: true },
+    references: [],
+    referredBy: [],
     ...overrides,
   };
 }

@@ -16,7 +16,7 @@ export const ATTENUATION_CASES: DemoCase[] = [
     createdAt: t('05-19 10:05'),
     title: 'SN-2 3V3 rail reads 330 mV — channel left at 1x',
     summary: 'The 3.3 V rail of a Skerrynode SN-2 showed 330 mV; the 10x probe was on a channel still set to 1x.',
-    narrative: `Bring-up of SN-2 rev B, board #4. The regulator output looked dead on the scope: a flat line at **330 mV**.
+    narrative: `Bring-up of SN-2 rev B, board 4. The regulator output looked dead on the scope: a flat line at **330 mV**.
 
 First guess was the LDO in foldback, so I checked the load current on the bench supply — 18 mA, normal. The radio was even advertising, which it cannot do at 330 mV.
 
@@ -97,7 +97,7 @@ Then he asked where the ground clip was. On Q3's source — **the switch node**,
     createdAt: t('06-10 13:15'),
     title: '3.3 V rail only 330 mV on SN-2 rev C',
     summary: 'Rail measured 330 mV on the scope during rev C validation, 3.3 V on the meter.',
-    narrative: 'Rev C validation, board #11. Scope says 330 mV on the 3V3 rail, meter says 3.29 V. Channel 3 of SC-02 was set to 1x with a 10x probe on it.',
+    narrative: 'Rev C validation, board 11. Scope says 330 mV on the 3V3 rail, meter says 3.29 V. Channel 3 of SC-02 was set to 1x with a 10x probe on it.',
     setup: {
       probe: { ...PROBES.p03 },
       scope: { ...SCOPES.sc02, attenuationSetting: 1 },

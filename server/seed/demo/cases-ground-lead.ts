@@ -110,7 +110,7 @@ Lesson for me: if the ringing moves when you move the lead, it is the lead.`,
     summary: 'The SN-2 PA supply switch showed 80 % overshoot and ringing near 110 MHz with the clip lead.',
     narrative: `PA supply load switch turn-on, 3.0 V, edge ~2 ns. Overshoot **80 %**, ringing ~110 MHz. With the 15 cm lead.
 
-Pretty sure this is the ground lead again (110 MHz, same as the buck case) but I have not yet repeated it with a spring because the board has no room for one near the switch. Will solder a probe socket on board #7.`,
+Pretty sure this is the ground lead again (110 MHz, same as the buck case) but I have not yet repeated it with a spring because the board has no room for one near the switch. Will solder a probe socket on board 7.`,
     setup: {
       probe: { ...PROBES.p03, groundKind: 'clip-lead', groundLeadM: 0.15 },
       scope: { ...SCOPES.sc01, attenuationSetting: 10 },

@@ -5,6 +5,7 @@ import { useMe } from '../../features/auth/api/get-me';
 import { CaseMiniList } from '../../features/cases/components/CaseMiniList';
 import { ReviewWaitingPanel } from './review-waiting';
 import { BenchSearch } from '../../features/search/components/BenchSearch';
+import { SaveSearchButton } from '../../features/saved-searches/components/SaveSearchButton';
 
 export function BenchRoute() {
   const { user } = useMe();
@@ -16,7 +17,7 @@ export function BenchRoute() {
       />
       <div className="flex flex-col gap-6">
         <Panel>
-          <BenchSearch />
+          <BenchSearch actions={(current) => <SaveSearchButton search={current} />} />
         </Panel>
         <div className="grid gap-6 md:grid-cols-2">
           <Panel title="Recently verified">

@@ -10,6 +10,7 @@ import { useChangePassword } from '../api/change-password';
 import { useMe } from '../api/get-me';
 import { useUpdateProfile } from '../api/update-profile';
 import { NotificationPrefs } from '../../notifications/components/NotificationPrefs';
+import { SavedSearchList } from '../../saved-searches/components/SavedSearchList';
 
 const passwordFormSchema = confirmedPassword(
   { currentPassword: changePasswordSchema.shape.currentPassword, newPassword: newPasswordSchema },
@@ -88,6 +89,7 @@ export function ProfilePage() {
         </Panel>
       </div>
       <NotificationPrefs role={user.role} />
+      <SavedSearchList />
     </>
   );
 }

@@ -4,6 +4,7 @@ import { setupSafetyReasons } from '../../../../shared/safety/iec-61010';
 import type { Attachment, Case } from '../../../../shared/schemas/case';
 import { Alert } from '../../../components/ui/Alert';
 import { Markdown } from '../../../components/ui/Markdown';
+import { ReferredBy } from './ReferredBy';
 import { Loading, Panel } from '../../../components/ui/Panel';
 import { SafetyCaution } from '../../../components/ui/SafetyCaution';
 import { ApiError } from '../../../lib/api-client';
@@ -175,7 +176,7 @@ export function CasePage({ caseId, renderCapturePlot, renderCaptureComparison, h
           )}
           {c.narrative && (
             <Section id="narrative" title="What happened" className="order-5 lg:order-none">
-              <Markdown>{c.narrative}</Markdown>
+              <Markdown references={c.references}>{c.narrative}</Markdown>
             </Section>
           )}
           {(c.fix || c.lessonSummary) && (
@@ -184,7 +185,11 @@ export function CasePage({ caseId, renderCapturePlot, renderCaptureComparison, h
                 <>
                   <h2 className="text-sm font-sans font-semibold tracking-wide text-agree uppercase">Lesson</h2>
                   <p className="mt-1 font-serif text-lg">{c.lessonSummary}</p>
-                  {c.lessonDetail && <p className="mt-2 text-sm whitespace-pre-line">{c.lessonDetail}</p>}
+                  {c.lessonDetail && (
+                    <Markdown className="mt-1 text-sm" references={c.references}>
+                      {c.lessonDetail}
+                    </Markdown>
+                  )}
                 </>
               )}
               {c.fix && (
@@ -219,6 +224,11 @@ export function CasePage({ caseId, renderCapturePlot, renderCaptureComparison, h
               <p className="text-sm text-muted">No diagnosis stored for this case.</p>
             )}
           </Section>
+          {c.referredBy.length > 0 && (
+            <Section id="referred-by" title="Referred to by" className="order-9 lg:order-none">
+              <ReferredBy cases={c.referredBy} />
+            </Section>
+          )}
           {sideExtras && <div className="order-10 lg:order-none">{sideExtras}</div>}
         </div>
       </div>

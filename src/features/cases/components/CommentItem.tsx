@@ -50,7 +50,7 @@ export function CommentItem({ comment, caseId }: { comment: Comment; caseId: num
       ) : comment.hidden && !comment.body ? (
         <p className="mt-1 text-sm text-muted italic">This comment was hidden by a moderator.</p>
       ) : (
-        <Markdown className={`mt-1 text-sm ${comment.hidden ? 'opacity-70' : ''}`}>{comment.body}</Markdown>
+        <Markdown className={`mt-1 text-sm ${comment.hidden ? 'opacity-70' : ''}`} references={comment.references}>{comment.body}</Markdown>
       )}
       {error && (
         <p role="alert" className="mt-1 text-xs font-semibold text-caution">

@@ -1,3 +1,4 @@
+import { MathText } from '../../../components/ui/MathText';
 import type { ReactNode } from 'react';
 import type { CaseSetup } from '../../../../shared/schemas/case';
 import type { DiagnosisResult, Hypothesis } from '../../../../shared/schemas/diagnosis';
@@ -22,7 +23,9 @@ function HypothesisDetail({ h, observed }: { h: Hypothesis; observed: Observed }
       <div className="mt-2">
         <PredictedVsObserved hypothesis={h} observed={observed} dense />
       </div>
-      <p className="mt-2 text-sm">{h.explanation}</p>
+      <p className="mt-2 text-sm">
+        <MathText text={h.explanation} />
+      </p>
       {h.confirm && (
         <p className="mt-1 text-sm">
           <span className="font-semibold">Confirm at the bench: </span>

@@ -1,3 +1,4 @@
+import { MathText } from '../../../components/ui/MathText';
 import { useId, useState } from 'react';
 import type { DiagnosisInput, Hypothesis } from '../../../../shared/schemas/diagnosis';
 import { FitBadge } from '../../../components/ui/FitBadge';
@@ -44,7 +45,9 @@ export function HypothesisCard({ rank, hypothesis: h, input, lead = false }: Hyp
         <LikelihoodBar value={h.likelihood} strong={lead} />
       </header>
       <PredictedVsObserved hypothesis={h} observed={input.observed} />
-      <p className="text-sm leading-relaxed">{h.explanation}</p>
+      <p className="text-sm leading-relaxed">
+        <MathText text={h.explanation} />
+      </p>
       {h.confirm && (
         <p className="rounded-md border border-rule px-3 py-2 text-sm">
           <span className="font-semibold">Confirm at the bench: </span>

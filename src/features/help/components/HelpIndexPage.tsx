@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import { PageHeader } from '../../../components/ui/Panel';
+import { Tex } from '../../../components/ui/Tex';
 import { HELP_TOPICS } from '../topics/help-topics';
 import type { HelpTopic } from '../topics/types';
 import { HelpTopicNav } from './HelpTopicNav';
@@ -13,7 +14,11 @@ function TopicCard({ topic }: { topic: HelpTopic }) {
     >
       <span className={`font-serif text-lg font-bold ${safety ? 'text-hazard' : ''}`}>{topic.title}</span>
       <span className="text-sm text-muted">{topic.lead}</span>
-      {topic.formulas[0] && <code className="mt-auto font-mono text-sm">{topic.formulas[0].text}</code>}
+      {topic.formulas[0] && (
+        <span className="mt-auto text-sm">
+          <Tex tex={topic.formulas[0].tex} />
+        </span>
+      )}
     </Link>
   );
 }

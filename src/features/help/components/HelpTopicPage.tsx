@@ -46,21 +46,21 @@ export function HelpTopicPage({ slug }: { slug: string | undefined }) {
             </p>
           )}
           <Section title={safety ? 'When Falsetrace warns' : 'What it looks like on the screen'}>
-            <Markdown>{topic.onScreen}</Markdown>
+            <Markdown math>{topic.onScreen}</Markdown>
           </Section>
           <Section title={safety ? 'Why the ground clip is dangerous' : 'Why it happens'}>
-            <Markdown>{topic.physics}</Markdown>
+            <Markdown math>{topic.physics}</Markdown>
           </Section>
           <Section title="Formulas">
             <FormulaList formulas={topic.formulas} />
           </Section>
           {topic.example && (
             <Section title="Worked example">
-              <Markdown>{topic.example}</Markdown>
+              <Markdown math>{topic.example}</Markdown>
             </Section>
           )}
           <Section title={safety ? 'What to do' : 'How to fix it'}>
-            <Markdown>{topic.fix}</Markdown>
+            <Markdown math>{topic.fix}</Markdown>
           </Section>
           {(topic.diagnose || topic.cause) && (
             <Section title="Try it">

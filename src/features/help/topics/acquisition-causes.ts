@@ -8,13 +8,13 @@ export const ALIASING_TOPIC: HelpTopic = {
   onScreen: `- The trace **looks slower than it is**: a 1 MHz clock drawn as a lazy 2 kHz wave, or a steady PWM that seems to crawl.
 - The frequency on screen **jumps when you change the timebase**, where a real signal would stay put.
 - Edges look uneven from cycle to cycle, or the trace looks like a smear of dots at long timebases.`,
-  physics: `A digital scope does not see the signal, only samples of it taken f_s times a second. Samples can only describe frequencies up to **half the sample rate**, f_s/2. A sine above that produces exactly the same samples as a slower one at **|f − k·f_s|** (k the nearest whole multiple): the record cannot tell them apart, so the screen draws the slow one.
+  physics: `A digital scope does not see the signal, only samples of it taken f_s times a second. Samples can only describe frequencies up to **half the sample rate**, f_s/2. A sine above that produces exactly the same samples as a slower one at $\\lvert f - k f_s \\rvert$ (k the nearest whole multiple): the record cannot tell them apart, so the screen draws the slow one.
 
 Most scopes lower the sample rate when the timebase gets longer (the memory is fixed), so a setup that was fine at 1 µs/div can alias at 1 ms/div. A square wave's harmonics fold too, long before its fundamental does.`,
   formulas: [
-    { text: 'f_shown = |f − k·f_s|, k = round(f / f_s)', meaning: 'where a frequency above f_s/2 lands' },
-    { text: 'f_max = f_s / 2', meaning: 'the highest frequency the samples describe' },
-    { text: 'f_s = (f ± f_shown) / k', meaning: 'the sample rates an observed alias implies' },
+    { tex: String.raw`f_\text{shown} = \lvert f - k f_s \rvert,\quad k = \operatorname{round}(f / f_s)`, meaning: 'where a frequency above f_s/2 lands' },
+    { tex: String.raw`f_\text{max} = f_s / 2`, meaning: 'the highest frequency the samples describe' },
+    { tex: String.raw`f_s = (f \pm f_\text{shown}) / k`, meaning: 'the sample rates an observed alias implies' },
   ],
   example: `A 1 MHz clock recorded at 1.002 MSa/s (a long timebase): k = 1, so it shows at |1 MHz − 1.002 MSa/s| = **2 kHz**, 500 times slower than it is.`,
   diagnose: {
@@ -42,8 +42,8 @@ export const CLIPPING_TOPIC: HelpTopic = {
 
 When the input is driven far past the window, its amplifier saturates and may take microseconds to recover, so even the part that comes back on screen can be wrong for a while.`,
   formulas: [
-    { text: 'window = offset ± (divisions / 2) × V/div', meaning: 'what the screen shows (8 divisions on most screens)' },
-    { text: 'V_shown = min(V_high, top) − max(V_low, bottom)', meaning: 'what is left of the signal' },
+    { tex: String.raw`\text{window} = \text{offset} \pm \frac{\text{divisions}}{2} \times \text{V/div}`, meaning: 'what the screen shows (8 divisions on most screens)' },
+    { tex: String.raw`V_\text{shown} = \min(V_\text{high}, \text{top}) - \max(V_\text{low}, \text{bottom})`, meaning: 'what is left of the signal' },
   ],
   example: `A 0…5 V square at 0.5 V/div with the offset at 0 over 8 divisions: the window is −2 V…+2 V, so only 0…2 V is shown — **2 V** instead of 5 V, flat on top.`,
   diagnose: {
@@ -72,12 +72,12 @@ export const AC_COUPLING_TOPIC: HelpTopic = {
 - Low-frequency sines come out smaller than they are.`,
   physics: `AC coupling puts a capacitor in series with the input: with the 1 MΩ input resistor it is a **first-order high-pass** with a corner of a few Hz (the data-sheet figure, for a low-impedance source; about 10 Hz if not recorded). A passive probe's tip resistor is in series with the input at these frequencies, so a 10x probe lowers the corner tenfold: f_c × R_in / (R_tip + R_in).
 
-Each edge of a square passes whole; during the flat part the level decays toward zero with τ = 1/(2π f_c). In steady state the top droops by **tanh(T/4τ)** of the step (T the period) — for slow droop about π·f_c/(2f).`,
+Each edge of a square passes whole; during the flat part the level decays toward zero with $\\tau = 1/(2\\pi f_c)$. In steady state the top droops by $\\tanh(T/4\\tau)$ of the step (T the period) — for slow droop about π·f_c/(2f).`,
   formulas: [
-    { text: 'f_eff = f_c × R_in / (R_s + R_tip + R_in)', meaning: 'corner behind a probe tip resistor' },
-    { text: 'tilt = tanh(T / 4τ) = tanh(π f_c / 2f)', meaning: 'droop across each top, share of the step' },
-    { text: '|H| = f / √(f² + f_c²)', meaning: 'what a sine keeps' },
-    { text: 'DC → 0', meaning: 'a steady level is blocked' },
+    { tex: String.raw`f_\text{eff} = f_c \times \frac{R_\text{in}}{R_s + R_\text{tip} + R_\text{in}}`, meaning: 'corner behind a probe tip resistor' },
+    { tex: String.raw`\text{tilt} = \tanh\frac{T}{4\tau} = \tanh\frac{\pi f_c}{2f}`, meaning: 'droop across each top, share of the step' },
+    { tex: String.raw`\lvert H \rvert = \frac{f}{\sqrt{f^2 + f_c^2}}`, meaning: 'what a sine keeps' },
+    { tex: String.raw`\text{DC} \to 0`, meaning: 'a steady level is blocked' },
   ],
   example: `A 50 Hz square through a 1x probe on a channel AC-coupled at 10 Hz: tanh(π × 10 Hz / (2 × 50 Hz)) = tanh(0.314) ≈ **30 %** droop on every top. With a 10x probe the corner falls to 1 Hz and the droop to about 3.1 %.`,
   diagnose: {

@@ -12,8 +12,8 @@ export const ATTENUATION_TOPIC: HelpTopic = {
 
 Most scopes sense a probe's ratio only through a coding pin on the connector, and many probes — especially **switchable 1x/10x** ones — have no such pin for their switch. So the scope cannot know; the person has to. For the same reason an exported capture records the channel's *setting*, not the probe that was really on it.`,
   formulas: [
-    { text: 'V_shown = V_true × setting / actual', meaning: 'what the screen shows' },
-    { text: 'actual = setting × V_expected / V_shown', meaning: 'the probe ratio an observation implies' },
+    { tex: String.raw`V_\text{shown} = V_\text{true} \times \frac{\text{setting}}{\text{actual}}`, meaning: 'what the screen shows' },
+    { tex: String.raw`\text{actual} = \text{setting} \times \frac{V_\text{expected}}{V_\text{shown}}`, meaning: 'the probe ratio an observation implies' },
   ],
   example: `A 10x probe on a channel left at 1x, on a 3.3 V rail: 3.3 V × 1 / 10 = **0.33 V** on screen. Set the channel to 10x and it reads 3.3 V.`,
   diagnose: {
@@ -45,16 +45,16 @@ On a **50 Ω** input the bottom of the divider becomes 50 Ω ∥ C2, and the div
 
 - At DC and low frequency the resistors set it: 50 Ω / (9 MΩ + 50 Ω), about 1/180 000, while the channel still multiplies by 10.
 - Above a few kHz, C1's reactance replaces the 9 MΩ and the ratio rises with frequency.
-- A fast edge passes the capacitive divider **C1/(C1+C2)**, about a tenth, and then decays through the 50 Ω with **τ = 50 Ω·(C1+C2)**, about 6 ns. An edge slower than τ gives a lower needle.
+- A fast edge passes the capacitive divider $C_1/(C_1+C_2)$, about a tenth, and then decays through the 50 Ω with $\\tau = 50\\,\\Omega \\cdot (C_1 + C_2)$, about 6 ns. An edge slower than τ gives a lower needle.
 
 A 50 Ω input also has a power limit: it dissipates V²/50 Ω, and typical inputs are rated about 5 V rms (half a watt). A passive probe does not make it safe: the needles put a tenth of every edge across the 50 Ω — 40 V for a 400 V switch node — and at a high switching rate they add up to real power. A direct cable from a strong source can damage the input outright.`,
   formulas: [
-    { text: 'V_input / V_tip = Z2 / (Z1 + Z2),  Z1 = R1 ∥ C1,  Z2 = 50 Ω ∥ C2', meaning: 'the complex divider on 50 Ω' },
-    { text: 'C1 = n·C_tip / (n − 1),  C2 = n·C_tip', meaning: 'a compensated probe of ratio n' },
-    { text: '(9 MΩ + 50 Ω) / 50 Ω ≈ 180 000', meaning: 'DC division of a 10x probe on 50 Ω' },
-    { text: 'spike = V_step × n × C1 / (C1 + C2)', meaning: 'each edge on the screen (channel at n), ideal step' },
-    { text: 'τ = 50 Ω × (C1 + C2)', meaning: 'how fast each needle dies away' },
-    { text: 'P = V_rms² / 50 Ω', meaning: 'power into a 50 Ω input' },
+    { tex: String.raw`\frac{V_\text{input}}{V_\text{tip}} = \frac{Z_2}{Z_1 + Z_2},\quad Z_1 = R_1 \parallel C_1,\quad Z_2 = 50\,\Omega \parallel C_2`, meaning: 'the complex divider on 50 Ω' },
+    { tex: String.raw`C_1 = \frac{n\,C_\text{tip}}{n - 1},\quad C_2 = n\,C_\text{tip}`, meaning: 'a compensated probe of ratio n' },
+    { tex: String.raw`\frac{9\,\text{M}\Omega + 50\,\Omega}{50\,\Omega} \approx 180\,000`, meaning: 'DC division of a 10x probe on 50 Ω' },
+    { tex: String.raw`\text{spike} = V_\text{step} \times n \times \frac{C_1}{C_1 + C_2}`, meaning: 'each edge on the screen (channel at n), ideal step' },
+    { tex: String.raw`\tau = 50\,\Omega \times (C_1 + C_2)`, meaning: 'how fast each needle dies away' },
+    { tex: String.raw`P = \frac{V_\text{rms}^2}{50\,\Omega}`, meaning: 'power into a 50 Ω input' },
   ],
   example: `An 11 pF 10x probe (C1 ≈ 12.2 pF, C2 = 110 pF) on a 50 Ω input, channel at 10x:
 
@@ -91,11 +91,11 @@ export const LOADING_TOPIC: HelpTopic = {
 
 Whatever drives the node has its own (Thevenin) resistance R_s. The probe and R_s form a divider. At DC only the resistances matter; at higher frequencies the probe's capacitance takes over and the divider falls with frequency, with a corner where the capacitance's reactance equals the parallel resistance. The same RC slows edges.`,
   formulas: [
-    { text: 'V_shown / V_true = R_in / (R_s + R_in)', meaning: 'DC divider' },
-    { text: '|Z_p / (R_s + Z_p)|,  Z_p = R_in ∥ 1/(j·2πf·C)', meaning: 'AC divider at frequency f' },
-    { text: 'f_c = 1 / (2π · (R_s ∥ R_in) · C)', meaning: 'corner of the loaded node' },
-    { text: 't_r ≈ 2.2 · (R_s ∥ R_in) · C', meaning: 'rise time the load alone adds' },
-    { text: 'V_pp,shown = A · R_in / (R_s + R_in) · tanh(T / 4τ),  τ = (R_s ∥ R_in) · C', meaning: 'settled peak-to-peak of a square wave of period T' },
+    { tex: String.raw`\frac{V_\text{shown}}{V_\text{true}} = \frac{R_\text{in}}{R_s + R_\text{in}}`, meaning: 'DC divider' },
+    { tex: String.raw`\left\lvert \frac{Z_p}{R_s + Z_p} \right\rvert,\quad Z_p = R_\text{in} \parallel \frac{1}{j\,2\pi f C}`, meaning: 'AC divider at frequency f' },
+    { tex: String.raw`f_c = \frac{1}{2\pi \, (R_s \parallel R_\text{in}) \, C}`, meaning: 'corner of the loaded node' },
+    { tex: String.raw`t_r \approx 2.2 \, (R_s \parallel R_\text{in}) \, C`, meaning: 'rise time the load alone adds' },
+    { tex: String.raw`V_\text{pp,shown} = A \, \frac{R_\text{in}}{R_s + R_\text{in}} \tanh\frac{T}{4\tau},\quad \tau = (R_s \parallel R_\text{in}) \, C`, meaning: 'settled peak-to-peak of a square wave of period T' },
   ],
   example: `A 1x probe (≈ 100 pF) on a node driven through 47 kΩ: f_c = 1 / (2π · 47 kΩ · 100 pF) ≈ 34 kHz, so a 100 kHz sine keeps only about **32 %** of its amplitude.`,
   diagnose: {

@@ -17,9 +17,9 @@ Where Falsetrace warns from a lower threshold than the standard's, that threshol
 
 Probes have voltage ratings that fall with frequency (derating), and ratings per measurement category (CAT II, CAT III…) for the energy available where you measure. A 50 Ω input has a power rating of its own (typically about 5 V rms).`,
   formulas: [
-    { text: '33 V rms · 46.7 V peak · 70 V DC', meaning: 'hazardous live, normal conditions (IEC 61010-1:2010, 6.3.1)' },
-    { text: '16 V rms · 22.6 V peak · 35 V DC', meaning: 'hazardous live, wet locations (same clause)' },
-    { text: 'V_peak = √2 · V_rms', meaning: '230 V rms mains → about 325 V peak' },
+    { tex: String.raw`33\ \text{V rms} \cdot 46.7\ \text{V peak} \cdot 70\ \text{V DC}`, meaning: 'hazardous live, normal conditions (IEC 61010-1:2010, 6.3.1)' },
+    { tex: String.raw`16\ \text{V rms} \cdot 22.6\ \text{V peak} \cdot 35\ \text{V DC}`, meaning: 'hazardous live, wet locations (same clause)' },
+    { tex: String.raw`V_\text{peak} = \sqrt{2}\, V_\text{rms}`, meaning: '230 V rms mains → about 325 V peak' },
   ],
   example: `A 12 V gate drive looks harmless, but if the gate belongs to a high-side switch on a 400 V bus, the probe's reference sits on a node that swings 400 V from earth: a differential or isolated probe rated for 400 V and its measurement category is the right tool, whatever the gate's own 12 V.`,
   fix: `- Never float the scope.
@@ -43,9 +43,9 @@ export const ENGINE_TOPIC: HelpTopic = {
 
 Each hypothesis is compared with the observation by **log-ratio residuals**: a factor of two counts the same whether too big or too small. A hypothesis **fits** when its residual is under the fit gate, chosen from how precisely the models and screen readings can be trusted. Recorded values are evidence: a fit that needs a value contradicting one you recorded (a 90 cm lead when 1 cm was written down) is penalised.`,
   formulas: [
-    { text: 'r = ln(predicted / observed)', meaning: 'residual of one quantity' },
-    { text: 'residual = √(Σ r²)', meaning: 'of a hypothesis, over what was observed' },
-    { text: 'fits ⇔ residual < gate', meaning: 'only fitting hypotheses add tags or pass the review check' },
+    { tex: String.raw`r = \ln\frac{\text{predicted}}{\text{observed}}`, meaning: 'residual of one quantity' },
+    { tex: String.raw`\text{residual} = \sqrt{\textstyle\sum r^2}`, meaning: 'of a hypothesis, over what was observed' },
+    { tex: String.raw`\text{fits} \iff \text{residual} < \text{gate}`, meaning: 'only fitting hypotheses add tags or pass the review check' },
   ],
   fix: `Record what you know — probe ratio, channel setting, input impedance, source impedance, lead length, coupling, sample rate — and at least one observed value. The more is recorded, the fewer assumptions the engine needs, and the sharper the verdict.`,
   sources: [

@@ -12,8 +12,8 @@ export const COMMON_MODE_TOPIC: HelpTopic = {
 
 A passive (or single-ended active) probe has no such input: its ground clip is **protective earth** through the scope. Clipped to a node away from earth it shorts that node to earth. That is a **hazard**, never a measurement: fault currents can destroy the probe, the scope or the circuit, and floating the scope to avoid it puts its case at the node's voltage.`,
   formulas: [
-    { text: 'V_leak = V_cm × 10^(−CMRR/20)', meaning: 'common mode passed by a differential probe' },
-    { text: 'CMRR = 20·log10(V_cm / V_leak)', meaning: 'the rejection an observed leak implies' },
+    { tex: String.raw`V_\text{leak} = V_\text{cm} \times 10^{-\text{CMRR}/20}`, meaning: 'common mode passed by a differential probe' },
+    { tex: String.raw`\text{CMRR} = 20 \log_{10}\frac{V_\text{cm}}{V_\text{leak}}`, meaning: 'the rejection an observed leak implies' },
   ],
   example: `A half-bridge switch node swings 400 V; a differential probe with 50 dB of rejection at 100 kHz passes 400 V × 10^(−50/20) ≈ **1.26 V** of it — beside a 10 V gate signal, 13 % of it.`,
   diagnose: {
@@ -46,8 +46,8 @@ export const MAINS_PICKUP_TOPIC: HelpTopic = {
 
 Either way the disturbance is locked to the mains, so it lies at the mains frequency and its **harmonics**: a loop shows mostly the fundamental, rectifier charging currents the second harmonic (100 or 120 Hz), non-linear loads odd multiples.`,
   formulas: [
-    { text: 'f_hum = n × f_mains, n = 1, 2, 3…', meaning: 'where mains-locked hum lies' },
-    { text: 'n = round(f_hum / f_mains)', meaning: 'which harmonic an observed line is' },
+    { tex: String.raw`f_\text{hum} = n \times f_\text{mains},\quad n = 1, 2, 3 \ldots`, meaning: 'where mains-locked hum lies' },
+    { tex: String.raw`n = \operatorname{round}\frac{f_\text{hum}}{f_\text{mains}}`, meaning: 'which harmonic an observed line is' },
   ],
   example: `A line at **100 Hz** on 50 Hz mains is harmonic n = 100 / 50 = 2: rectifier charging current in a shared ground, not a ground loop's 50 Hz.`,
   diagnose: {
@@ -78,9 +78,9 @@ export const GENERATOR_LOAD_TOPIC: HelpTopic = {
 
 In general the load sees V_set × k × R_L / (R_L + 50 Ω), with k = 2 for the 50 Ω setting and 1 for high-Z.`,
   formulas: [
-    { text: 'V_shown = V_set × 2 × R_L / (R_L + 50 Ω)', meaning: 'generator set for 50 Ω' },
-    { text: 'V_shown = V_set × R_L / (R_L + 50 Ω)', meaning: 'generator set for high-Z' },
-    { text: 'R_L = r × 50 Ω / (k − r), r = V_shown / V_set', meaning: 'the load an observation implies' },
+    { tex: String.raw`V_\text{shown} = V_\text{set} \times \frac{2 R_L}{R_L + 50\,\Omega}`, meaning: 'generator set for 50 Ω' },
+    { tex: String.raw`V_\text{shown} = V_\text{set} \times \frac{R_L}{R_L + 50\,\Omega}`, meaning: 'generator set for high-Z' },
+    { tex: String.raw`R_L = \frac{r \times 50\,\Omega}{k - r},\quad r = \frac{V_\text{shown}}{V_\text{set}}`, meaning: 'the load an observation implies' },
   ],
   example: `Set to 1 Vpp for a 50 Ω load, cabled straight into a 1 MΩ input: 1 V × 2 × 1 MΩ / (1 MΩ + 50 Ω) ≈ **2.0 V**. Put a 50 Ω feed-through at the input and it reads 1 V.`,
   diagnose: {

@@ -1,8 +1,8 @@
 import type { Cause } from '../../../../shared/schemas/diagnosis';
 
 export interface Formula {
-  /** Plain text in the mono face, e.g. `t_r ≈ 0.35 / BW`. */
-  text: string;
+  /** TeX, typeset by KaTeX, e.g. `t_r \approx \frac{0.35}{\text{BW}}`; written to stay readable as source. */
+  tex: string;
   /** What it says, in a few words. */
   meaning: string;
 }

@@ -16,7 +16,9 @@ export function LessonItem({ lesson, canPin, onError }: { lesson: Lesson; canPin
           {canPin && <PinButton lesson={lesson} onError={onError} />}
         </div>
       </div>
-      {lesson.lessonDetail && <Markdown className="text-sm">{lesson.lessonDetail}</Markdown>}
+      {lesson.lessonDetail && <Markdown className="text-sm" references={lesson.references}>
+          {lesson.lessonDetail}
+        </Markdown>}
       <p className="text-xs text-muted">
         From{' '}
         <Link to={`/cases/${lesson.caseId}`} className="text-ink underline underline-offset-2">

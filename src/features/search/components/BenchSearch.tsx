@@ -1,4 +1,4 @@
-import { useId } from 'react';
+import { useId, type ReactNode } from 'react';
 import { useLocation, useNavigate } from 'react-router-dom';
 import { useKeyboardList } from '../../../components/keyboard/use-keyboard-list';
 import { CopyLinkButton } from '../../../components/ui/CopyLinkButton';
@@ -30,7 +30,14 @@ export const SYMPTOM_CHIPS = [
  * query was read ("read as: amplitude ×0.1 → attenuation mismatch"), lists results with the
  * matched words marked and links to each case, and offers facet filters and symptom chips.
  */
-export function BenchSearch({ pageSize = 10 }: { pageSize?: number }) {
+export function BenchSearch({
+  pageSize = 10,
+  actions,
+}: {
+  pageSize?: number;
+  /** Shown under the box for the search as it stands (the Bench puts "Save this search" here). */
+  actions?: (current: { q: string; cause?: string; tag?: string }) => ReactNode;
+}) {
   const id = useId();
   const navigate = useNavigate();
   // `/` pressed on a page without a search box comes here to type
@@ -76,6 +83,8 @@ export function BenchSearch({ pageSize = 10 }: { pageSize?: number }) {
           ))}
         </ul>
       </form>
+
+      {active && actions?.({ q, cause: filters.cause, tag: filters.tag })}
 
       {active && (
         <div className="grid gap-6 md:grid-cols-[1fr_14rem]">

@@ -1,0 +1,34 @@
+import { z } from 'zod';
+
+/** A case another text links to as `#123`, as the reader may see it. */
+export const caseReferenceSchema = z.object({ id: z.number(), title: z.string() });
+export type CaseReference = z.infer<typeof caseReferenceSchema>;
+
+/**
+ * `#123` standing on its own: not inside a word, an anchor (`page#12`), a path (`/#12`) or an
+ * HTML entity (`&#123;`), and not running into more letters (`#12a`).
+ */
+export const CASE_REF_PATTERN = /(?<![\w&#/])#([1-9]\d{0,8})(?![\w])/g;
+
+/** At most this many distinct ids are looked up per text: a list of every case is not a link. */
+export const MAX_REFERENCES_PER_TEXT = 50;
+
+// fenced blocks, indented code is rare in notes and stays matched (a false link costs little)
+const FENCED = /(^|\n)(`{3,}|~{3,})[^\n]*\n[\s\S]*?(\n\2[^\n]*(?=\n|$)|$)/g;
+const INLINE_CODE = /(`+)[^`]*?\1/g;
+const LINK_TARGET = /\]\([^)]*\)/g;
+const AUTOLINK = /<[a-z][a-z0-9+.-]*:[^\s>]*>|\bhttps?:\/\/\S+|\bwww\.\S+/gi;
+
+/** The case ids a Markdown text names as `#123`, outside code and URLs, in order of first mention. */
+export function referencedCaseIds(...texts: (string | null | undefined)[]): number[] {
+  const ids = new Set<number>();
+  for (const text of texts) {
+    if (!text) continue;
+    const prose = text.replace(FENCED, '\n').replace(INLINE_CODE, ' ').replace(LINK_TARGET, ']').replace(AUTOLINK, ' ');
+    for (const m of prose.matchAll(CASE_REF_PATTERN)) {
+      ids.add(Number(m[1]));
+      if (ids.size >= MAX_REFERENCES_PER_TEXT) return [...ids];
+    }
+  }
+  return [...ids];
+}

@@ -1,0 +1,4 @@
+export const savedSearchKeys = {
+  all: ['saved-searches'] as const,
+  list: () => ['saved-searches', 'list'] as const,
+};

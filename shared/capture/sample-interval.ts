@@ -1,28 +1,105 @@
+import { asSeries, type Series } from './series';
+
+// Up to this many spacings are copied and selected in memory; beyond, the median is found by
+// narrowing histograms over further passes, so memory stays bounded however long the record.
+const IN_MEMORY_SPACINGS = 1 << 20;
+const SELECT_BINS = 4096;
+
 /**
  * The median spacing of the sample instants, in seconds: the sample interval of a uniformly
  * sampled capture, and a robust one of a capture with gaps or jitter in its time stamps.
- * Linear time (quickselect on a scratch copy of the spacings) rather than a sort of a million
- * values. For an even count, the mean of the two middle spacings.
+ * Linear time (quickselect on a scratch copy of the spacings, or on a long record histograms
+ * that narrow down on the middle one) rather than a sort of a million values. For an even
+ * count, the mean of the two middle spacings.
  *
  * @param timesS strictly increasing sample instants, s
  * @returns the median interval, s, or null for fewer than 2 samples
  */
-export function medianSampleIntervalS(timesS: Float64Array): number | null {
+export function medianSampleIntervalS(times: Float64Array | Series): number | null {
+  const timesS = asSeries(times);
   const count = timesS.length - 1;
   if (count < 1) return null;
-  const spacings = new Float64Array(count);
+  const first = timesS.get(1) - timesS.get(0);
   let uniform = true;
-  const first = timesS[1] - timesS[0];
-  for (let i = 0; i < count; i++) {
-    spacings[i] = timesS[i + 1] - timesS[i];
-    if (spacings[i] !== first) uniform = false;
-  }
+  let minS = Number.POSITIVE_INFINITY;
+  let maxS = Number.NEGATIVE_INFINITY;
+  forEachSpacing(timesS, (d) => {
+    if (d !== first) uniform = false;
+    if (d < minS) minS = d;
+    if (d > maxS) maxS = d;
+  });
   if (uniform) return first;
-  const upper = selectInPlace(spacings, count >> 1);
+  if (count <= IN_MEMORY_SPACINGS) {
+    const spacings = new Float64Array(count);
+    let i = 0;
+    forEachSpacing(timesS, (d) => (spacings[i++] = d));
+    const upper = selectInPlace(spacings, count >> 1);
+    if (count % 2 === 1) return upper;
+    let lower = Number.NEGATIVE_INFINITY;
+    for (let j = 0; j < count >> 1; j++) if (spacings[j] > lower) lower = spacings[j];
+    return (lower + upper) / 2;
+  }
+  const upper = selectStreaming(timesS, count >> 1, minS, maxS);
   if (count % 2 === 1) return upper;
-  let lower = Number.NEGATIVE_INFINITY;
-  for (let i = 0; i < count >> 1; i++) if (spacings[i] > lower) lower = spacings[i];
-  return (lower + upper) / 2;
+  return (selectStreaming(timesS, (count >> 1) - 1, minS, maxS) + upper) / 2;
+}
+
+/** Calls `visit` with every spacing t[i+1] − t[i], in order. */
+function forEachSpacing(timesS: Series, visit: (spacingS: number) => void): void {
+  let previous = Number.NaN;
+  timesS.scan(0, timesS.length, (values, firstIndex) => {
+    let j = 0;
+    if (firstIndex === 0) {
+      previous = values[0];
+      j = 1;
+    }
+    for (; j < values.length; j++) {
+      visit(values[j] - previous);
+      previous = values[j];
+    }
+  });
+}
+
+/**
+ * The k-th smallest spacing (0-based) without holding them all: each pass bins the spacings
+ * within [lowS, highS] and keeps the bin holding the k-th, until one bin is small enough to
+ * copy and select in memory.
+ */
+function selectStreaming(timesS: Series, k: number, lowS: number, highS: number): number {
+  for (;;) {
+    if (!(highS > lowS)) return lowS;
+    const widthS = (highS - lowS) / SELECT_BINS;
+    const counts = new Float64Array(SELECT_BINS);
+    let below = 0;
+    const binOf = (d: number) => Math.min(SELECT_BINS - 1, Math.floor((d - lowS) / widthS));
+    forEachSpacing(timesS, (d) => {
+      if (d < lowS) below++;
+      else if (d <= highS) counts[binOf(d)]++;
+    });
+    let rank = k - below;
+    let bin = 0;
+    while (bin < SELECT_BINS - 1 && rank >= counts[bin]) rank -= counts[bin++];
+    if (counts[bin] <= IN_MEMORY_SPACINGS) {
+      const values = new Float64Array(counts[bin]);
+      let i = 0;
+      forEachSpacing(timesS, (d) => {
+        if (d >= lowS && d <= highS && binOf(d) === bin && i < values.length) values[i++] = d;
+      });
+      return selectInPlace(values.subarray(0, i), Math.min(rank, i - 1));
+    }
+    // the bin's own edges, as binOf places values (a value on an edge may fall either side of a float boundary)
+    let nextLow = Number.POSITIVE_INFINITY;
+    let nextHigh = Number.NEGATIVE_INFINITY;
+    forEachSpacing(timesS, (d) => {
+      if (d >= lowS && d <= highS && binOf(d) === bin) {
+        if (d < nextLow) nextLow = d;
+        if (d > nextHigh) nextHigh = d;
+      }
+    });
+    // k stays the rank among all spacings: the next pass counts those below the new range again
+    lowS = nextLow;
+    highS = nextHigh;
+  }
 }
 
 /**

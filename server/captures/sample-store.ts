@@ -1,0 +1,271 @@
+import { closeSync, mkdirSync, openSync, readFileSync, readSync, writeFileSync, writeSync } from 'node:fs';
+import path from 'node:path';
+import { scaleValue } from '../../shared/capture/parse';
+import type { RowSink } from '../../shared/capture/sample-buffer';
+import type { Series } from '../../shared/capture/series';
+
+/**
+ * Samples on disk, one binary file per column, so that a capture of any length is read a block
+ * at a time rather than held in memory. Values are stored as the file wrote them (before a unit
+ * from the preamble is applied); the reader applies each column's power of ten the way the
+ * in-memory parser does, so both give the same doubles.
+ *
+ * A store is a directory: `meta.json`, `time.f64` (absent when the times are start + i·interval)
+ * and `ch<N>.f64` or `ch<N>.f32` per channel (1-based).
+ */
+export interface StoreMeta {
+  rows: number;
+  channelCount: number;
+  /** 'f64' as parsed (for the analysis); 'f32' for plots (a quarter of the CSV's size or less). */
+  precision: 'f64' | 'f32';
+  timeExp10: number;
+  channelExp10s: number[];
+  /** Set when the times are start + i·interval (within a millionth of the interval), and no time file is kept. */
+  uniformTime?: { startS: number; intervalS: number };
+}
+
+const WRITE_ROWS = 1 << 16;
+
+/** Rows from the parser, straight to one file per column, a block at a time. */
+export class SampleFileWriter implements RowSink {
+  length = 0;
+  private last = Number.NEGATIVE_INFINITY;
+  private readonly fds: number[];
+  private readonly blocks: Float64Array[];
+  private fill = 0;
+
+  constructor(
+    readonly dir: string,
+    readonly channelCount: number,
+  ) {
+    mkdirSync(dir, { recursive: true });
+    const names = ['time.f64', ...Array.from({ length: channelCount }, (_, c) => `ch${c + 1}.f64`)];
+    this.fds = names.map((name) => openSync(path.join(dir, name), 'w'));
+    this.blocks = names.map(() => new Float64Array(WRITE_ROWS));
+  }
+
+  lastTimeS(): number {
+    return this.last;
+  }
+
+  pushRow(timeS: number, values: Float64Array): void {
+    const at = this.fill;
+    this.blocks[0][at] = timeS;
+    for (let c = 0; c < this.channelCount; c++) this.blocks[c + 1][at] = values[c];
+    this.last = timeS;
+    this.length++;
+    if (++this.fill === WRITE_ROWS) this.flush();
+  }
+
+  /** Writes what is buffered and closes the files; then the store can be opened. */
+  close(meta: Omit<StoreMeta, 'rows' | 'channelCount' | 'precision'>): void {
+    this.flush();
+    for (const fd of this.fds) closeSync(fd);
+    this.fds.length = 0;
+    writeMeta(this.dir, { ...meta, rows: this.length, channelCount: this.channelCount, precision: 'f64' });
+  }
+
+  /** Closes the files without a usable store (the parse failed). */
+  abandon(): void {
+    for (const fd of this.fds) closeSync(fd);
+    this.fds.length = 0;
+  }
+
+  private flush(): void {
+    if (this.fill === 0) return;
+    this.fds.forEach((fd, k) => writeAll(fd, new Uint8Array(this.blocks[k].buffer, 0, this.fill * 8)));
+    this.fill = 0;
+  }
+}
+
+function writeAll(fd: number, bytes: Uint8Array): void {
+  let done = 0;
+  while (done < bytes.length) done += writeSync(fd, bytes, done, bytes.length - done);
+}
+
+function writeMeta(dir: string, meta: StoreMeta): void {
+  writeFileSync(path.join(dir, 'meta.json'), JSON.stringify(meta));
+}
+
+export function readMeta(dir: string): StoreMeta {
+  return JSON.parse(readFileSync(path.join(dir, 'meta.json'), 'utf8')) as StoreMeta;
+}
+
+const PAGE_SHIFT = 15;
+const PAGE = 1 << PAGE_SHIFT;
+const PAGES_KEPT = 4;
+const SCAN_ROWS = 1 << 16;
+
+/**
+ * One column of a store, read on demand: `get` through a few cached pages of 32,768 samples
+ * (the work about an edge reads the same neighbourhood again and again), `scan` a block at a time.
+ */
+export class FileSeries implements Series {
+  private readonly pageIds = new Float64Array(PAGES_KEPT).fill(-1);
+  private readonly pages: Float64Array[] = [];
+  private recent = 0;
+  private scratch: Float64Array | null = null;
+  private raw: Float32Array | null = null;
+  private nextSlot = 0;
+
+  constructor(
+    private readonly fd: number,
+    readonly length: number,
+    private readonly precision: 'f64' | 'f32',
+    private readonly exp10: number,
+  ) {
+    for (let k = 0; k < PAGES_KEPT; k++) this.pages.push(new Float64Array(PAGE));
+  }
+
+  get(i: number): number {
+    const id = Math.floor(i / PAGE);
+    if (this.pageIds[this.recent] === id) return this.pages[this.recent][i - id * PAGE];
+    for (let k = 0; k < PAGES_KEPT; k++) {
+      if (this.pageIds[k] === id) {
+        this.recent = k;
+        return this.pages[k][i - id * PAGE];
+      }
+    }
+    const slot = this.nextSlot;
+    this.nextSlot = (slot + 1) % PAGES_KEPT;
+    this.read(id * PAGE, Math.min(this.length, (id + 1) * PAGE), this.pages[slot]);
+    this.pageIds[slot] = id;
+    this.recent = slot;
+    return this.pages[slot][i - id * PAGE];
+  }
+
+  scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {
+    this.scratch ??= new Float64Array(SCAN_ROWS);
+    const scratch = this.scratch;
+    for (let start = Math.max(0, from); start < Math.min(to, this.length); start += SCAN_ROWS) {
+      const end = Math.min(to, this.length, start + SCAN_ROWS);
+      this.read(start, end, scratch);
+      visit(scratch.subarray(0, end - start), start);
+    }
+  }
+
+  /** Samples [from, to) into `out`, scaled. */
+  private read(from: number, to: number, out: Float64Array): void {
+    const count = to - from;
+    if (this.precision === 'f64') {
+      readAll(this.fd, new Uint8Array(out.buffer, out.byteOffset, count * 8), from * 8);
+    } else {
+      if (this.raw === null || this.raw.length < count) this.raw = new Float32Array(Math.max(count, PAGE));
+      readAll(this.fd, new Uint8Array(this.raw.buffer, 0, count * 4), from * 4);
+      for (let k = 0; k < count; k++) out[k] = this.raw[k];
+    }
+    if (this.exp10 !== 0) for (let k = 0; k < count; k++) out[k] = scaleValue(out[k], this.exp10);
+  }
+}
+
+function readAll(fd: number, bytes: Uint8Array, position: number): void {
+  let done = 0;
+  while (done < bytes.length) {
+    const read = readSync(fd, bytes, done, bytes.length - done, position + done);
+    if (read === 0) throw new Error('the stored samples end early');
+    done += read;
+  }
+}
+
+/** Times start + i·interval, computed rather than stored. */
+export class UniformSeries implements Series {
+  private scratch: Float64Array | null = null;
+
+  constructor(
+    readonly length: number,
+    private readonly startS: number,
+    private readonly intervalS: number,
+  ) {}
+
+  get(i: number): number {
+    return this.startS + i * this.intervalS;
+  }
+
+  scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {
+    this.scratch ??= new Float64Array(SCAN_ROWS);
+    for (let start = Math.max(0, from); start < Math.min(to, this.length); start += SCAN_ROWS) {
+      const end = Math.min(to, this.length, start + SCAN_ROWS);
+      for (let i = start; i < end; i++) this.scratch[i - start] = this.startS + i * this.intervalS;
+      visit(this.scratch.subarray(0, end - start), start);
+    }
+  }
+}
+
+/** An open store: its time axis and channels as series, and the files to close. */
+export interface OpenStore {
+  meta: StoreMeta;
+  timesS: Series;
+  /** Channel `n` (1-based), opened on first use. */
+  channel(n: number): Series;
+  close(): void;
+}
+
+export function openStore(dir: string): OpenStore {
+  const meta = readMeta(dir);
+  const fds: number[] = [];
+  const open = (name: string) => {
+    const fd = openSync(path.join(dir, name), 'r');
+    fds.push(fd);
+    return fd;
+  };
+  const timesS = meta.uniformTime
+    ? new UniformSeries(meta.rows, meta.uniformTime.startS, meta.uniformTime.intervalS)
+    : new FileSeries(open('time.f64'), meta.rows, 'f64', meta.timeExp10);
+  const channels = new Map<number, Series>();
+  return {
+    meta,
+    timesS,
+    channel(n: number): Series {
+      let series = channels.get(n);
+      if (!series) {
+        series = new FileSeries(open(`ch${n}.${meta.precision}`), meta.rows, meta.precision, meta.channelExp10s[n - 1] ?? 0);
+        channels.set(n, series);
+      }
+      return series;
+    },
+    close(): void {
+      for (const fd of fds.splice(0)) closeSync(fd);
+    },
+  };
+}
+
+/**
+ * A compact copy of a store for plots: channels as Float32 (scaled to volts), the time axis as
+ * start + i·interval when every time lies within a millionth of an interval of it, else Float64
+ * seconds. One pass over each column.
+ */
+export function writePlotStore(source: OpenStore, dir: string): void {
+  mkdirSync(dir, { recursive: true });
+  const { rows, channelCount } = source.meta;
+  const startS = source.timesS.get(0);
+  const intervalS = rows > 1 ? (source.timesS.get(rows - 1) - startS) / (rows - 1) : 0;
+  let uniform = rows > 1 && intervalS > 0;
+  if (uniform) {
+    source.timesS.scan(0, rows, (values, first) => {
+      for (let k = 0; k < values.length && uniform; k++) if (Math.abs(values[k] - (startS + (first + k) * intervalS)) > 1e-6 * intervalS) uniform = false;
+    });
+  }
+  if (!uniform) copyColumn(source.timesS, path.join(dir, 'time.f64'), 'f64');
+  for (let c = 1; c <= channelCount; c++) copyColumn(source.channel(c), path.join(dir, `ch${c}.f32`), 'f32');
+  writeMeta(dir, {
+    rows,
+    channelCount,
+    precision: 'f32',
+    timeExp10: 0,
+    channelExp10s: Array.from({ length: channelCount }, () => 0),
+    ...(uniform ? { uniformTime: { startS, intervalS } } : {}),
+  });
+}
+
+function copyColumn(series: Series, file: string, precision: 'f64' | 'f32'): void {
+  const fd = openSync(file, 'w');
+  try {
+    const out = precision === 'f64' ? new Float64Array(SCAN_ROWS) : new Float32Array(SCAN_ROWS);
+    series.scan(0, series.length, (values) => {
+      out.set(values);
+      writeAll(fd, new Uint8Array(out.buffer, 0, values.length * out.BYTES_PER_ELEMENT));
+    });
+  } finally {
+    closeSync(fd);
+  }
+}

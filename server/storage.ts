@@ -14,7 +14,12 @@ export function storagePaths(config: Config) {
     incomingDir,
     fileFor: (storageName: string) => path.join(uploadsDir, path.basename(storageName)),
     newName: (extension: string) => `${randomUUID()}.${extension}`,
-    remove: (storageName: string) => rm(path.join(uploadsDir, path.basename(storageName)), { force: true }),
+    // a capture's compact samples for plots live beside it (`<name>.plot`) and go with it
+    remove: async (storageName: string) => {
+      const file = path.join(uploadsDir, path.basename(storageName));
+      await rm(file, { force: true });
+      await rm(`${file}.plot`, { recursive: true, force: true });
+    },
   };
 }
 export type StoragePaths = ReturnType<typeof storagePaths>;

@@ -11,13 +11,17 @@ import type { Series } from '../../shared/capture/series';
  * in-memory parser does, so both give the same doubles.
  *
  * A store is a directory: `meta.json`, `time.f64` (absent when the times are start + i·interval)
- * and `ch<N>.f64` or `ch<N>.f32` per channel (1-based).
+ * and per channel (1-based) `ch<N>.f64` (as parsed, for the analysis) or, for plots, `ch<N>.i32`
+ * (whole multiples of 10^−d V, when every value is one: the usual export with fixed decimals, kept
+ * exactly) else `ch<N>.f32`.
  */
 export interface StoreMeta {
   rows: number;
   channelCount: number;
-  /** 'f64' as parsed (for the analysis); 'f32' for plots (a quarter of the CSV's size or less). */
-  precision: 'f64' | 'f32';
+  /** 'f64' as parsed (for the analysis); 'compact' for plots (4 bytes a sample, a fifth of the CSV or less). */
+  precision: 'f64' | 'compact';
+  /** In a compact store, per channel: d when stored as whole multiples of 10^−d (`ch<N>.i32`), null for `ch<N>.f32`. */
+  channelDecimals?: (number | null)[];
   timeExp10: number;
   channelExp10s: number[];
   /** Set when the times are start + i·interval (within a millionth of the interval), and no time file is kept. */
@@ -105,15 +109,20 @@ export class FileSeries implements Series {
   private readonly pages: Float64Array[] = [];
   private recent = 0;
   private scratch: Float64Array | null = null;
-  private raw: Float32Array | null = null;
+  private raw: Float32Array | Int32Array | null = null;
   private nextSlot = 0;
 
+  private readonly divisor: number;
+
+  /** @param decimals for 'i32': the stored integers are the values times 10^decimals */
   constructor(
     private readonly fd: number,
     readonly length: number,
-    private readonly precision: 'f64' | 'f32',
+    private readonly format: 'f64' | 'f32' | 'i32',
     private readonly exp10: number,
+    decimals = 0,
   ) {
+    this.divisor = 10 ** decimals;
     for (let k = 0; k < PAGES_KEPT; k++) this.pages.push(new Float64Array(PAGE));
   }
 
@@ -147,12 +156,14 @@ export class FileSeries implements Series {
   /** Samples [from, to) into `out`, scaled. */
   private read(from: number, to: number, out: Float64Array): void {
     const count = to - from;
-    if (this.precision === 'f64') {
+    if (this.format === 'f64') {
       readAll(this.fd, new Uint8Array(out.buffer, out.byteOffset, count * 8), from * 8);
     } else {
-      if (this.raw === null || this.raw.length < count) this.raw = new Float32Array(Math.max(count, PAGE));
-      readAll(this.fd, new Uint8Array(this.raw.buffer, 0, count * 4), from * 4);
-      for (let k = 0; k < count; k++) out[k] = this.raw[k];
+      if (this.raw === null || this.raw.length < count) this.raw = this.format === 'f32' ? new Float32Array(Math.max(count, PAGE)) : new Int32Array(Math.max(count, PAGE));
+      const raw = this.raw;
+      readAll(this.fd, new Uint8Array(raw.buffer, 0, count * 4), from * 4);
+      if (this.format === 'f32') for (let k = 0; k < count; k++) out[k] = raw[k];
+      else for (let k = 0; k < count; k++) out[k] = raw[k] / this.divisor;
     }
     if (this.exp10 !== 0) for (let k = 0; k < count; k++) out[k] = scaleValue(out[k], this.exp10);
   }
@@ -218,7 +229,9 @@ export function openStore(dir: string): OpenStore {
     channel(n: number): Series {
       let series = channels.get(n);
       if (!series) {
-        series = new FileSeries(open(`ch${n}.${meta.precision}`), meta.rows, meta.precision, meta.channelExp10s[n - 1] ?? 0);
+        const decimals = meta.channelDecimals?.[n - 1] ?? null;
+        const format = meta.precision === 'f64' ? 'f64' : decimals === null ? 'f32' : 'i32';
+        series = new FileSeries(open(`ch${n}.${format}`), meta.rows, format, meta.channelExp10s[n - 1] ?? 0, decimals ?? 0);
         channels.set(n, series);
       }
       return series;
@@ -230,7 +243,8 @@ export function openStore(dir: string): OpenStore {
 }
 
 /**
- * A compact copy of a store for plots: channels as Float32 (scaled to volts), the time axis as
+ * A compact copy of a store for plots: channels (in volts) as whole multiples of 10^−d in Int32
+ * when that keeps every value exactly, else Float32; the time axis as
  * start + i·interval when every time lies within a millionth of an interval of it, else Float64
  * seconds. One pass over each column.
  */
@@ -246,23 +260,59 @@ export function writePlotStore(source: OpenStore, dir: string): void {
     });
   }
   if (!uniform) copyColumn(source.timesS, path.join(dir, 'time.f64'), 'f64');
-  for (let c = 1; c <= channelCount; c++) copyColumn(source.channel(c), path.join(dir, `ch${c}.f32`), 'f32');
+  const channelDecimals: (number | null)[] = [];
+  for (let c = 1; c <= channelCount; c++) {
+    const decimals = exactDecimals(source.channel(c));
+    channelDecimals.push(decimals);
+    copyColumn(source.channel(c), path.join(dir, `ch${c}.${decimals === null ? 'f32' : 'i32'}`), decimals === null ? 'f32' : 'i32', decimals ?? 0);
+  }
   writeMeta(dir, {
     rows,
     channelCount,
-    precision: 'f32',
+    precision: 'compact',
+    channelDecimals,
     timeExp10: 0,
     channelExp10s: Array.from({ length: channelCount }, () => 0),
     ...(uniform ? { uniformTime: { startS, intervalS } } : {}),
   });
 }
 
-function copyColumn(series: Series, file: string, precision: 'f64' | 'f32'): void {
+const MAX_DECIMALS = 9;
+const I32_MAX = 2 ** 31 - 1;
+
+/**
+ * The fewest decimals d such that every value v is exactly round(v·10^d)/10^d with the integer
+ * within Int32 (so the plot gets back the very doubles the parser read), or null. Two passes:
+ * find d, then check every value at it.
+ */
+function exactDecimals(series: Series): number | null {
+  let decimals = 0;
+  const exact = (v: number, d: number) => {
+    const scale = 10 ** d;
+    const n = Math.round(v * scale);
+    return Math.abs(n) <= I32_MAX && n / scale === v;
+  };
+  series.scan(0, series.length, (values) => {
+    for (let k = 0; k < values.length && decimals <= MAX_DECIMALS; k++) {
+      while (decimals <= MAX_DECIMALS && !exact(values[k], decimals)) decimals++;
+    }
+  });
+  if (decimals > MAX_DECIMALS) return null;
+  let all = true;
+  series.scan(0, series.length, (values) => {
+    for (let k = 0; k < values.length && all; k++) if (!exact(values[k], decimals)) all = false;
+  });
+  return all ? decimals : null;
+}
+
+function copyColumn(series: Series, file: string, format: 'f64' | 'f32' | 'i32', decimals = 0): void {
   const fd = openSync(file, 'w');
   try {
-    const out = precision === 'f64' ? new Float64Array(SCAN_ROWS) : new Float32Array(SCAN_ROWS);
+    const out = format === 'f64' ? new Float64Array(SCAN_ROWS) : format === 'f32' ? new Float32Array(SCAN_ROWS) : new Int32Array(SCAN_ROWS);
+    const scale = 10 ** decimals;
     series.scan(0, series.length, (values) => {
-      out.set(values);
+      if (format === 'i32') for (let k = 0; k < values.length; k++) out[k] = Math.round(values[k] * scale);
+      else out.set(values);
       writeAll(fd, new Uint8Array(out.buffer, 0, values.length * out.BYTES_PER_ELEMENT));
     });
   } finally {

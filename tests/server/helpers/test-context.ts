@@ -37,6 +37,8 @@ export interface TestContextOptions {
   onDisk?: boolean;
   /** As TRUST_PROXY would set it. */
   trustProxy?: Config['trustProxy'];
+  /** As CAPTURE_LIMIT_BYTES would set it. */
+  captureLimitBytes?: number;
 }
 
 /** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
@@ -56,6 +58,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
     demoPassword: DEMO_PASSWORD,
     production: false,
     trustProxy: options.trustProxy,
+    captureLimitBytes: options.captureLimitBytes,
   };
   // the queue's sweep also turns password reset requests into mails
   const mail = createMailQueue(db, mailer, { prepare: (queue) => resolvePasswordResetRequests({ db, config, mail: queue }) });

@@ -1,4 +1,4 @@
-import { CaptureParser, MAX_LINE_CHARS, ROW_FAILED, ROW_TAKEN, SLOT_TIME } from './parse';
+import { CaptureParser, MAX_LINE_CHARS, ROW_FAILED, ROW_TAKEN, SLOT_NONE, SLOT_TIME } from './parse';
 import { readNumberBytes } from './read-number';
 import { CONTROL } from './separators';
 
@@ -73,23 +73,28 @@ export class ByteCaptureParser extends CaptureParser {
     const decimalComma = layout.decimalComma;
     row.fill(Number.NaN);
     let timeValue = Number.NaN;
-    let column = 0;
-    let cellStart = start;
     let control = false;
-    for (let i = start; ; i++) {
-      const code = i === end ? -1 : bytes[i];
-      if (code < 32 && code >= 0 && code !== separator && CONTROL_BYTE[code]) control = true;
-      if (code === -1 || code === separator) {
-        const slot = slots[column];
-        if (slot === SLOT_TIME) timeValue = readNumberBytes(bytes, cellStart, i, decimalComma, this.timeExp10);
-        else if (slot >= 0) row[slot] = readNumberBytes(bytes, cellStart, i, decimalComma, exp10s[slot]);
-        if (column === lastColumn || code === -1) {
-          for (let k = i + 1; k < end && !control; k++) if (bytes[k] < 32 && CONTROL_BYTE[bytes[k]]) control = true;
-          break;
-        }
-        column++;
-        cellStart = i + 1;
+    for (let column = 0, i = start; ; column++) {
+      const slot = slots[column];
+      let cellEnd = -1;
+      let value = Number.NaN;
+      if (slot !== SLOT_NONE) {
+        value = plainNumber(bytes, i, end, separator, decimalComma, slot === SLOT_TIME ? this.timeExp10 : exp10s[slot]);
+        cellEnd = plainEnd;
       }
+      if (cellEnd < 0) {
+        // not a plain number (or no number wanted): find the cell's end the slow way, watching for control bytes
+        cellEnd = i;
+        for (; cellEnd < end && bytes[cellEnd] !== separator; cellEnd++) if (bytes[cellEnd] < 32 && CONTROL_BYTE[bytes[cellEnd]]) control = true;
+        if (slot !== SLOT_NONE) value = readNumberBytes(bytes, i, cellEnd, decimalComma, slot === SLOT_TIME ? this.timeExp10 : exp10s[slot]);
+      }
+      if (slot === SLOT_TIME) timeValue = value;
+      else if (slot >= 0) row[slot] = value;
+      if (column === lastColumn || cellEnd >= end) {
+        for (let k = cellEnd + 1; k < end && !control; k++) if (bytes[k] < 32 && CONTROL_BYTE[bytes[k]]) control = true;
+        break;
+      }
+      i = cellEnd + 1;
     }
     const plain = !control && (layout.metadataColumns === 0 || start === end || bytes[start] === separator);
     if (plain) {
@@ -116,4 +121,60 @@ export class ByteCaptureParser extends CaptureParser {
     }
     return super.finishColumns();
   }
+}
+
+/** Exact powers of ten (every one up to 1e22 is a double). */
+const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+
+/** Where the last `plainNumber` stopped (the separator or the line's end), or −1 when it gave up. */
+let plainEnd = -1;
+
+/**
+ * The common cell, read in the same pass that finds its end: an optional sign, digits with one
+ * decimal mark, an optional exponent, and right after it the separator or the end of the line.
+ * Converted exactly as `readNumber` converts it (at most 15 significant digits and a power of
+ * ten up to 1e22: one correctly rounded multiply or divide). Anything else (blanks, quotes, long
+ * mantissas, huge exponents) sets `plainEnd` to −1 and is left to `readNumberBytes`.
+ */
+function plainNumber(bytes: Uint8Array, i: number, end: number, separator: number, decimalComma: boolean, scaleExp10: number): number {
+  plainEnd = -1;
+  let code = i < end ? bytes[i] : -1;
+  const negative = code === 45;
+  if (negative || code === 43) code = ++i < end ? bytes[i] : -1;
+  let mantissa = 0;
+  let digits = 0;
+  let exp10 = 0;
+  let sawDigit = false;
+  let sawMark = false;
+  for (; i < end; code = ++i < end ? bytes[i] : -1) {
+    if (code >= 48 && code <= 57) {
+      sawDigit = true;
+      if (mantissa !== 0 || code !== 48) {
+        if (++digits > 15) return Number.NaN;
+        mantissa = mantissa * 10 + (code - 48);
+      }
+      if (sawMark) exp10--;
+    } else if (!sawMark && (code === 46 || (decimalComma && code === 44))) sawMark = true;
+    else break;
+  }
+  if (!sawDigit) return Number.NaN;
+  if (code === 101 || code === 69) {
+    code = ++i < end ? bytes[i] : -1;
+    const exponentNegative = code === 45;
+    if (exponentNegative || code === 43) code = ++i < end ? bytes[i] : -1;
+    let exponent = 0;
+    let exponentDigits = 0;
+    for (; i < end && code >= 48 && code <= 57; code = ++i < end ? bytes[i] : -1) {
+      if (++exponentDigits > 4) return Number.NaN;
+      exponent = exponent * 10 + (code - 48);
+    }
+    if (exponentDigits === 0) return Number.NaN;
+    exp10 += exponentNegative ? -exponent : exponent;
+  }
+  if (i < end && code !== separator) return Number.NaN;
+  const totalExp10 = exp10 + scaleExp10;
+  if (totalExp10 < -22 || totalExp10 > 22) return Number.NaN;
+  plainEnd = i;
+  const value = mantissa === 0 ? 0 : totalExp10 < 0 ? mantissa / POW10[-totalExp10] : mantissa * POW10[totalExp10];
+  return negative ? -value : value;
 }

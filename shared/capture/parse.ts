@@ -14,7 +14,7 @@ export { scaleValue, type ParsedColumns } from './parse-result';
 /** A capture's control bytes (as `CONTROL`), by code, for the byte reader. */
 
 export const MAX_LINE_CHARS = 1 << 20;
-const SLOT_NONE = -2;
+export const SLOT_NONE = -2;
 export const SLOT_TIME = -1;
 export const ROW_TAKEN = 0;
 export const ROW_FAILED = 1;

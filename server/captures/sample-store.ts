@@ -95,19 +95,17 @@ export function readMeta(dir: string): StoreMeta {
   return JSON.parse(readFileSync(path.join(dir, 'meta.json'), 'utf8')) as StoreMeta;
 }
 
-const PAGE_SHIFT = 15;
-const PAGE = 1 << PAGE_SHIFT;
+const PAGE = 1 << 16;
 const PAGES_KEPT = 4;
-const SCAN_ROWS = 1 << 16;
+const SCAN_ROWS = 1 << 18;
 
 /**
- * One column of a store, read on demand: `get` through a few cached pages of 32,768 samples
+ * One column of a store, read on demand: `get` through a few cached pages of 65,536 samples
  * (the work about an edge reads the same neighbourhood again and again), `scan` a block at a time.
  */
 export class FileSeries implements Series {
   private readonly pageIds = new Float64Array(PAGES_KEPT).fill(-1);
   private readonly pages: Float64Array[] = [];
-  private recent = 0;
   private scratch: Float64Array | null = null;
   private raw: Float32Array | Int32Array | null = null;
   private nextSlot = 0;
@@ -126,21 +124,30 @@ export class FileSeries implements Series {
     for (let k = 0; k < PAGES_KEPT; k++) this.pages.push(new Float64Array(PAGE));
   }
 
+  // the page read last, checked first: one subtraction and one comparison per sample
+  private lo = 0;
+  private span = 0;
+  private current: Float64Array = new Float64Array(0);
+
   get(i: number): number {
+    const k = i - this.lo;
+    return k >= 0 && k < this.span ? this.current[k] : this.miss(i);
+  }
+
+  private miss(i: number): number {
     const id = Math.floor(i / PAGE);
-    if (this.pageIds[this.recent] === id) return this.pages[this.recent][i - id * PAGE];
-    for (let k = 0; k < PAGES_KEPT; k++) {
-      if (this.pageIds[k] === id) {
-        this.recent = k;
-        return this.pages[k][i - id * PAGE];
-      }
+    let slot = -1;
+    for (let k = 0; k < PAGES_KEPT; k++) if (this.pageIds[k] === id) slot = k;
+    if (slot < 0) {
+      slot = this.nextSlot;
+      this.nextSlot = (slot + 1) % PAGES_KEPT;
+      this.read(id * PAGE, Math.min(this.length, (id + 1) * PAGE), this.pages[slot]);
+      this.pageIds[slot] = id;
     }
-    const slot = this.nextSlot;
-    this.nextSlot = (slot + 1) % PAGES_KEPT;
-    this.read(id * PAGE, Math.min(this.length, (id + 1) * PAGE), this.pages[slot]);
-    this.pageIds[slot] = id;
-    this.recent = slot;
-    return this.pages[slot][i - id * PAGE];
+    this.lo = id * PAGE;
+    this.span = Math.min(this.length, (id + 1) * PAGE) - this.lo;
+    this.current = this.pages[slot];
+    return this.current[i - this.lo];
   }
 
   scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {

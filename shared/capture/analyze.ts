@@ -128,13 +128,19 @@ export function analyzeCapture(samples: CaptureSamples | SampleSeries, options: 
   const onRail = (i: number) => (topRail && volts.get(i) === rails.maxV) || (bottomRail && volts.get(i) === rails.minV);
   const noiseV = noiseRmsV(volts, topRail || bottomRail ? onRail : undefined);
   let meanV = 0;
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
   volts.scan(0, points, (values) => {
-    for (let i = 0; i < values.length; i++) meanV += values[i];
+    let sum = meanV;
+    for (let i = 0; i < values.length; i++) sum += values[i];
+    meanV = sum;
   });
   meanV /= points;
   let variance = 0;
+  const centreV = meanV;
   volts.scan(0, points, (values) => {
-    for (let i = 0; i < values.length; i++) variance += (values[i] - meanV) ** 2;
+    let sum = variance;
+    for (let i = 0; i < values.length; i++) sum += (values[i] - centreV) ** 2;
+    variance = sum;
   });
   const stdV = Math.sqrt(variance / points);
 

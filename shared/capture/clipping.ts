@@ -22,12 +22,17 @@ export const MIN_RAIL_SHARE = 0.005;
 export function findRails(volts: Series): Rails {
   let maxV = Number.NEGATIVE_INFINITY;
   let minV = Number.POSITIVE_INFINITY;
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
   volts.scan(0, volts.length, (values) => {
+    let hi = maxV;
+    let lo = minV;
     for (let i = 0; i < values.length; i++) {
       const v = values[i];
-      if (v > maxV) maxV = v;
-      if (v < minV) minV = v;
+      if (v > hi) hi = v;
+      if (v < lo) lo = v;
     }
+    maxV = hi;
+    minV = lo;
   });
   let atMax = 0;
   let atMin = 0;
@@ -38,7 +43,11 @@ export function findRails(volts: Series): Rails {
   const nearV = 0.02 * (maxV - minV);
   let nearMax = 0;
   let nearMin = 0;
+  const top = maxV;
+  const bottom = minV;
   volts.scan(0, volts.length, (values) => {
+    const maxV = top;
+    const minV = bottom;
     for (let i = 0; i < values.length; i++) {
       const v = values[i];
       if (v < maxV && v > maxV - nearV) nearMax++;

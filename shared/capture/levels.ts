@@ -63,13 +63,20 @@ export function stateLevels(samples: Float64Array | Series): StateLevels {
   let minV = Number.POSITIVE_INFINITY;
   let maxV = Number.NEGATIVE_INFINITY;
   let sumV = 0;
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
   volts.scan(0, n, (values) => {
+    let lo = minV;
+    let hi = maxV;
+    let sum = sumV;
     for (let i = 0; i < values.length; i++) {
       const v = values[i];
-      if (v < minV) minV = v;
-      if (v > maxV) maxV = v;
-      sumV += v;
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+      sum += v;
     }
+    minV = lo;
+    maxV = hi;
+    sumV = sum;
   });
   const meanV = n > 0 ? sumV / n : Number.NaN;
   const rangeV = maxV - minV;

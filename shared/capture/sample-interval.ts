@@ -23,16 +23,35 @@ export function medianSampleIntervalS(times: Float64Array | Series): number | nu
   let uniform = true;
   let minS = Number.POSITIVE_INFINITY;
   let maxS = Number.NEGATIVE_INFINITY;
-  forEachSpacing(timesS, (d) => {
-    if (d !== first) uniform = false;
-    if (d < minS) minS = d;
-    if (d > maxS) maxS = d;
+  let previous = timesS.get(0);
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
+  timesS.scan(1, count + 1, (values) => {
+    let before = previous;
+    let lo = minS;
+    let hi = maxS;
+    for (let j = 0; j < values.length; j++) {
+      const d = values[j] - before;
+      before = values[j];
+      if (d !== first) uniform = false;
+      if (d < lo) lo = d;
+      if (d > hi) hi = d;
+    }
+    previous = before;
+    minS = lo;
+    maxS = hi;
   });
   if (uniform) return first;
   if (count <= IN_MEMORY_SPACINGS) {
     const spacings = new Float64Array(count);
-    let i = 0;
-    forEachSpacing(timesS, (d) => (spacings[i++] = d));
+    previous = timesS.get(0);
+    timesS.scan(1, count + 1, (values, firstIndex) => {
+      let before = previous;
+      for (let j = 0; j < values.length; j++) {
+        spacings[firstIndex - 1 + j] = values[j] - before;
+        before = values[j];
+      }
+      previous = before;
+    });
     const upper = selectInPlace(spacings, count >> 1);
     if (count % 2 === 1) return upper;
     let lower = Number.NEGATIVE_INFINITY;
@@ -44,58 +63,58 @@ export function medianSampleIntervalS(times: Float64Array | Series): number | nu
   return (selectStreaming(timesS, (count >> 1) - 1, minS, maxS) + upper) / 2;
 }
 
-/** Calls `visit` with every spacing t[i+1] − t[i], in order. */
-function forEachSpacing(timesS: Series, visit: (spacingS: number) => void): void {
-  let previous = Number.NaN;
-  timesS.scan(0, timesS.length, (values, firstIndex) => {
-    let j = 0;
-    if (firstIndex === 0) {
-      previous = values[0];
-      j = 1;
-    }
-    for (; j < values.length; j++) {
-      visit(values[j] - previous);
-      previous = values[j];
-    }
-  });
-}
-
 /**
  * The k-th smallest spacing (0-based) without holding them all: each pass bins the spacings
  * within [lowS, highS] and keeps the bin holding the k-th, until one bin is small enough to
  * copy and select in memory.
  */
 function selectStreaming(timesS: Series, k: number, lowS: number, highS: number): number {
+  const n = timesS.length;
+  const t0 = timesS.get(0);
   for (;;) {
     if (!(highS > lowS)) return lowS;
-    const widthS = (highS - lowS) / SELECT_BINS;
+    const lo = lowS;
+    const hi = highS;
+    const widthS = (hi - lo) / SELECT_BINS;
     const counts = new Float64Array(SELECT_BINS);
     let below = 0;
-    const binOf = (d: number) => Math.min(SELECT_BINS - 1, Math.floor((d - lowS) / widthS));
-    forEachSpacing(timesS, (d) => {
-      if (d < lowS) below++;
-      else if (d <= highS) counts[binOf(d)]++;
+    let previous = t0;
+    timesS.scan(1, n, (values) => {
+      let before = previous;
+      for (let j = 0; j < values.length; j++) {
+        const d = values[j] - before;
+        before = values[j];
+        if (d < lo) below++;
+        else if (d <= hi) counts[Math.min(SELECT_BINS - 1, Math.floor((d - lo) / widthS))]++;
+      }
+      previous = before;
     });
     let rank = k - below;
     let bin = 0;
     while (bin < SELECT_BINS - 1 && rank >= counts[bin]) rank -= counts[bin++];
-    if (counts[bin] <= IN_MEMORY_SPACINGS) {
-      const values = new Float64Array(counts[bin]);
-      let i = 0;
-      forEachSpacing(timesS, (d) => {
-        if (d >= lowS && d <= highS && binOf(d) === bin && i < values.length) values[i++] = d;
-      });
-      return selectInPlace(values.subarray(0, i), Math.min(rank, i - 1));
-    }
-    // the bin's own edges, as binOf places values (a value on an edge may fall either side of a float boundary)
+    const inBin = counts[bin];
+    const keep = inBin <= IN_MEMORY_SPACINGS ? new Float64Array(inBin) : null;
+    let kept = 0;
     let nextLow = Number.POSITIVE_INFINITY;
     let nextHigh = Number.NEGATIVE_INFINITY;
-    forEachSpacing(timesS, (d) => {
-      if (d >= lowS && d <= highS && binOf(d) === bin) {
-        if (d < nextLow) nextLow = d;
-        if (d > nextHigh) nextHigh = d;
+    previous = t0;
+    timesS.scan(1, n, (values) => {
+      let before = previous;
+      for (let j = 0; j < values.length; j++) {
+        const d = values[j] - before;
+        before = values[j];
+        if (d >= lo && d <= hi && Math.min(SELECT_BINS - 1, Math.floor((d - lo) / widthS)) === bin) {
+          if (keep !== null) {
+            if (kept < keep.length) keep[kept++] = d;
+          } else {
+            if (d < nextLow) nextLow = d;
+            if (d > nextHigh) nextHigh = d;
+          }
+        }
       }
+      previous = before;
     });
+    if (keep !== null) return selectInPlace(keep.subarray(0, kept), Math.min(rank, kept - 1));
     // k stays the rank among all spacings: the next pass counts those below the new range again
     lowS = nextLow;
     highS = nextHigh;

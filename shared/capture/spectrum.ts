@@ -47,17 +47,22 @@ export function amplitudeSpectrum(volts: Series, sampleIntervalS: number): { spe
   let sum = 0;
   let inGroup = 0;
   // groups of m consecutive samples, summed in order across the blocks the series hands out
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
   volts.scan(0, length * m, (values) => {
+    let groupSum = sum;
+    let total = mean;
     for (let j = 0; j < values.length; j++) {
-      sum += values[j];
+      groupSum += values[j];
       if (++inGroup === m) {
-        input[k] = sum / m;
-        mean += input[k];
+        input[k] = groupSum / m;
+        total += input[k];
         k++;
-        sum = 0;
+        groupSum = 0;
         inGroup = 0;
       }
     }
+    sum = groupSum;
+    mean = total;
   });
   mean /= length;
   let windowSum = 0;

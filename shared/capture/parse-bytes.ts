@@ -38,14 +38,25 @@ export class ByteCaptureParser extends CaptureParser {
     if (this.error !== null || bytes.length === 0) return;
     this.decodeBytes = decode;
     try {
-      if (this.pendingBytes !== null) {
-        const joined = new Uint8Array(this.pendingBytes.length + bytes.length);
-        joined.set(this.pendingBytes);
-        joined.set(bytes, this.pendingBytes.length);
-        bytes = joined;
-        this.pendingBytes = null;
-      }
       let start = 0;
+      if (this.pendingBytes !== null) {
+        // only the line cut between chunks is joined, not the whole chunk
+        const at = bytes.indexOf(10);
+        const head = at < 0 ? bytes : bytes.subarray(0, at + 1);
+        const joined = new Uint8Array(this.pendingBytes.length + head.length);
+        joined.set(this.pendingBytes);
+        joined.set(head, this.pendingBytes.length);
+        this.pendingBytes = null;
+        if (at < 0) {
+          if (joined.length > MAX_LINE_CHARS) this.keepPending('x'.repeat(MAX_LINE_CHARS + 1));
+          else this.pendingBytes = joined;
+          return;
+        }
+        this.line++;
+        const end = joined.length - 1;
+        this.readDataBytes(joined, 0, end > 0 && joined[end - 1] === 13 ? end - 1 : end, decode);
+        start = at + 1;
+      }
       while (this.error === null) {
         const at = bytes.indexOf(10, start);
         if (at < 0) break;

@@ -9,7 +9,7 @@ import { feedCaptureStream } from './read-capture-stream';
 import { openStore, SampleFileWriter, writePlotStore, type OpenStore } from './sample-store';
 
 // Large reads: fewer trips through the stream machinery for a file of a gigabyte.
-const READ_CHUNK_BYTES = 1 << 20;
+const READ_CHUNK_BYTES = 1 << 19;
 
 /** A scratch directory beside `file` (same disk, never a RAM-backed temp dir), removed by the caller. */
 export function scratchDirFor(file: string, purpose: string): string {

@@ -2,7 +2,7 @@ import { asSeries, type Series } from './series';
 
 // Up to this many spacings are copied and selected in memory; beyond, the median is found by
 // narrowing histograms over further passes, so memory stays bounded however long the record.
-const IN_MEMORY_SPACINGS = 1 << 20;
+const IN_MEMORY_SPACINGS = 1 << 18;
 const SELECT_BINS = 4096;
 
 /**

@@ -1,55 +1,66 @@
 /**
- * Capture benchmark: `npx tsx bench/capture.ts` (npm run bench:capture).
+ * Capture benchmark: `npx tsx bench/capture.ts [samples…]` (npm run bench:capture; default 1M and 10M).
  *
- * Writes a 1,000,000-sample capture CSV (a 1 MHz square wave with ringing edges and noise) to a
- * temp file, then measures, each in a fresh child process so their peak memory does not mix:
- *  - stream: fs.createReadStream → readCaptureStream → analyzeCapture (what the server does);
- *  - naive:  fs.readFileSync of the whole text, split into lines, parseFloat each cell, then the
- *    same analyzeCapture — the baseline, measured in the same run.
- * Figures: wall time of parse + analysis (median of the runs) and peak resident set size
- * (getrusage maxRSS, the high-water mark, which a synchronous run cannot hide from a sampler).
- * The analysis includes the new measurements (shape, clipping, tilt, corner, noise) and the
- * spectrum (fft.js) behind hum and the strongest lines.
- * Target: under 1 s and under 250 MB on 2 cores.
+ * For each size, writes a capture CSV (a 1 MHz square wave with ringing edges and noise, 1 ns
+ * sampling) to a temp file, then runs on that same file, alternately, in fresh child processes
+ * so that their peak memory does not mix:
+ *  - app:   what the server does with an upload: `analyzeCaptureFile` (a streaming parse from
+ *           the bytes into binary columns on disk, then the whole analysis reading those a block
+ *           at a time: levels, edges, overshoot, ringing, period, shape, clipping, tilt, corner,
+ *           noise, the spectrum by fft.js and hum);
+ *  - numpy: bench/capture_numpy.py (Debian's python3-numpy): the CSV read by numpy.loadtxt and by
+ *           np.fromstring (the faster is the baseline), levels by histogram, 10/50/90 % crossings
+ *           with hysteresis, rise/fall time and period: less work than the app does.
+ * Figures: wall time from opening the file to the result, inside each process (start-up and
+ * imports excluded on both sides), median of the runs; the app's peak resident set size
+ * (getrusage maxRSS of its child process, a high-water mark no sampler can miss).
+ * Targets: app ≤ 1.0× numpy's time at every size, app RSS ≤ 150 MB at 10M samples.
  */
 import { spawnSync } from 'node:child_process';
-import { createReadStream, createWriteStream, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
+import { once } from 'node:events';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { performance } from 'node:perf_hooks';
-import { once } from 'node:events';
-import { readCaptureStream } from '../server/captures/read-capture-stream';
-import { analyzeCapture, type CaptureAnalysis } from '../shared/capture/analyze';
+import { analyzeCaptureFile } from '../server/captures/analyze-file';
 import { gaussian, mulberry32, secondOrderStep, squareWaveform } from '../shared/capture/synthetic';
 
-const SAMPLES = 1_000_000;
+const SIZES = [1_000_000, 10_000_000];
 const SAMPLE_INTERVAL_S = 1e-9;
 const RUNS = 3;
-const TARGET_S = 1;
-const TARGET_MB = 250;
+const TARGET_RATIO = 1.0;
+const TARGET_RSS_MB = 150;
+const NUMPY_SCRIPT = fileURLToPath(new URL('./capture_numpy.py', import.meta.url));
 
-interface ChildReport {
-  mode: 'stream' | 'naive';
-  parseS: number;
-  analyzeS: number;
-  totalS: number;
-  startRssMB: number;
-  peakRssMB: number;
-  peakHeapMB: number;
-  analysis: Pick<CaptureAnalysis, 'points' | 'riseTimeS' | 'overshootPct' | 'ringingFrequencyHz' | 'periodS' | 'shape' | 'noiseRmsV' | 'tiltPct' | 'cornerPct' | 'humFrequencyHz'> & { strongestLineHz: number | null };
+interface Measured {
+  points: number;
+  baseV: number | null;
+  topV: number | null;
+  riseTimeS: number | null;
+  fallTimeS: number | null;
+  periodS: number | null;
 }
 
-async function writeCapture(file: string): Promise<void> {
+interface Report {
+  totalS: number;
+  parseS?: number;
+  analyzeS?: number;
+  peakRssMB: number | null;
+  reader?: string;
+  analysis: Measured & Record<string, unknown>;
+}
+
+async function writeCapture(file: string, samples: number): Promise<void> {
   // 1 MHz clock, 0 to 3.3 V, edges ringing at about 49 MHz (f_n 50 MHz, ζ = 0.2), 15 mV noise.
   const wave = squareWaveform(secondOrderStep(50e6, 0.2), { periodS: 1e-6, baseV: 0, topV: 3.3 });
   const normal = gaussian(mulberry32(181));
   const out = createWriteStream(file);
   out.write('Time (s),CH1 (V)\n');
-  const linesPerWrite = 10_000;
-  for (let start = 0; start < SAMPLES; start += linesPerWrite) {
+  const linesPerWrite = 20_000;
+  for (let start = 0; start < samples; start += linesPerWrite) {
     let text = '';
-    for (let k = start; k < Math.min(SAMPLES, start + linesPerWrite); k++) {
+    for (let k = start; k < Math.min(samples, start + linesPerWrite); k++) {
       const tS = k * SAMPLE_INTERVAL_S;
       text += `${tS.toExponential(8)},${(wave(tS) + 0.015 * normal()).toFixed(4)}\n`;
     }
@@ -59,118 +70,113 @@ async function writeCapture(file: string): Promise<void> {
   await once(out, 'finish');
 }
 
-function naiveParse(file: string): { timesS: Float64Array; volts: Float64Array } {
-  const lines = readFileSync(file, 'utf8').split('\n');
-  const times: number[] = [];
-  const volts: number[] = [];
-  for (let i = 1; i < lines.length; i++) {
-    if (lines[i] === '') continue;
-    const cells = lines[i].split(',');
-    times.push(parseFloat(cells[0]));
-    volts.push(parseFloat(cells[1]));
-  }
-  return { timesS: Float64Array.from(times), volts: Float64Array.from(volts) };
-}
-
-async function child(mode: 'stream' | 'naive', file: string): Promise<void> {
-  const startRssMB = process.memoryUsage().rss / 2 ** 20;
-  let peakHeapMB = 0;
-  const sampler = setInterval(() => {
-    peakHeapMB = Math.max(peakHeapMB, process.memoryUsage().heapUsed / 2 ** 20);
-  }, 5);
+async function child(file: string): Promise<void> {
   const t0 = performance.now();
-  let samples;
-  if (mode === 'stream') {
-    const parsed = await readCaptureStream(createReadStream(file));
-    if (!parsed.ok) throw new Error(parsed.error.message);
-    samples = parsed.samples;
-  } else samples = naiveParse(file);
+  const result = await analyzeCaptureFile(file);
   const t1 = performance.now();
-  const analysis = analyzeCapture(samples);
-  const t2 = performance.now();
-  clearInterval(sampler);
-  peakHeapMB = Math.max(peakHeapMB, process.memoryUsage().heapUsed / 2 ** 20);
-  const report: ChildReport = {
-    mode,
-    parseS: (t1 - t0) / 1000,
-    analyzeS: (t2 - t1) / 1000,
-    totalS: (t2 - t0) / 1000,
-    startRssMB,
+  if (!result.ok) throw new Error(result.message);
+  const a = result.analysis;
+  const report: Report = {
+    totalS: (t1 - t0) / 1000,
     peakRssMB: process.resourceUsage().maxRSS / 1024,
-    peakHeapMB,
     analysis: {
-      points: analysis.points,
-      riseTimeS: analysis.riseTimeS,
-      overshootPct: analysis.overshootPct,
-      ringingFrequencyHz: analysis.ringingFrequencyHz,
-      periodS: analysis.periodS,
-      shape: analysis.shape,
-      noiseRmsV: analysis.noiseRmsV,
-      tiltPct: analysis.tiltPct,
-      cornerPct: analysis.cornerPct,
-      humFrequencyHz: analysis.humFrequencyHz,
-      strongestLineHz: analysis.spectrum?.lines[0]?.frequencyHz ?? null,
+      points: a.points,
+      baseV: a.baseV,
+      topV: a.topV,
+      riseTimeS: a.riseTimeS,
+      fallTimeS: a.fallTimeS,
+      periodS: a.periodS,
+      edges: a.edgeCount,
+      overshootPct: a.overshootPct,
+      ringingFrequencyHz: a.ringingFrequencyHz,
+      shape: a.shape,
+      noiseRmsV: a.noiseRmsV,
+      strongestLineHz: a.spectrum?.lines[0]?.frequencyHz ?? null,
     },
   };
   process.stdout.write(`${JSON.stringify(report)}\n`);
 }
 
-function runChild(mode: 'stream' | 'naive', file: string): ChildReport {
+function runApp(file: string): Report {
   const script = fileURLToPath(import.meta.url);
-  const run = spawnSync(process.execPath, [...process.execArgv, script, 'child', mode, file], { encoding: 'utf8' });
-  if (run.status !== 0) throw new Error(`${mode} run failed: ${run.stderr}`);
-  return JSON.parse(run.stdout.trim().split('\n').pop()!) as ChildReport;
+  const run = spawnSync(process.execPath, [...process.execArgv, script, 'child', file], { encoding: 'utf8', maxBuffer: 1 << 24 });
+  if (run.status !== 0) throw new Error(`app run failed: ${run.stderr}`);
+  return JSON.parse(run.stdout.trim().split('\n').pop()!) as Report;
 }
 
-function summarize(reports: ChildReport[]) {
+function runNumpy(file: string, reader: 'loadtxt' | 'fromstring'): Report | null {
+  const run = spawnSync('python3', [NUMPY_SCRIPT, file, reader], { encoding: 'utf8', maxBuffer: 1 << 24 });
+  if (run.error || run.status !== 0) return null;
+  return JSON.parse(run.stdout.trim().split('\n').pop()!) as Report;
+}
+
+function median(reports: Report[]): Report {
   const sorted = [...reports].sort((a, b) => a.totalS - b.totalS);
-  const median = sorted[sorted.length >> 1];
-  return { ...median, peakRssMB: Math.max(...reports.map((r) => r.peakRssMB)) };
+  return sorted[sorted.length >> 1];
 }
 
 const fmt = (value: number, digits = 2) => value.toFixed(digits);
+const ns = (s: number | null) => (s === null ? 'none' : `${fmt(s * 1e9, 3)} ns`);
+
+async function benchSize(samples: number, dir: string): Promise<{ ratio: number | null; rssMB: number }> {
+  const file = join(dir, `capture-${samples}.csv`);
+  await writeCapture(file, samples);
+  console.log(`\n${samples.toLocaleString('en')} samples: ${fmt(statSync(file).size / 2 ** 20, 1)} MB of CSV`);
+  const app: Report[] = [];
+  const loadtxt: Report[] = [];
+  const fromstring: Report[] = [];
+  for (let run = 0; run < RUNS; run++) {
+    app.push(runApp(file));
+    const a = runNumpy(file, 'loadtxt');
+    const b = runNumpy(file, 'fromstring');
+    if (a) loadtxt.push(a);
+    if (b) fromstring.push(b);
+  }
+  const ours = median(app);
+  const rssMB = Math.max(...app.map((r) => r.peakRssMB ?? 0));
+  console.log(`  app:   ${fmt(ours.totalS)} s (parse to binary columns + full analysis), peak rss ${fmt(rssMB, 0)} MB`);
+  if (loadtxt.length === 0 && fromstring.length === 0) {
+    console.log('  numpy: not available (install python3-numpy); no ratio');
+    return { ratio: null, rssMB };
+  }
+  const candidates = [loadtxt, fromstring].filter((r) => r.length > 0).map(median);
+  for (const c of candidates) {
+    console.log(`  numpy ${c.reader!.padEnd(10)} ${fmt(c.totalS)} s (read ${fmt(c.parseS!)} s + analysis ${fmt(c.analyzeS!)} s), peak rss ${fmt(c.peakRssMB ?? 0, 0)} MB`);
+  }
+  const numpy = candidates.reduce((best, c) => (c.totalS < best.totalS ? c : best));
+  const ratio = ours.totalS / numpy.totalS;
+  console.log(`  ratio app/numpy (fastest numpy reader, ${numpy.reader}): ${fmt(ratio)}×`);
+  const a = ours.analysis;
+  const b = numpy.analysis;
+  console.log(`  app   measured: base ${fmt(a.baseV ?? 0, 5)} V, top ${fmt(a.topV ?? 0, 5)} V, rise ${ns(a.riseTimeS)}, fall ${ns(a.fallTimeS)}, period ${ns(a.periodS)}, ${a.edges} edges`);
+  console.log(`  numpy measured: base ${fmt(b.baseV ?? 0, 5)} V, top ${fmt(b.topV ?? 0, 5)} V, rise ${ns(b.riseTimeS)}, fall ${ns(b.fallTimeS)}, period ${ns(b.periodS)}, ${b.edges} edges`);
+  console.log(
+    `  app also: overshoot ${fmt(Number(a.overshootPct ?? 0), 1)} %, ringing ${fmt(Number(a.ringingFrequencyHz ?? 0) / 1e6, 2)} MHz, shape ${a.shape}, ` +
+      `noise ${fmt(Number(a.noiseRmsV) * 1e3, 1)} mV rms, strongest line ${fmt(Number(a.strongestLineHz ?? 0) / 1e6, 3)} MHz`,
+  );
+  rmSync(file, { force: true });
+  return { ratio, rssMB };
+}
 
 async function main(): Promise<void> {
+  const sizes = process.argv.slice(2).map(Number).filter((n) => n > 0);
   const dir = mkdtempSync(join(tmpdir(), 'falsetrace-bench-'));
-  const file = join(dir, 'capture.csv');
   try {
-    await writeCapture(file);
-    console.log(`capture file: ${SAMPLES.toLocaleString('en')} samples, ${fmt(statSync(file).size / 2 ** 20, 1)} MB`);
-    const streamRuns: ChildReport[] = [];
-    const naiveRuns: ChildReport[] = [];
-    for (let run = 0; run < RUNS; run++) {
-      streamRuns.push(runChild('stream', file));
-      naiveRuns.push(runChild('naive', file));
+    const results: { samples: number; ratio: number | null; rssMB: number }[] = [];
+    for (const samples of sizes.length ? sizes : SIZES) results.push({ samples, ...(await benchSize(samples, dir)) });
+    console.log('');
+    for (const r of results) {
+      const timeOk = r.ratio !== null && r.ratio <= TARGET_RATIO;
+      const rssOk = r.samples < 10_000_000 || r.rssMB <= TARGET_RSS_MB;
+      console.log(
+        `capture ${r.samples.toLocaleString('en')} samples: ratio ${r.ratio === null ? 'n/a' : `${fmt(r.ratio)}×`} (target ≤ ${TARGET_RATIO}×) ${timeOk ? 'met' : 'MISSED'}; ` +
+          `rss ${fmt(r.rssMB, 0)} MB${r.samples >= 10_000_000 ? ` (target ≤ ${TARGET_RSS_MB} MB) ${rssOk ? 'met' : 'MISSED'}` : ''}`,
+      );
     }
-    const ours = summarize(streamRuns);
-    const naive = summarize(naiveRuns);
-    console.log(
-      `capture parse+analyze: ${fmt(ours.totalS)} s, peak rss ${fmt(ours.peakRssMB, 0)} MB ` +
-        `(naive: ${fmt(naive.totalS)} s, ${fmt(naive.peakRssMB, 0)} MB; ratio ${fmt(ours.totalS / naive.totalS)})`,
-    );
-    console.log(
-      `  stream: parse ${fmt(ours.parseS, 3)} s + analyze ${fmt(ours.analyzeS, 3)} s; rss at start ${fmt(ours.startRssMB, 0)} MB; peak heap ${fmt(ours.peakHeapMB, 0)} MB`,
-    );
-    console.log(
-      `  naive:  parse ${fmt(naive.parseS, 3)} s + analyze ${fmt(naive.analyzeS, 3)} s; rss at start ${fmt(naive.startRssMB, 0)} MB`,
-    );
-    console.log(`ratio time ${fmt(ours.totalS / naive.totalS)}, ratio peak rss ${fmt(ours.peakRssMB / naive.peakRssMB)}`);
-    const a = ours.analysis;
-    console.log(
-      `  measured: ${a.points} points, rise ${fmt((a.riseTimeS ?? 0) * 1e9)} ns, overshoot ${fmt(a.overshootPct ?? 0, 1)} %, ` +
-        `ringing ${fmt((a.ringingFrequencyHz ?? 0) / 1e6, 2)} MHz, period ${fmt((a.periodS ?? 0) * 1e6, 4)} µs`,
-    );
-    console.log(
-      `  and: shape ${a.shape}, noise ${fmt(a.noiseRmsV * 1e3, 1)} mV rms, tilt ${a.tiltPct} %, corner ${a.cornerPct} %, hum ${a.humFrequencyHz ?? 'none'}, ` +
-        `strongest spectral line ${fmt((a.strongestLineHz ?? 0) / 1e6, 3)} MHz (FFT by fft.js, included in the analysis time)`,
-    );
-    if (JSON.stringify(a) !== JSON.stringify(naive.analysis)) console.log('  warning: the two readings differ', naive.analysis);
-    const met = ours.totalS < TARGET_S && ours.peakRssMB < TARGET_MB;
-    console.log(`target < ${TARGET_S} s and < ${TARGET_MB} MB: ${met ? 'met' : 'MISSED'}`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
 }
 
-if (process.argv[2] === 'child') await child(process.argv[3] as 'stream' | 'naive', process.argv[4]);
+if (process.argv[2] === 'child') await child(process.argv[3]);
 else await main();

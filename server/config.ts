@@ -20,6 +20,18 @@ export interface Config {
   metricsToken?: string;
   /** UPLOADS_DIR: attachment files, shared by every instance; DATA_DIR/uploads when unset. */
   uploadsDir?: string;
+  /** CAPTURE_LIMIT_BYTES: the largest capture upload (attachments and analysis); default 2 GiB. */
+  captureLimitBytes?: number;
+}
+
+/** Captures from deep-memory scopes run to hundreds of megabytes of CSV; they stream to disk, so the limit is the disk's. */
+export const DEFAULT_CAPTURE_LIMIT_BYTES = 2 * 1024 ** 3;
+
+function byteLimit(name: string, value: string | undefined, fallback: number): number {
+  if (value === undefined || value.trim() === '') return fallback;
+  const bytes = Number(value);
+  if (!Number.isSafeInteger(bytes) || bytes < 1) throw new Error(`${name} must be a whole number of bytes, got "${value}"`);
+  return bytes;
 }
 
 const isOff = (v: string | undefined) => v !== undefined && /^(0|false|no|off)$/i.test(v.trim());
@@ -59,5 +71,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: trustProxySetting(env.TRUST_PROXY),
     metricsToken: metricsTokenFrom(env.METRICS_TOKEN),
     uploadsDir: env.UPLOADS_DIR?.trim() ? path.resolve(env.UPLOADS_DIR.trim()) : undefined,
+    captureLimitBytes: byteLimit('CAPTURE_LIMIT_BYTES', env.CAPTURE_LIMIT_BYTES, DEFAULT_CAPTURE_LIMIT_BYTES),
   };
 }

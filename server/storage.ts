@@ -23,7 +23,12 @@ export function storagePaths(config: Pick<Config, 'dataDir' | 'uploadsDir'>) {
     incomingDir,
     fileFor,
     newName: (extension: string) => `${randomUUID()}.${extension}`,
-    remove: (storageName: string) => rm(fileFor(storageName), { force: true }),
+    // a capture's compact samples for plots live beside it (`<name>.plot`) and go with it
+    remove: async (storageName: string) => {
+      const file = fileFor(storageName);
+      await rm(file, { force: true });
+      await rm(`${file}.plot`, { recursive: true, force: true });
+    },
     /** Stores bytes under `storageName`. */
     write: (storageName: string, data: Uint8Array) => writeFileAtomic(fileFor(storageName), data),
     /** Moves a finished file (an upload in incoming/) under `storageName`. */

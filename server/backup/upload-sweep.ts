@@ -25,6 +25,12 @@ export interface SweepOptions {
  * a crash, ahead of their row) aside rather than deleting them: into DATA_DIR/orphaned-uploads/,
  * or UPLOADS_DIR/orphaned/ when the uploads live elsewhere (same filesystem, so a rename).
  */
+/** A capture's `<name>.plot` folder whose capture is gone, or a scratch folder (`.<name>.samples-<id>`, `.<name>.plot-<id>`) a crash left. */
+function isDerivedSampleDir(name: string, named: Set<string>): boolean {
+  if (name.endsWith('.plot')) return !named.has(name.slice(0, -'.plot'.length));
+  return /^\..+\.(samples|plot)-[0-9a-f-]+$/i.test(name);
+}
+
 export async function sweepUploads(db: Db, where: string | UploadDirs, options: SweepOptions = {}): Promise<{ partial: number; orphaned: number }> {
   const dirs = typeof where === 'string' ? { dataDir: where } : where;
   const uploads = dirs.uploadsDir ?? path.join(dirs.dataDir, 'uploads');
@@ -45,6 +51,12 @@ export async function sweepUploads(db: Db, where: string | UploadDirs, options: 
   const named = new Set(rows.flatMap((r) => [r.storage_name, ...(r.thumbnail_name ? [r.thumbnail_name] : [])]));
   const orphans: string[] = [];
   for (const e of await readdir(uploads, { withFileTypes: true })) {
+    if (e.isDirectory() && isDerivedSampleDir(e.name, named) && (await oldEnough(path.join(uploads, e.name)))) {
+      // plot samples are rebuilt from their capture on first view; scratch folders are a crash's leftovers
+      await rm(path.join(uploads, e.name), { recursive: true, force: true });
+      partial++;
+      continue;
+    }
     if (!e.isFile() || named.has(e.name) || !(await oldEnough(path.join(uploads, e.name)))) continue;
     if (isPartialName(e.name)) {
       await rm(path.join(uploads, e.name), { force: true });

@@ -1,7 +1,7 @@
-import { createReadStream } from 'node:fs';
+import { rm } from 'node:fs/promises';
 import { analyzeCapture, type CaptureAnalysis as Measured } from '../../shared/capture/analyze';
 import type { CaptureMetadata, CaptureParseOptions } from '../../shared/capture/types';
-import { readCaptureStream } from './read-capture-stream';
+import { readCaptureToStore, savePlotStore, scratchDirFor } from './capture-store';
 
 /** The `POST /api/captures/analyze` answer: the measurements of one channel, the channels, the settings and the notes. */
 export type CaptureAnalysis = Measured & {
@@ -12,29 +12,45 @@ export type CaptureAnalysis = Measured & {
 };
 
 /**
- * Streams a capture file through the shared parser and measures the chosen channel (1-based
- * among the signal columns, or a column's name; the first when none is given). Errors come back
- * as data, with the reader's message.
+ * Measures the chosen channel of a capture file (1-based among the signal columns, or a
+ * column's name; the first when none is given) in passes with constant memory: one streaming
+ * parse into binary columns beside the file, then the analysis reading those a block at a time.
+ * With `plotDir`, the compact samples for plots are also kept there. Errors come back as data,
+ * with the reader's message.
  */
 export async function analyzeCaptureFile(
   file: string,
   options: Pick<CaptureParseOptions, 'channel'> = {},
+  output: { plotDir?: string } = {},
 ): Promise<{ ok: true; analysis: CaptureAnalysis } | { ok: false; message: string }> {
-  const parsed = await readCaptureStream(createReadStream(file), options);
-  if (!parsed.ok) return { ok: false, message: parsed.error.message };
-  const measured = analyzeCapture(parsed.samples, { voltsPerDiv: parsed.metadata.voltsPerDiv, offsetV: parsed.metadata.offsetV });
-  return {
-    ok: true,
-    analysis: {
-      ...measured,
-      channel: parsed.channel,
-      channels: parsed.channels.map(({ index, name, unit }) => ({ index, name, unit })),
-      metadata: parsed.metadata,
-      notes: parsed.notes,
-    },
-  };
+  const dir = scratchDirFor(file, 'samples');
+  try {
+    const parsed = await readCaptureToStore(file, dir, options);
+    if (!parsed.ok) return parsed;
+    const { columns, store } = parsed;
+    try {
+      const measured = analyzeCapture(
+        { timesS: store.timesS, volts: store.channel(columns.channel) },
+        { voltsPerDiv: columns.metadata.voltsPerDiv, offsetV: columns.metadata.offsetV },
+      );
+      if (output.plotDir !== undefined) await savePlotStore(store, output.plotDir);
+      return {
+        ok: true,
+        analysis: {
+          ...measured,
+          channel: columns.channel,
+          channels: columns.channels.map(({ index, name, unit }) => ({ index, name, unit })),
+          metadata: columns.metadata,
+          notes: columns.notes,
+        },
+      };
+    } finally {
+      store.close();
+    }
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
 }
-
 /** Reads the optional `channel` form field: a whole number stays a number, anything else a name. */
 export function channelField(value: unknown): { channel?: number | string } | { error: string } {
   if (value === undefined || value === null || (typeof value === 'string' && value.trim() === '')) return {};

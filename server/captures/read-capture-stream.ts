@@ -1,7 +1,7 @@
 import { isAscii } from 'node:buffer';
 import type { Readable } from 'node:stream';
-import { CaptureParser } from '../../shared/capture/parse';
-import type { CaptureParseOptions, ParseResult } from '../../shared/capture/types';
+import { ByteCaptureParser } from '../../shared/capture/parse-bytes';
+import type { CaptureParseError, CaptureParseOptions, ParseResult } from '../../shared/capture/types';
 
 type Encoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'latin1';
 
@@ -32,6 +32,31 @@ class ChunkDecoder {
       this.choose(bytes);
     }
     return this.decode(bytes, true);
+  }
+
+  get encodingName(): Encoding | null {
+    return this.encoding;
+  }
+
+  /** True for an encoding whose ASCII bytes are the characters themselves (not UTF-16). */
+  get byteCompatible(): boolean {
+    return this.encoding === 'utf-8' || this.encoding === 'latin1';
+  }
+
+  /**
+   * Checks bytes that the caller reads itself (see `feedCaptureStream`): no NUL, and valid text
+   * in the encoding (the decoding is done only when a byte is not ASCII). False once they are not.
+   */
+  check(bytes: Buffer): boolean {
+    if (this.error !== null) return false;
+    if (isAscii(bytes)) {
+      const nul = bytes.indexOf(0);
+      if (nul >= 0) this.error = `binary content (a NUL byte at byte ${this.offset + nul}); a capture must be a CSV text file`;
+      this.offset += bytes.length;
+      return this.error === null;
+    }
+    this.decode(bytes, true);
+    return this.error === null;
   }
 
   end(): string {
@@ -82,28 +107,55 @@ class ChunkDecoder {
 }
 
 /**
- * Reads a CSV capture from a byte stream (an upload on disk, a socket) into samples, passing
- * it to the shared `CaptureParser` chunk by chunk so a 50 MB file never sits in memory as text.
- * Stops reading as soon as the file is known to be unreadable. Never rejects: read errors,
- * binary content and bad text come back as `{ ok: false, error }`.
+ * Feeds a capture from a byte stream (an upload on disk, a socket) to a parser chunk by chunk,
+ * so the file never sits in memory as text. Until the data rows start the bytes are decoded to
+ * text; from then on, while the file is ASCII-compatible (UTF-8 or Latin-1) with LF line ends,
+ * the parser reads the rows straight from the bytes. Stops reading as soon as the file is
+ * known to be unreadable. Never rejects: returns the decoder's or the reader's error, if any.
+ */
+export async function feedCaptureStream(stream: NodeJS.ReadableStream | Readable, parser: ByteCaptureParser): Promise<{ error: CaptureParseError | null; note: string | null }> {
+  const decoder = new ChunkDecoder();
+  const decodeLine = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length).toString(decoder.encodingName === 'latin1' ? 'latin1' : 'utf8');
+  let bytesMode = false;
+  try {
+    for await (const chunk of stream as AsyncIterable<Buffer | string>) {
+      if (typeof chunk === 'string') parser.push(chunk);
+      else if (bytesMode) {
+        if (decoder.check(chunk)) parser.pushBytes(chunk, decodeLine);
+      } else {
+        parser.push(decoder.write(chunk));
+        if (parser.acceptsBytes && decoder.byteCompatible && isAscii(chunk)) {
+          bytesMode = true;
+          const pending = parser.takePending();
+          if (pending !== '') parser.pushBytes(Buffer.from(pending, decoder.encodingName === 'latin1' ? 'latin1' : 'utf8'), decodeLine);
+        }
+      }
+      if (decoder.error !== null || parser.failed) break;
+    }
+    if (decoder.error === null && !parser.failed) {
+      const rest = decoder.end();
+      if (!bytesMode) parser.push(rest);
+    }
+  } catch (cause) {
+    return { error: { message: `the file could not be read (${cause instanceof Error ? cause.message : String(cause)})` }, note: null };
+  }
+  if (decoder.error !== null) return { error: { message: decoder.error, expected: 'text' }, note: null };
+  return { error: null, note: decoder.note };
+}
+
+/**
+ * Reads a CSV capture from a byte stream into samples in memory (small files, tests); the
+ * server reads uploads into a store on disk instead (`readCaptureToStore`). Never rejects: read
+ * errors, binary content and bad text come back as `{ ok: false, error }`.
  */
 export async function readCaptureStream(
   stream: NodeJS.ReadableStream | Readable,
   options?: CaptureParseOptions,
 ): Promise<ParseResult> {
-  const parser = new CaptureParser(options);
-  const decoder = new ChunkDecoder();
-  try {
-    for await (const chunk of stream as AsyncIterable<Buffer | string>) {
-      parser.push(typeof chunk === 'string' ? chunk : decoder.write(chunk));
-      if (decoder.error !== null || parser.failed) break;
-    }
-    if (decoder.error === null && !parser.failed) parser.push(decoder.end());
-  } catch (cause) {
-    return { ok: false, error: { message: `the file could not be read (${cause instanceof Error ? cause.message : String(cause)})` } };
-  }
-  if (decoder.error !== null) return { ok: false, error: { message: decoder.error, expected: 'text' } };
+  const parser = new ByteCaptureParser(options);
+  const fed = await feedCaptureStream(stream, parser);
+  if (fed.error !== null) return { ok: false, error: fed.error };
   const result = parser.finish();
-  if (result.ok && decoder.note !== null) result.notes.push(decoder.note);
+  if (result.ok && fed.note !== null) result.notes.push(fed.note);
   return result;
 }

@@ -1,22 +1,32 @@
 import multer from 'multer';
 import type { RequestHandler } from 'express';
 import { AppError } from '../errors';
-import type { Config } from '../config';
-import { CAPTURE_LIMIT_BYTES } from '../services/attachments';
+import { DEFAULT_CAPTURE_LIMIT_BYTES, type Config } from '../config';
 import { storagePaths } from '../storage';
 
-/** One multipart field `file`, written to DATA_DIR/uploads/incoming (never held whole in memory). */
+/** The capture limit in words: "2 GB", "1.5 MB". */
+export function sizeInWords(bytes: number): string {
+  const [unit, size] = bytes >= 1024 ** 3 ? ['GB', 1024 ** 3] : bytes >= 1024 ** 2 ? ['MB', 1024 ** 2] : ['KB', 1024];
+  return `${Number((bytes / size).toFixed(1))} ${unit}`;
+}
+
+/**
+ * One multipart field `file`, streamed to DATA_DIR/uploads/incoming (never held in memory),
+ * up to the capture limit (`CAPTURE_LIMIT_BYTES`); screenshots are held to their own, smaller
+ * limit once their content is known.
+ */
 export function singleUpload(config: Config): RequestHandler {
+  const limitBytes = config.captureLimitBytes ?? DEFAULT_CAPTURE_LIMIT_BYTES;
   const upload = multer({
     dest: storagePaths(config).incomingDir,
     // browsers send the file name as UTF-8 bytes; busboy would read them as Latin-1
     defParamCharset: 'utf8',
-    limits: { fileSize: CAPTURE_LIMIT_BYTES, files: 1, fields: 10 },
+    limits: { fileSize: limitBytes, files: 1, fields: 10 },
   }).single('file');
   return (req, res, next) =>
     upload(req, res, (err: unknown) => {
       if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError('too_large', 'Uploads are limited to 10 MB for screenshots and 50 MB for captures'));
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError('too_large', `The file is larger than the ${sizeInWords(limitBytes)} upload limit for captures (screenshots: 10 MB)`));
         return next(new AppError('invalid_input', `Upload refused: ${err.message}`));
       }
       if (err) return next(err);

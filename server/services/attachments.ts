@@ -2,7 +2,9 @@ import { open, readFile, rm } from 'node:fs/promises';
 import { canEditCase } from '../../shared/auth/case-policy';
 import type { Actor } from '../../shared/auth/roles';
 import type { Attachment } from '../../shared/schemas/case';
+import path from 'node:path';
 import { analyzeCaptureFile } from '../captures/analyze-file';
+import { plotStoreDirFor } from '../captures/capture-store';
 import { deleteAttachmentRow, findAttachment, insertAttachment } from '../db/repositories/attachments';
 import { updateCaseRow } from '../db/repositories/cases';
 import type { AppDeps } from '../deps';
@@ -13,7 +15,6 @@ import { visibleCaseRow } from './cases';
 import { reencodeImage, sniffImage } from './image-intake';
 
 export const IMAGE_LIMIT_BYTES = 10 * 1024 * 1024;
-export const CAPTURE_LIMIT_BYTES = 50 * 1024 * 1024;
 
 export interface IncomingFile {
   path: string;
@@ -80,9 +81,12 @@ export async function addAttachment(deps: AppDeps, actor: Actor, caseId: number,
         created_at: now,
       });
     } else {
-      const result = await analyzeCaptureFile(file.path);
-      if (!result.ok) throw new AppError('unsupported_type', `Not an accepted screenshot (PNG, JPEG, GIF, BMP) or CSV capture: ${result.message}`);
       const name = storage.newName('csv');
+      // the compact samples the plots read are written in the same pass as the analysis
+      const plotDir = plotStoreDirFor(storage.fileFor(name));
+      written.push(path.basename(plotDir));
+      const result = await analyzeCaptureFile(file.path, {}, { plotDir });
+      if (!result.ok) throw new AppError('unsupported_type', `Not an accepted screenshot (PNG, JPEG, GIF, BMP) or CSV capture: ${result.message}`);
       await storage.moveIn(file.path, name);
       written.push(name);
       attachment = await insertAttachment(deps.db, {
@@ -104,7 +108,7 @@ export async function addAttachment(deps: AppDeps, actor: Actor, caseId: number,
     await deps.search?.syncCase(caseId);
     return toAttachment(attachment);
   } catch (err) {
-    await Promise.all(written.map((n) => storage.remove(n)));
+    await Promise.all(written.map((n) => rm(storage.fileFor(n), { recursive: true, force: true })));
     throw err;
   } finally {
     await rm(file.path, { force: true });

@@ -1,23 +1,12 @@
-import { decimateMinMax } from '../../shared/capture/decimate';
+import { decimateMinMax, firstAfter } from '../../shared/capture/decimate';
 import type { Actor } from '../../shared/auth/roles';
 import type { Trace, TraceQuery } from '../../shared/schemas/trace';
-import type { SampleCache } from '../captures/sample-cache';
+import type { PlotStores } from '../captures/plot-stores';
 import type { AppDeps } from '../deps';
 import { AppError, notFound } from '../errors';
 import { formatEngineering } from '../../shared/units/engineering';
+import type { OpenStore } from '../captures/sample-store';
 import { attachmentFile } from './attachments';
-
-/** First index whose time is later than `timeS` (or at least it, with `orEqual`); n when none is. */
-function firstAfter(timesS: Float64Array, timeS: number, orEqual: boolean): number {
-  let low = 0;
-  let high = timesS.length;
-  while (low < high) {
-    const middle = (low + high) >>> 1;
-    if (timesS[middle] < timeS || (!orEqual && timesS[middle] === timeS)) low = middle + 1;
-    else high = middle;
-  }
-  return low;
-}
 
 /**
  * A capture attachment's samples in a time window, min/max-decimated to the plot's pixel
@@ -25,22 +14,30 @@ function firstAfter(timesS: Float64Array, timeS: number, orEqual: boolean): numb
  * sample either side of it is included so a zoomed line reaches the plot's edges instead of
  * stopping at the first sample inside.
  */
-export async function attachmentTrace(deps: AppDeps, cache: SampleCache, actor: Actor, attachmentId: number, query: TraceQuery): Promise<Trace> {
+export async function attachmentTrace(deps: AppDeps, plots: PlotStores, actor: Actor, attachmentId: number, query: TraceQuery): Promise<Trace> {
   const file = await attachmentFile(deps, actor, attachmentId, 'file');
   if (file.kind !== 'capture') throw notFound('This attachment is a screenshot, not a waveform capture');
-  const loaded = await cache.get(file.path, file.path);
+  const loaded = await plots.open(file.path);
   if (!loaded.ok) throw new AppError('invalid_input', `The stored capture cannot be read: ${loaded.message}`);
-  const channelCount = loaded.channels.length;
+  try {
+    return windowOf(loaded.store, query);
+  } finally {
+    loaded.store.close();
+  }
+}
+
+function windowOf(store: OpenStore, query: TraceQuery): Trace {
+  const channelCount = store.meta.channelCount;
   const channel = query.channel ?? 1;
   if (channel > channelCount) {
     throw new AppError('invalid_input', `The capture has ${channelCount} channel${channelCount === 1 ? '' : 's'}; there is no channel ${channel}`, [{ path: 'channel', message: 'no such channel' }]);
   }
-  const timesS = loaded.samples.timesS;
-  const volts = loaded.channels[channel - 1];
+  const timesS = store.timesS;
+  const volts = store.channel(channel);
   const n = timesS.length;
   if (n === 0) return { timesS: [], volts: [], fromS: 0, toS: 0, totalPoints: 0, windowPoints: 0, startS: 0, endS: 0, channel, channelCount };
-  const startS = timesS[0];
-  const endS = timesS[n - 1];
+  const startS = timesS.get(0);
+  const endS = timesS.get(n - 1);
   const fromS = Math.max(startS, query.fromS ?? startS);
   const toS = Math.min(endS, query.toS ?? endS);
   if (fromS > toS) {
@@ -48,11 +45,11 @@ export async function attachmentTrace(deps: AppDeps, cache: SampleCache, actor: 
       { path: query.fromS !== undefined && query.fromS > endS ? 'fromS' : 'toS', message: 'outside the capture' },
     ]);
   }
-  const first = firstAfter(timesS, fromS, true);
-  const afterLast = firstAfter(timesS, toS, false);
+  const first = firstAfter(timesS, n, fromS, true);
+  const afterLast = firstAfter(timesS, n, toS, false);
   const windowPoints = Math.max(0, afterLast - first);
   const lo = Math.max(0, first - 1);
   const hi = Math.min(n - 1, afterLast);
-  const shown = decimateMinMax(timesS, volts, query.columns, timesS[lo], timesS[hi]);
+  const shown = decimateMinMax(timesS, volts, query.columns, timesS.get(lo), timesS.get(hi));
   return { timesS: Array.from(shown.timesS), volts: Array.from(shown.volts), fromS, toS, totalPoints: n, windowPoints, startS, endS, channel, channelCount };
 }

@@ -1,3 +1,4 @@
+import type { Series } from './series';
 import type { Transition } from './transitions';
 
 /** Post-transition aberrations of one transition, in percent of the amplitude. */
@@ -26,7 +27,7 @@ export interface Aberrations {
  * @param topV high state level, V
  */
 export function postTransitionAberrations(
-  volts: Float64Array,
+  volts: Series,
   transition: Transition,
   stopIndex: number,
   baseV: number,
@@ -41,7 +42,7 @@ export function postTransitionAberrations(
   let shortV = Number.POSITIVE_INFINITY;
   let reached = false;
   for (let i = transition.endIndex; i <= stopIndex; i++) {
-    const excessV = sign * (volts[i] - finalV);
+    const excessV = sign * (volts.get(i) - finalV);
     if (excessV > beyondV) beyondV = excessV;
     if (excessV >= 0) reached = true;
     if (reached && excessV < shortV) shortV = excessV;

@@ -8,6 +8,7 @@ import { amplitudeSpectrum, humFrequencyHz as findHum, type CaptureSpectrum } fr
 import { periodS as measurePeriodS } from './period';
 import { ringingAfter } from './ringing';
 import { medianSampleIntervalS } from './sample-interval';
+import { asSeries, headOf, type SampleSeries, type Series } from './series';
 import { crossingTimeS, findTransitions, type EdgeKind, type Transition } from './transitions';
 import type { CaptureSamples } from './types';
 
@@ -87,11 +88,12 @@ const RINGING_EDGE_SHARE = 0.25;
  *
  * @param samples time (s, strictly increasing) and voltage (V), as `CaptureParser` returns them
  */
-export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions = {}): CaptureAnalysis {
-  const { timesS: allTimesS, volts: allVolts } = samples;
+export function analyzeCapture(samples: CaptureSamples | SampleSeries, options: AnalyzeOptions = {}): CaptureAnalysis {
+  const allTimesS = asSeries(samples.timesS);
+  const allVolts = asSeries(samples.volts);
   const points = Math.min(allTimesS.length, allVolts.length);
-  const timesS = allTimesS.subarray(0, points);
-  const volts = allVolts.subarray(0, points);
+  const timesS = headOf(allTimesS, points);
+  const volts = headOf(allVolts, points);
   const sampleIntervalS = medianSampleIntervalS(timesS);
   const none: CaptureAnalysis = {
     points,
@@ -123,13 +125,23 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
   const rails = findRails(volts);
   const topRail = isRail(rails.atMax, rails.longestAtMax, rails.nearMax, points);
   const bottomRail = isRail(rails.atMin, rails.longestAtMin, rails.nearMin, points);
-  const onRail = (i: number) => (topRail && volts[i] === rails.maxV) || (bottomRail && volts[i] === rails.minV);
+  const onRail = (i: number) => (topRail && volts.get(i) === rails.maxV) || (bottomRail && volts.get(i) === rails.minV);
   const noiseV = noiseRmsV(volts, topRail || bottomRail ? onRail : undefined);
   let meanV = 0;
-  for (let i = 0; i < points; i++) meanV += volts[i];
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
+  volts.scan(0, points, (values) => {
+    let sum = meanV;
+    for (let i = 0; i < values.length; i++) sum += values[i];
+    meanV = sum;
+  });
   meanV /= points;
   let variance = 0;
-  for (let i = 0; i < points; i++) variance += (volts[i] - meanV) ** 2;
+  const centreV = meanV;
+  volts.scan(0, points, (values) => {
+    let sum = variance;
+    for (let i = 0; i < values.length; i++) sum += (values[i] - centreV) ** 2;
+    variance = sum;
+  });
   const stdV = Math.sqrt(variance / points);
 
   const levels = stateLevels(volts);
@@ -158,7 +170,7 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
   const spectral = sampleIntervalS !== null ? amplitudeSpectrum(volts, sampleIntervalS) : null;
   const fundamentalShare = spectral ? strongestLineShare(spectral.amplitudesV) : null;
   const shape = classifyShape({ volts, levels, transitions, periodS: period, noiseV, fundamentalShare, clipped, meanV, stdV, drooped: droopProbe?.tilted ?? false });
-  const durationS = timesS[points - 1] - timesS[0];
+  const durationS = timesS.get(points - 1) - timesS.get(0);
   const hum = spectral ? findHum(spectral.amplitudesV, spectral.spectrum.binHz, durationS, shape === 'dc' ? null : period) : null;
   const common = {
     ...none,
@@ -262,7 +274,7 @@ export function analyzeCapture(samples: CaptureSamples, options: AnalyzeOptions 
  * state levels): from the mid crossing outward to the 10 % and 90 % points of the step
  * `fromV` → `toV`, interpolated between samples.
  */
-function retimeEdge(timesS: Float64Array, volts: Float64Array, transition: Transition, fromV: number, toV: number): Transition {
+function retimeEdge(timesS: Series, volts: Series, transition: Transition, fromV: number, toV: number): Transition {
   const n = volts.length;
   const lowV = fromV + 0.1 * (toV - fromV);
   const midV = fromV + 0.5 * (toV - fromV);
@@ -270,13 +282,13 @@ function retimeEdge(timesS: Float64Array, volts: Float64Array, transition: Trans
   const up = toV > fromV;
   const past = (v: number, levelV: number) => (up ? v >= levelV : v <= levelV);
   let k = transition.startIndex;
-  while (k < n - 1 && !past(volts[k + 1], midV)) k++;
+  while (k < n - 1 && !past(volts.get(k + 1), midV)) k++;
   let a = k;
-  while (a > 0 && past(volts[a], lowV)) a--;
+  while (a > 0 && past(volts.get(a), lowV)) a--;
   let b = k + 1;
-  while (b < n - 1 && !past(volts[b], highV)) b++;
+  while (b < n - 1 && !past(volts.get(b), highV)) b++;
   if (a === 0 || b >= n - 1) return transition;
-  const cross = (i: number, levelV: number) => crossingTimeS(timesS[i], volts[i], timesS[i + 1], volts[i + 1], levelV);
+  const cross = (i: number, levelV: number) => crossingTimeS(timesS.get(i), volts.get(i), timesS.get(i + 1), volts.get(i + 1), levelV);
   const t10S = cross(a, lowV);
   const t50S = cross(k, midV);
   const t90S = cross(b - 1, highV);
@@ -285,9 +297,9 @@ function retimeEdge(timesS: Float64Array, volts: Float64Array, transition: Trans
 }
 
 /** Edges short next to their spacing (under a tenth of it on average): a waveform of flats and jumps. */
-function hasFastEdges(transitions: Transition[], timesS: Float64Array): boolean {
+function hasFastEdges(transitions: Transition[], timesS: Series): boolean {
   if (transitions.length === 0) return false;
-  const spanS = transitions.length > 1 ? (transitions[transitions.length - 1].t50S - transitions[0].t50S) / (transitions.length - 1) : timesS[timesS.length - 1] - timesS[0];
+  const spanS = transitions.length > 1 ? (transitions[transitions.length - 1].t50S - transitions[0].t50S) / (transitions.length - 1) : timesS.get(timesS.length - 1) - timesS.get(0);
   const edgeS = transitions.reduce((sum, t) => sum + t.durationS, 0) / transitions.length;
   return edgeS < 0.1 * spanS;
 }
@@ -297,8 +309,8 @@ function hasFastEdges(transitions: Transition[], timesS: Float64Array): boolean 
  * fixed state level, so droop is not read as an aberration: taken over the first quarter of the flat.
  */
 function aberrationsAgainst(
-  timesS: Float64Array,
-  volts: Float64Array,
+  timesS: Series,
+  volts: Series,
   transition: Transition,
   stopIndex: number,
   segment: SegmentSettle,
@@ -309,7 +321,7 @@ function aberrationsAgainst(
   let beyondV = 0;
   let shortV = 0;
   for (let i = transition.endIndex; i <= last; i++) {
-    const excessV = sign * (volts[i] - segment.levelAt(timesS[i]));
+    const excessV = sign * (volts.get(i) - segment.levelAt(timesS.get(i)));
     if (excessV > beyondV) beyondV = excessV;
     if (-excessV > shortV) shortV = -excessV;
   }
@@ -323,7 +335,7 @@ function aberrationsAgainst(
  * at or beyond the screen's edge (4 divisions from the centre at the file's V/div and offset).
  */
 function isClipped(
-  volts: Float64Array,
+  volts: Series,
   rails: ReturnType<typeof findRails>,
   top: boolean,
   bottom: boolean,
@@ -344,11 +356,13 @@ function isClipped(
 }
 
 /** Share of samples between 10 % and 90 % of the range: large for a sine clipped at its rails. */
-function slopedShare(volts: Float64Array, minV: number, maxV: number): number {
+function slopedShare(volts: Series, minV: number, maxV: number): number {
   const lowV = minV + 0.1 * (maxV - minV);
   const highV = maxV - 0.1 * (maxV - minV);
   let count = 0;
-  for (let i = 0; i < volts.length; i++) if (volts[i] > lowV && volts[i] < highV) count++;
+  volts.scan(0, volts.length, (values) => {
+    for (let i = 0; i < values.length; i++) if (values[i] > lowV && values[i] < highV) count++;
+  });
   return count / volts.length;
 }
 

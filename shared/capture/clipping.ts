@@ -1,3 +1,5 @@
+import type { Series } from './series';
+
 /** Flat runs at the extremes of a trace: where the signal sat on a rail. */
 export interface Rails {
   /** Samples exactly at the maximum, and the longest unbroken run of them. */
@@ -17,14 +19,21 @@ export const MIN_RAIL_RUN = 4;
 export const MIN_RAIL_SHARE = 0.005;
 
 /** Counts the samples sitting exactly on the maximum and on the minimum, in one pass. */
-export function findRails(volts: Float64Array): Rails {
+export function findRails(volts: Series): Rails {
   let maxV = Number.NEGATIVE_INFINITY;
   let minV = Number.POSITIVE_INFINITY;
-  for (let i = 0; i < volts.length; i++) {
-    const v = volts[i];
-    if (v > maxV) maxV = v;
-    if (v < minV) minV = v;
-  }
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
+  volts.scan(0, volts.length, (values) => {
+    let hi = maxV;
+    let lo = minV;
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      if (v > hi) hi = v;
+      if (v < lo) lo = v;
+    }
+    maxV = hi;
+    minV = lo;
+  });
   let atMax = 0;
   let atMin = 0;
   let runMax = 0;
@@ -34,19 +43,25 @@ export function findRails(volts: Float64Array): Rails {
   const nearV = 0.02 * (maxV - minV);
   let nearMax = 0;
   let nearMin = 0;
-  for (let i = 0; i < volts.length; i++) {
-    const v = volts[i];
-    if (v < maxV && v > maxV - nearV) nearMax++;
-    if (v > minV && v < minV + nearV) nearMin++;
-    if (v === maxV) {
-      atMax++;
-      if (++runMax > longestAtMax) longestAtMax = runMax;
-    } else runMax = 0;
-    if (v === minV) {
-      atMin++;
-      if (++runMin > longestAtMin) longestAtMin = runMin;
-    } else runMin = 0;
-  }
+  const top = maxV;
+  const bottom = minV;
+  volts.scan(0, volts.length, (values) => {
+    const maxV = top;
+    const minV = bottom;
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      if (v < maxV && v > maxV - nearV) nearMax++;
+      if (v > minV && v < minV + nearV) nearMin++;
+      if (v === maxV) {
+        atMax++;
+        if (++runMax > longestAtMax) longestAtMax = runMax;
+      } else runMax = 0;
+      if (v === minV) {
+        atMin++;
+        if (++runMin > longestAtMin) longestAtMin = runMin;
+      } else runMin = 0;
+    }
+  });
   return { atMax, longestAtMax, atMin, longestAtMin, maxV, minV, nearMax, nearMin };
 }
 

@@ -1,3 +1,5 @@
+import { asSeries, type Series } from './series';
+
 /** The two state levels of a two-level waveform and what the histogram says about them. */
 export interface StateLevels {
   /** Low state level (base), V. */
@@ -55,17 +57,27 @@ function binCountFor(sampleCount: number): number {
  *
  * @param volts the samples, V
  */
-export function stateLevels(volts: Float64Array): StateLevels {
+export function stateLevels(samples: Float64Array | Series): StateLevels {
+  const volts = asSeries(samples);
   const n = volts.length;
   let minV = Number.POSITIVE_INFINITY;
   let maxV = Number.NEGATIVE_INFINITY;
   let sumV = 0;
-  for (let i = 0; i < n; i++) {
-    const v = volts[i];
-    if (v < minV) minV = v;
-    if (v > maxV) maxV = v;
-    sumV += v;
-  }
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
+  volts.scan(0, n, (values) => {
+    let lo = minV;
+    let hi = maxV;
+    let sum = sumV;
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+      sum += v;
+    }
+    minV = lo;
+    maxV = hi;
+    sumV = sum;
+  });
   const meanV = n > 0 ? sumV / n : Number.NaN;
   const rangeV = maxV - minV;
   const flat: StateLevels = { baseV: meanV, topV: meanV, twoStates: false, noiseV: 0, minV, maxV };
@@ -77,13 +89,15 @@ export function stateLevels(volts: Float64Array): StateLevels {
   const binWidthV = rangeV / bins;
   const counts = new Uint32Array(bins);
   const sums = new Float64Array(bins);
-  for (let i = 0; i < n; i++) {
-    const v = volts[i];
-    let bin = Math.floor((v - minV) / binWidthV);
-    if (bin >= bins) bin = bins - 1;
-    counts[bin]++;
-    sums[bin] += v;
-  }
+  volts.scan(0, n, (values) => {
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      let bin = Math.floor((v - minV) / binWidthV);
+      if (bin >= bins) bin = bins - 1;
+      counts[bin]++;
+      sums[bin] += v;
+    }
+  });
   const half = bins / 2;
   const lowerCoarse = halfLevel(counts, sums, 0, half, binWidthV, 0, minV);
   const upperCoarse = halfLevel(counts, sums, half, bins, binWidthV, bins - 1, maxV);
@@ -156,7 +170,7 @@ function peakAround(
  * does not pull the top level down, and measures the width of a noise peak that the coarse
  * bins resolve only roughly.
  */
-function refine(volts: Float64Array, lower: HalfLevel, upper: HalfLevel, coarseBinWidthV: number): HalfLevel[] {
+function refine(volts: Series, lower: HalfLevel, upper: HalfLevel, coarseBinWidthV: number): HalfLevel[] {
   const lowerHalfV = Math.max(2 * coarseBinWidthV, lower.widthV);
   const upperHalfV = Math.max(2 * coarseBinWidthV, upper.widthV);
   const lowerFineV = (2 * lowerHalfV) / FINE_BINS;
@@ -167,19 +181,21 @@ function refine(volts: Float64Array, lower: HalfLevel, upper: HalfLevel, coarseB
   const upperSums = new Float64Array(FINE_BINS);
   const lowerFromV = lower.levelV - lowerHalfV;
   const upperFromV = upper.levelV - upperHalfV;
-  for (let i = 0; i < volts.length; i++) {
-    const v = volts[i];
-    const lowerBin = Math.floor((v - lowerFromV) / lowerFineV);
-    if (lowerBin >= 0 && lowerBin < FINE_BINS) {
-      lowerCounts[lowerBin]++;
-      lowerSums[lowerBin] += v;
+  volts.scan(0, volts.length, (values) => {
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      const lowerBin = Math.floor((v - lowerFromV) / lowerFineV);
+      if (lowerBin >= 0 && lowerBin < FINE_BINS) {
+        lowerCounts[lowerBin]++;
+        lowerSums[lowerBin] += v;
+      }
+      const upperBin = Math.floor((v - upperFromV) / upperFineV);
+      if (upperBin >= 0 && upperBin < FINE_BINS) {
+        upperCounts[upperBin]++;
+        upperSums[upperBin] += v;
+      }
     }
-    const upperBin = Math.floor((v - upperFromV) / upperFineV);
-    if (upperBin >= 0 && upperBin < FINE_BINS) {
-      upperCounts[upperBin]++;
-      upperSums[upperBin] += v;
-    }
-  }
+  });
   const fine = (level: HalfLevel, counts: Uint32Array, sums: Float64Array, binWidthV: number): HalfLevel => {
     if (level.widthV === 0) return level;
     let mode = 0;

@@ -1,4 +1,5 @@
 import { selectInPlace } from './sample-interval';
+import type { Series } from './series';
 
 // For Gaussian noise, median(|x|) = 0.6745·σ; a second difference of white noise has variance 6σ².
 const MAD_PER_SIGMA = 0.6744897501960817;
@@ -16,7 +17,7 @@ const MAX_DIFFERENCES = 1 << 18;
  *
  * @returns σ, V; 0 for a noiseless (or finely quantised) trace
  */
-export function noiseRmsV(volts: Float64Array, skip?: (index: number) => boolean): number {
+export function noiseRmsV(volts: Series, skip?: (index: number) => boolean): number {
   const n = volts.length;
   if (n < 3) return 0;
   // a quarter of a million second differences pin the median well; spread them over the whole record
@@ -25,7 +26,7 @@ export function noiseRmsV(volts: Float64Array, skip?: (index: number) => boolean
   let count = 0;
   for (let i = 1; i < n - 1; i += stride) {
     if (skip && (skip(i - 1) || skip(i) || skip(i + 1))) continue;
-    const d = volts[i + 1] - 2 * volts[i] + volts[i - 1];
+    const d = volts.get(i + 1) - 2 * volts.get(i) + volts.get(i - 1);
     diffs[count++] = d < 0 ? -d : d;
   }
   if (count === 0) return 0;

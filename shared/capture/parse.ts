@@ -1,17 +1,25 @@
-import { checkColumnOptions, unitName, unitWord, type DataLayout } from './data-layout';
+import { checkColumnOptions, type DataLayout } from './data-layout';
+import { describeParse, scaleInPlace, type ParsedColumns } from './parse-result';
 import { describeRowProblem, quoteCell } from './parse-messages';
 import { COMMENT, Preamble } from './preamble';
 import { readNumber } from './read-number';
-import { SampleBuffer } from './sample-buffer';
-import { splitCells } from './separators';
+import { SampleBuffer, type RowSink } from './sample-buffer';
+import { CONTROL, detectLineEnd, splitCells } from './separators';
 import { SettingsCollector } from './settings';
-import type { CaptureChannel, CaptureColumn, CaptureParseError, CaptureParseOptions, ParseResult } from './types';
+import type { CaptureParseError, CaptureParseOptions, ParseResult } from './types';
 
-const MAX_LINE_CHARS = 1 << 20;
-// C0 controls other than tab, LF, VT, FF, CR and the DOS end-of-file mark never occur in text.
-const CONTROL = /[\u0000-\u0008\u000e-\u0019\u001b-\u001f]/u;
-const SLOT_NONE = -2;
-const SLOT_TIME = -1;
+export { scaleValue, type ParsedColumns } from './parse-result';
+
+
+/** A capture's control bytes (as `CONTROL`), by code, for the byte reader. */
+
+export const MAX_LINE_CHARS = 1 << 20;
+export const SLOT_NONE = -2;
+export const SLOT_TIME = -1;
+export const ROW_TAKEN = 0;
+export const ROW_FAILED = 1;
+const ROW_NO_TIME = 2;
+const ROW_UNREAD = 3;
 
 /**
  * Reads a CSV capture a chunk at a time, holding only the unfinished last line and the samples
@@ -41,29 +49,32 @@ const SLOT_TIME = -1;
  */
 export class CaptureParser {
   private readonly options: CaptureParseOptions;
-  private buffer = new SampleBuffer();
+  protected buffer: RowSink = new SampleBuffer();
+  private readonly sinkFor: (channelCount: number) => RowSink;
   private readonly settings: SettingsCollector;
-  private readonly preamble: Preamble;
+  protected readonly preamble: Preamble;
   private readonly notes: string[] = [];
-  private error: CaptureParseError | null = null;
-  private pending = '';
-  private lineEnd: '\n' | '\r' | null = null;
+  protected error: CaptureParseError | null = null;
+  protected pending = '';
+  protected lineEnd: '\n' | '\r' | null = null;
   private started = false;
-  private line = 0;
-  private layout: DataLayout | null = null;
-  private separatorCode = 0;
-  private slots = new Int16Array(0);
-  private lastColumn = 0;
-  private row = new Float64Array(0);
-  private exp10s: number[] = [];
-  private timeExp10 = 0;
+  protected line = 0;
+  protected layout: DataLayout | null = null;
+  protected separatorCode = 0;
+  protected slots = new Int16Array(0);
+  protected lastColumn = 0;
+  protected row = new Float64Array(0);
+  protected exp10s: number[] = [];
+  protected timeExp10 = 0;
   private rows = 0;
   private headerLine: number | null = null;
   private firstDataLine = 0;
   private footer: { error: CaptureParseError; count: number } | null = null;
 
-  constructor(options: CaptureParseOptions = {}) {
+  /** @param sinkFor where the rows go (default: growing arrays in memory, for `finish`); another sink is read with `finishColumns`. */
+  constructor(options: CaptureParseOptions = {}, sinkFor: (channelCount: number) => RowSink = (count) => new SampleBuffer(count)) {
     this.options = { ...options };
+    this.sinkFor = sinkFor;
     this.settings = new SettingsCollector(() => this.preamble.decimalComma());
     this.preamble = new Preamble(this.options, this.settings);
     const problem = checkColumnOptions(this.options);
@@ -87,6 +98,26 @@ export class CaptureParser {
 
   /** Reads the last line, if the file did not end with a line break, and reports. */
   finish(): ParseResult {
+    try {
+      const columns = this.finishColumns();
+      if (!columns.ok) return columns;
+      const buffer = this.buffer as SampleBuffer;
+      const timesS = buffer.times();
+      if (columns.timeExp10 !== 0) scaleInPlace(timesS, columns.timeExp10);
+      const channelVolts = columns.channels.map((_, slot) => {
+        const volts = buffer.channel(slot);
+        if (columns.channelExp10s[slot] !== 0) scaleInPlace(volts, columns.channelExp10s[slot]);
+        return volts;
+      });
+      const { rows: _rows, timeExp10: _t, channelExp10s: _c, ...rest } = columns;
+      return { ...rest, samples: { timesS, volts: channelVolts[columns.channel - 1] }, channelVolts };
+    } catch (cause) {
+      return { ok: false, error: { message: `the capture reader stopped unexpectedly (${String(cause)})` } };
+    }
+  }
+
+  /** As `finish`, for a parser given its own sink: the rows stay there, unscaled. */
+  finishColumns(): ParsedColumns | { ok: false; error: CaptureParseError } {
     try {
       if (this.error === null && this.pending !== '') {
         const last = this.pending;
@@ -140,7 +171,7 @@ export class CaptureParser {
     if (this.error === null && start < chunk.length) this.keepPending(chunk.slice(start));
   }
 
-  private keepPending(text: string): void {
+  protected keepPending(text: string): void {
     if (text.length > MAX_LINE_CHARS) {
       this.fail({
         message: `line ${this.line + 1} is longer than ${MAX_LINE_CHARS} characters; this is not a CSV capture`,
@@ -149,7 +180,7 @@ export class CaptureParser {
     } else this.pending = text;
   }
 
-  private readLine(text: string, start: number, end: number, isFinal: boolean): void {
+  protected readLine(text: string, start: number, end: number, isFinal: boolean): void {
     this.line++;
     if (this.lineEnd === '\r') {
       if (start < end && text.charCodeAt(start) === 10) start++;
@@ -181,6 +212,18 @@ export class CaptureParser {
         cellStart = i + 1;
       }
     }
+    const taken = this.takeRow(timeValue);
+    if (taken === ROW_TAKEN) {
+      if (layout.metadataColumns > 0 && start < end && text.charCodeAt(start) !== separator) {
+        this.preamble.readMetadataCells(splitCells(text.slice(start, end), layout.separator).slice(0, layout.metadataColumns));
+      }
+    } else if (taken !== ROW_FAILED) this.rejectDataLine(text.slice(start, end), isFinal, taken === ROW_NO_TIME);
+  }
+
+  /** Stores one row once every cell read; says why not otherwise. */
+  protected takeRow(timeValue: number): number {
+    const layout = this.layout!;
+    const row = this.row;
     const time = layout.time;
     let timeS: number;
     if (time.kind === 'column') timeS = timeValue;
@@ -188,24 +231,23 @@ export class CaptureParser {
     else timeS = row[0] === row[0] ? time.startS + this.rows * time.intervalS : Number.NaN;
     let allRead = timeS === timeS;
     for (let c = 0; c < row.length && allRead; c++) if (row[c] !== row[c]) allRead = false;
-    if (allRead) {
-      if (this.footer !== null) return this.fail(this.footer.error);
-      const previousS = this.buffer.lastTimeS();
-      if (timeS <= previousS) {
-        return this.fail({
-          message: `time is not increasing at line ${this.line}: ${timeS} s follows ${previousS} s`,
-          line: this.line,
-          expected: `a time later than ${previousS} s`,
-        });
-      }
-      this.buffer.pushRow(timeS, row);
-      this.rows++;
-      if (layout.metadataColumns > 0 && start < end && text.charCodeAt(start) !== separator) {
-        this.preamble.readMetadataCells(splitCells(text.slice(start, end), layout.separator).slice(0, layout.metadataColumns));
-      }
-      return;
+    if (!allRead) return timeS !== timeS ? ROW_NO_TIME : ROW_UNREAD;
+    if (this.footer !== null) {
+      this.fail(this.footer.error);
+      return ROW_FAILED;
     }
-    this.rejectDataLine(text.slice(start, end), isFinal, timeS !== timeS);
+    const previousS = this.buffer.lastTimeS();
+    if (timeS <= previousS) {
+      this.fail({
+        message: `time is not increasing at line ${this.line}: ${timeS} s follows ${previousS} s`,
+        line: this.line,
+        expected: `a time later than ${previousS} s`,
+      });
+      return ROW_FAILED;
+    }
+    this.buffer.pushRow(timeS, row);
+    this.rows++;
+    return ROW_TAKEN;
   }
 
   private rejectDataLine(line: string, isFinal: boolean, timeMissing: boolean): void {
@@ -240,129 +282,32 @@ export class CaptureParser {
     this.timeExp10 = layout.time.kind === 'column' ? layout.time.exp10 : 0;
     this.exp10s = layout.channels.map((channel) => channel.exp10);
     this.row = new Float64Array(layout.channels.length);
-    this.buffer = new SampleBuffer(layout.channels.length);
+    this.buffer = this.sinkFor(layout.channels.length);
     this.headerLine = this.preamble.headerLine();
     this.firstDataLine = this.line;
     this.readDataLine(line, 0, line.length, isFinal);
   }
 
-  private fail(error: CaptureParseError): void {
+  protected fail(error: CaptureParseError): void {
     this.error ??= error;
     this.pending = '';
   }
 
-  private result(): ParseResult {
-    if (this.error !== null) return { ok: false, error: this.error };
-    const layout = this.layout;
-    if (layout === null) return { ok: false, error: this.preamble.noDataError(this.line) };
-    if (this.buffer.length < 2) {
-      return {
-        ok: false,
-        error: {
-          message: `only one sample (line ${this.firstDataLine}); a capture needs at least 2`,
-          line: this.firstDataLine,
-          expected: 'at least 2 samples',
-        },
-      };
-    }
-    const notes = [...layout.notes];
-    if (layout.decimalComma) notes.push(`Read with '${layout.separator === '\t' ? 'tab' : layout.separator}' between columns and a comma as the decimal mark.`);
-    const timesS = this.buffer.times();
-    let timeUnit = layout.time.kind === 'column' ? layout.time.column.unit : 's';
-    if (layout.time.kind === 'column' && layout.time.column.name !== null && notes.some((n) => n.includes('read as seconds'))) {
-      const exp10 = this.settings.number('horizontalUnit');
-      if (exp10 !== undefined && exp10 !== 0) {
-        scaleInPlace(timesS, exp10);
-        timeUnit = `1e${exp10} s`;
-        notes.push(`…then rescaled: the metadata's '${this.settings.get('horizontalUnit')!.key}' says '${this.settings.get('horizontalUnit')!.text}'.`);
-      }
-    }
-    const channels: CaptureChannel[] = [];
-    const channelVolts: Float64Array[] = [];
-    layout.channels.forEach((channel, slot) => {
-      const volts = this.buffer.channel(slot);
-      let unit = channel.unit;
-      if (channel.unitSource === 'default') {
-        const exp10 = this.settings.number('verticalUnit', channel.number);
-        if (exp10 !== undefined) {
-          if (exp10 !== 0) scaleInPlace(volts, exp10);
-          unit = unitName(exp10);
-          const applied = this.settings.get('verticalUnit', channel.number)!;
-          notes.push(`'${channel.name}' read as ${unitWord(exp10)} from the file's '${applied.key}' = '${applied.text}'.`);
-        } else notes.push(`'${channel.name}' read as volts: neither the header nor the preamble names a unit.`);
-      }
-      channels.push({ index: slot + 1, name: channel.name, unit, column: channel.column });
-      channelVolts.push(volts);
-    });
-    const chosen = this.chooseChannel(channels);
-    if ('error' in chosen) return { ok: false, error: chosen.error };
-    const picked = channels[chosen.index - 1];
-    if (channels.length > 1 || chosen.asked) {
-      notes.push(
-        `Analysed channel ${picked.index} ('${picked.name}', column ${picked.column + 1}) of ${channels.length}${chosen.asked ? ', as chosen' : ': the first signal column; choose another with the channel field'}.`,
-      );
-    }
-    if (this.footer !== null) {
-      notes.push(`Ignored ${this.footer.count} line(s) after the last sample, from line ${this.footer.error.line}.`);
-    }
-    notes.push(...this.notes);
-    const metadata = this.settings.metadataFor(layout.channels[chosen.index - 1].number, notes);
-    const time: CaptureColumn = layout.time.kind === 'rows' ? { index: -1, name: null, unit: 's' } : { ...layout.time.column, unit: layout.time.kind === 'index' ? 'sample' : timeUnit };
-    return {
-      ok: true,
-      samples: { timesS, volts: channelVolts[chosen.index - 1] },
-      time,
-      voltage: { index: picked.column, name: layout.channels[chosen.index - 1].name.startsWith('column ') && this.headerLine === null ? null : picked.name, unit: picked.unit },
-      channel: picked.index,
-      channels,
-      channelVolts,
-      metadata,
-      separator: layout.separator,
-      decimalComma: layout.decimalComma,
-      headerLine: this.headerLine,
+  private result(): ParsedColumns | { ok: false; error: CaptureParseError } {
+    return describeParse({
+      error: this.error,
+      layout: this.layout,
+      noDataError: () => this.preamble.noDataError(this.line),
+      rows: this.buffer.length,
       firstDataLine: this.firstDataLine,
-      lineCount: this.line,
-      notes,
-    };
+      settings: this.settings,
+      footer: this.footer,
+      notes: this.notes,
+      headerLine: this.headerLine,
+      line: this.line,
+      options: this.options,
+    });
   }
-
-  private chooseChannel(channels: CaptureChannel[]): { index: number; asked: boolean } | { error: CaptureParseError } {
-    const list = channels.map((c) => `${c.index} '${c.name}'`).join(', ');
-    const { channel, voltageColumnIndex } = this.options;
-    if (voltageColumnIndex !== undefined) {
-      const found = channels.find((c) => c.column === voltageColumnIndex);
-      if (found) return { index: found.index, asked: true };
-      const expected = `a number in column ${voltageColumnIndex + 1} (voltage)`;
-      return { error: { message: `expected ${expected}, but the signal columns are ${channels.map((c) => c.column + 1).join(', ')}`, expected } };
-    }
-    if (channel === undefined) return { index: 1, asked: false };
-    const text = String(channel).trim();
-    if (/^\d+$/u.test(text)) {
-      const index = Number(text);
-      if (index >= 1 && index <= channels.length) return { index, asked: true };
-      return { error: { message: `channel ${index} does not exist: the file has ${channels.length} signal column(s): ${list}`, expected: `a channel from 1 to ${channels.length}` } };
-    }
-    const lower = text.toLowerCase();
-    const byName = channels.find((c) => c.name.toLowerCase() === lower) ?? channels.find((c) => c.name.toLowerCase().replace(/\s*[([].*$/u, '') === lower);
-    if (byName) return { index: byName.index, asked: true };
-    return { error: { message: `no signal column is named '${text}'; the file has ${list}`, expected: 'a channel number or a column name' } };
-  }
-}
-
-function scaleInPlace(values: Float64Array, exp10: number): void {
-  const factor = 10 ** Math.abs(exp10);
-  for (let i = 0; i < values.length; i++) values[i] = exp10 < 0 ? values[i] / factor : values[i] * factor;
-}
-
-/** LF (with or without CR before it), or CR alone as old Mac tools wrote; null until known. */
-function detectLineEnd(text: string): '\n' | '\r' | null {
-  const lf = text.indexOf('\n');
-  const cr = text.indexOf('\r');
-  if (cr >= 0 && (lf < 0 || cr < lf)) {
-    if (cr + 1 >= text.length) return null;
-    return text.charCodeAt(cr + 1) === 10 ? '\n' : '\r';
-  }
-  return lf >= 0 ? '\n' : null;
 }
 
 /** Parses a whole capture held in memory (small files, tests, the client's paste box). */

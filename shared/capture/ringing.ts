@@ -1,3 +1,4 @@
+import type { Series } from './series';
 import { crossingTimeS, type Transition } from './transitions';
 
 /** Ringing seen after one transition. */
@@ -45,8 +46,8 @@ const HALF_PERIOD_TOLERANCE = 1.6;
  * @returns the ringing, or null when fewer than two crossings (half a cycle) stand out
  */
 export function ringingAfter(
-  timesS: Float64Array,
-  volts: Float64Array,
+  timesS: Series,
+  volts: Series,
   transition: Transition,
   stopIndex: number,
   finalV: number,
@@ -62,7 +63,7 @@ export function ringingAfter(
   if (last <= first || first - reach < 0) return null;
   // Running sum of the centred window of `width` samples about i.
   let windowSum = 0;
-  for (let k = first - reach; k <= first + reach; k++) windowSum += volts[k];
+  for (let k = first - reach; k <= first + reach; k++) windowSum += volts.get(k);
   let side = 0;
   let lastZeroS = Number.NaN;
   let firstS = Number.NaN;
@@ -70,10 +71,10 @@ export function ringingAfter(
   let intervals = 0;
   let previous = windowSum / width - finalV;
   for (let i = first; i <= last; i++) {
-    if (i > first) windowSum += volts[i + reach] - volts[i - reach - 1];
+    if (i > first) windowSum += volts.get(i + reach) - volts.get(i - reach - 1);
     const residual = windowSum / width - finalV;
     if (i > first && previous < 0 !== residual < 0) {
-      lastZeroS = crossingTimeS(timesS[i - 1], previous, timesS[i], residual, 0);
+      lastZeroS = crossingTimeS(timesS.get(i - 1), previous, timesS.get(i), residual, 0);
     }
     previous = residual;
     const now = residual > bandV ? 1 : residual < -bandV ? -1 : 0;

@@ -1,10 +1,18 @@
 import type { CaptureSamples } from './types';
 
+/** Where a parser puts its rows: growing arrays in memory, or a file on the server. */
+export interface RowSink {
+  readonly length: number;
+  lastTimeS(): number;
+  /** Appends one row: its time and one value per channel (the array is reused by the caller). */
+  pushRow(timeS: number, values: Float64Array): void;
+}
+
 /**
  * A time column and any number of voltage columns that grow by doubling, so a parser can
  * append samples without knowing the length of the file and without a boxed number per sample.
  */
-export class SampleBuffer {
+export class SampleBuffer implements RowSink {
   private timesS = new Float64Array(4096);
   private channels: Float64Array[];
   length = 0;

@@ -36,3 +36,18 @@ export function splitCells(line: string, separator: CaptureSeparator): string[] 
   cells.push(cell.trim());
   return cells;
 }
+
+// C0 controls other than tab, LF, VT, FF, CR and the DOS end-of-file mark never occur in text.
+export const CONTROL = /[\u0000-\u0008\u000e-\u0019\u001b-\u001f]/u;
+
+/** LF (with or without CR before it), or CR alone as old Mac tools wrote; null until known. */
+export function detectLineEnd(text: string): '\n' | '\r' | null {
+  const lf = text.indexOf('\n');
+  const cr = text.indexOf('\r');
+  if (cr >= 0 && (lf < 0 || cr < lf)) {
+    if (cr + 1 >= text.length) return null;
+    return text.charCodeAt(cr + 1) === 10 ? '\n' : '\r';
+  }
+  return lf >= 0 ? '\n' : null;
+}
+

@@ -1,3 +1,4 @@
+import type { Series } from './series';
 import type { Transition } from './transitions';
 
 /** How the level after one edge moves until the next edge. */
@@ -34,14 +35,14 @@ const SIGNIFICANT = 4;
  * @param to last sample before the next edge
  * @param noiseV noise rms, V
  */
-export function fitSettle(timesS: Float64Array, volts: Float64Array, from: number, to: number, noiseV: number): SegmentSettle | null {
+export function fitSettle(timesS: Series, volts: Series, from: number, to: number, noiseV: number): SegmentSettle | null {
   let span = to - from;
   if (span < MIN_SPAN_SAMPLES) return null;
   const mean = (center: number, width: number) => {
     const a = Math.max(from, Math.round(center - width / 2));
     const b = Math.min(to, a + width - 1);
     let sum = 0;
-    for (let i = a; i <= b; i++) sum += volts[i];
+    for (let i = a; i <= b; i++) sum += volts.get(i);
     return sum / (b - a + 1);
   };
   for (;;) {
@@ -55,7 +56,7 @@ export function fitSettle(timesS: Float64Array, volts: Float64Array, from: numbe
     const d1 = m1 - m2;
     const d2 = m2 - m3;
     const errorV = (SIGNIFICANT * noiseV * Math.SQRT2) / Math.sqrt(width);
-    const t = (c: number) => timesS[Math.round(c)];
+    const t = (c: number) => timesS.get(Math.round(c));
     const flatLevel = (m1 + m2 + m3) / 3;
     if (Math.abs(d1) <= errorV && Math.abs(d2) <= errorV) {
       if (Math.abs(m1 - m3) <= errorV || d1 === 0) return { kind: 'flat', startV: flatLevel, endV: flatLevel, finalV: flatLevel, tauS: Number.NaN, levelAt: () => flatLevel };
@@ -79,12 +80,12 @@ export function fitSettle(timesS: Float64Array, volts: Float64Array, from: numbe
     const stepS = (t(c3) - t(c1)) / 2;
     const tauS = stepS / Math.log(q);
     const finalV = m3 - d2 / (q - 1);
-    const h = ((width * (timesS[to] - timesS[from])) / (to - from) / 2) / tauS;
+    const h = ((width * (timesS.get(to) - timesS.get(from))) / (to - from) / 2) / tauS;
     const windowGain = h > 1e-6 ? Math.sinh(h) / h : 1;
     const r1 = (m1 - finalV) / windowGain;
     const t1 = t(c1);
     const levelAt = (tS: number) => finalV + r1 * Math.exp(-(tS - t1) / tauS);
-    return { kind: 'corner', startV: levelAt(timesS[from]), endV: levelAt(timesS[to]), finalV, tauS, levelAt };
+    return { kind: 'corner', startV: levelAt(timesS.get(from)), endV: levelAt(timesS.get(to)), finalV, tauS, levelAt };
   }
 }
 
@@ -116,8 +117,8 @@ const MIN_SHARE = 0.002;
  * constants gives a jump to k·A then e^(−t/τ) settling to A, corner = (k − 1).
  */
 export function settleSummary(
-  timesS: Float64Array,
-  volts: Float64Array,
+  timesS: Series,
+  volts: Series,
   transitions: Transition[],
   baseV: number,
   topV: number,
@@ -134,7 +135,7 @@ export function settleSummary(
     fastS.push(fast);
     const guardS = edge.t50S + CORNER_TAU_OVER_EDGE * fast;
     let from = edge.endIndex;
-    while (from < n - 1 && timesS[from] < guardS) from++;
+    while (from < n - 1 && timesS.get(from) < guardS) from++;
     const to = next ? next.startIndex : n - 1;
     segments.push(fitSettle(timesS, volts, from, to, noiseV));
   }
@@ -151,7 +152,7 @@ export function settleSummary(
     const before = i > 0 ? segments[i - 1] : null;
     const priorV = before ? before.levelAt(edge.t50S) : dir > 0 ? baseV : topV;
     const startV = segment.levelAt(edge.t50S);
-    const endS = transitions[i + 1]?.t50S ?? timesS[n - 1];
+    const endS = transitions[i + 1]?.t50S ?? timesS.get(n - 1);
     const durationS = endS - edge.t50S;
     const stepV = Math.abs(startV - priorV);
     if (!(stepV > 0)) continue;

@@ -1,10 +1,11 @@
 import type { StateLevels } from './levels';
+import type { Series } from './series';
 import type { Transition } from './transitions';
 
 export type WaveShape = 'square' | 'pulse' | 'step' | 'sine' | 'dc' | 'other';
 
 export interface ShapeInputs {
-  volts: Float64Array;
+  volts: Series;
   levels: StateLevels;
   transitions: Transition[];
   periodS: number | null;
@@ -63,12 +64,14 @@ export function classifyShape(input: ShapeInputs): WaveShape {
   return 'other';
 }
 
-function isTwoLevel(volts: Float64Array, levels: StateLevels, share: number): boolean {
+function isTwoLevel(volts: Series, levels: StateLevels, share: number): boolean {
   const bandV = 0.1 * (levels.maxV - levels.minV);
   const lowV = (levels.twoStates ? levels.baseV : levels.minV) + bandV;
   const highV = (levels.twoStates ? levels.topV : levels.maxV) - bandV;
   let near = 0;
-  for (let i = 0; i < volts.length; i++) if (volts[i] <= lowV || volts[i] >= highV) near++;
+  volts.scan(0, volts.length, (values) => {
+    for (let i = 0; i < values.length; i++) if (values[i] <= lowV || values[i] >= highV) near++;
+  });
   return near >= share * volts.length;
 }
 

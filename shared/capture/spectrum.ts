@@ -1,4 +1,5 @@
 import FFT from 'fft.js';
+import type { Series } from './series';
 
 /** One spectral line: its frequency and its amplitude (peak volts of the sinusoid). */
 export interface SpectralLine {
@@ -34,7 +35,7 @@ const MAX_LINES = 12;
  * @param volts samples, V
  * @param sampleIntervalS the (median) sample interval, s
  */
-export function amplitudeSpectrum(volts: Float64Array, sampleIntervalS: number): { spectrum: CaptureSpectrum; amplitudesV: Float64Array } | null {
+export function amplitudeSpectrum(volts: Series, sampleIntervalS: number): { spectrum: CaptureSpectrum; amplitudesV: Float64Array } | null {
   const n = volts.length;
   if (n < 16 || !(sampleIntervalS > 0)) return null;
   const m = Math.ceil(n / MAX_FFT_POINTS);
@@ -42,15 +43,30 @@ export function amplitudeSpectrum(volts: Float64Array, sampleIntervalS: number):
   const size = nextPowerOfTwo(length);
   const input = new Float64Array(size);
   let mean = 0;
-  for (let k = 0; k < length; k++) {
-    let sum = 0;
-    for (let j = k * m; j < k * m + m; j++) sum += volts[j];
-    input[k] = sum / m;
-    mean += input[k];
-  }
+  let k = 0;
+  let sum = 0;
+  let inGroup = 0;
+  // groups of m consecutive samples, summed in order across the blocks the series hands out
+  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
+  volts.scan(0, length * m, (values) => {
+    let groupSum = sum;
+    let total = mean;
+    for (let j = 0; j < values.length; j++) {
+      groupSum += values[j];
+      if (++inGroup === m) {
+        input[k] = groupSum / m;
+        total += input[k];
+        k++;
+        groupSum = 0;
+        inGroup = 0;
+      }
+    }
+    sum = groupSum;
+    mean = total;
+  });
   mean /= length;
   let windowSum = 0;
-  for (let k = 0; k < length; k++) {
+  for (k = 0; k < length; k++) {
     const w = 0.5 * (1 - Math.cos((2 * Math.PI * k) / (length - 1)));
     input[k] = (input[k] - mean) * w;
     windowSum += w;
@@ -60,7 +76,7 @@ export function amplitudeSpectrum(volts: Float64Array, sampleIntervalS: number):
   fft.realTransform(out, input);
   const bins = size / 2;
   const amplitudesV = new Float64Array(bins + 1);
-  for (let k = 0; k <= bins; k++) {
+  for (k = 0; k <= bins; k++) {
     const re = out[2 * k];
     const im = out[2 * k + 1];
     amplitudesV[k] = ((k === 0 || k === bins ? 1 : 2) * Math.sqrt(re * re + im * im)) / windowSum;

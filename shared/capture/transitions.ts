@@ -1,4 +1,5 @@
 import type { ReferenceLevels } from './levels';
+import { asSeries, type Series } from './series';
 
 export type EdgeKind = 'rise' | 'fall';
 
@@ -47,29 +48,34 @@ export function crossingTimeS(t0S: number, v0: number, t1S: number, v1: number, 
  * @param noiseV standard deviation of the noise on the samples, V (0: interpolate only)
  */
 export function findTransitions(
-  timesS: Float64Array,
-  volts: Float64Array,
+  times: Float64Array | Series,
+  samples: Float64Array | Series,
   levels: ReferenceLevels,
   noiseV = 0,
 ): Transition[] {
+  const timesS = asSeries(times);
+  const volts = asSeries(samples);
   const { lowV, highV } = levels;
   const transitions: Transition[] = [];
   let state = 0;
   let lastLow = -1;
   let lastHigh = -1;
   const n = volts.length;
-  for (let i = 0; i < n; i++) {
-    const v = volts[i];
-    if (v <= lowV) {
-      if (state === 1) transitions.push(fall(timesS, volts, lastHigh, i, levels, noiseV));
-      state = -1;
-      lastLow = i;
-    } else if (v >= highV) {
-      if (state === -1) transitions.push(rise(timesS, volts, lastLow, i, levels, noiseV));
-      state = 1;
-      lastHigh = i;
+  volts.scan(0, n, (values, firstIndex) => {
+    for (let j = 0; j < values.length; j++) {
+      const v = values[j];
+      const i = firstIndex + j;
+      if (v <= lowV) {
+        if (state === 1) transitions.push(fall(timesS, volts, lastHigh, i, levels, noiseV));
+        state = -1;
+        lastLow = i;
+      } else if (v >= highV) {
+        if (state === -1) transitions.push(rise(timesS, volts, lastLow, i, levels, noiseV));
+        state = 1;
+        lastHigh = i;
+      }
     }
-  }
+  });
   return transitions;
 }
 
@@ -89,8 +95,8 @@ const MAX_FIT_ROUNDS = 8;
  * 0.1 % of the duration in curvature on an exponential edge.
  */
 function fittedCrossingS(
-  timesS: Float64Array,
-  volts: Float64Array,
+  timesS: Series,
+  volts: Series,
   index: number,
   reach: number,
   levelV: number,
@@ -106,8 +112,8 @@ function fittedCrossingS(
     let meanT = 0;
     let meanV = 0;
     for (let k = from; k <= to; k++) {
-      meanT += timesS[k];
-      meanV += volts[k];
+      meanT += timesS.get(k);
+      meanV += volts.get(k);
     }
     const count = to - from + 1;
     meanT /= count;
@@ -115,8 +121,8 @@ function fittedCrossingS(
     let sumTV = 0;
     let sumTT = 0;
     for (let k = from; k <= to; k++) {
-      const dt = timesS[k] - meanT;
-      sumTV += dt * (volts[k] - meanV);
+      const dt = timesS.get(k) - meanT;
+      sumTV += dt * (volts.get(k) - meanV);
       sumTT += dt * dt;
     }
     const slope = sumTV / sumTT;
@@ -125,8 +131,8 @@ function fittedCrossingS(
     if (!Number.isFinite(crossingS)) return interpolatedS;
     // Beyond the window the line is an extrapolation: move the window that way and fit again.
     let next = center;
-    while (next > from && timesS[next] > crossingS) next--;
-    while (next < to && timesS[next + 1] <= crossingS) next++;
+    while (next > from && timesS.get(next) > crossingS) next--;
+    while (next < to && timesS.get(next + 1) <= crossingS) next++;
     if (next === center) return crossingS;
     center = next;
   }
@@ -138,35 +144,35 @@ function fittedCrossingS(
  * read from a fitted line.
  */
 function crossingNear(
-  timesS: Float64Array,
-  volts: Float64Array,
+  timesS: Series,
+  volts: Series,
   k: number,
   reach: number,
   levelV: number,
   fit: boolean,
 ): number {
-  const interpolatedS = crossingTimeS(timesS[k], volts[k], timesS[k + 1], volts[k + 1], levelV);
+  const interpolatedS = crossingTimeS(timesS.get(k), volts.get(k), timesS.get(k + 1), volts.get(k + 1), levelV);
   return fit ? fittedCrossingS(timesS, volts, k, reach, levelV, interpolatedS) : interpolatedS;
 }
 
-function rise(timesS: Float64Array, volts: Float64Array, from: number, to: number, levels: ReferenceLevels, noiseV: number): Transition {
+function rise(timesS: Series, volts: Series, from: number, to: number, levels: ReferenceLevels, noiseV: number): Transition {
   const reach = Math.floor((to - from) * FIT_SHARE);
-  const fit = noiseV > Math.abs(volts[to] - volts[from]) / (to - from);
+  const fit = noiseV > Math.abs(volts.get(to) - volts.get(from)) / (to - from);
   const crossing = (k: number, levelV: number) => crossingNear(timesS, volts, k, reach, levelV, fit);
   let mid = from;
-  while (volts[mid + 1] < levels.midV) mid++;
+  while (volts.get(mid + 1) < levels.midV) mid++;
   const t10S = crossing(from, levels.lowV);
   const t50S = crossing(mid, levels.midV);
   const t90S = crossing(to - 1, levels.highV);
   return { kind: 'rise', t10S, t50S, t90S, durationS: t90S - t10S, startIndex: from, endIndex: to };
 }
 
-function fall(timesS: Float64Array, volts: Float64Array, from: number, to: number, levels: ReferenceLevels, noiseV: number): Transition {
+function fall(timesS: Series, volts: Series, from: number, to: number, levels: ReferenceLevels, noiseV: number): Transition {
   const reach = Math.floor((to - from) * FIT_SHARE);
-  const fit = noiseV > Math.abs(volts[to] - volts[from]) / (to - from);
+  const fit = noiseV > Math.abs(volts.get(to) - volts.get(from)) / (to - from);
   const crossing = (k: number, levelV: number) => crossingNear(timesS, volts, k, reach, levelV, fit);
   let mid = from;
-  while (volts[mid + 1] > levels.midV) mid++;
+  while (volts.get(mid + 1) > levels.midV) mid++;
   const t90S = crossing(from, levels.highV);
   const t50S = crossing(mid, levels.midV);
   const t10S = crossing(to - 1, levels.lowV);

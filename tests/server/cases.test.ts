@@ -132,8 +132,6 @@ describe('case write-ups', () => {
       const huge = Buffer.concat([png.subarray(0, 33), Buffer.alloc(11 * 1024 * 1024, 1)]);
       const r4 = await author.upload(`/api/cases/${id}/attachments`, huge, 'huge.png', 'image/png').expect(413);
       expect(r4.body.error).toMatch(/10 MB/);
-      const tooBig = Buffer.alloc(51 * 1024 * 1024, 0x31);
-      await author.upload(`/api/cases/${id}/attachments`, tooBig, 'big.csv', 'text/csv').expect(413);
       expect(storedFiles().length).toBe(before);
       expect(readdirSync(path.join(ctx.config.dataDir, 'uploads', 'incoming'))).toHaveLength(0);
       const { body } = await author.get(`/api/cases/${id}`);

@@ -144,4 +144,28 @@ describe('the start-up sweep of uploads', () => {
       await ctx.close();
     }
   });
+  it('should remove plot samples whose capture is gone and scratch folders a crashed analysis left, keeping a live capture\'s', async () => {
+    const { sweepUploads } = await import('../../server/backup/upload-sweep');
+    const { createTestContext, signedIn } = await import('./helpers/test-context');
+    const { writeFileSync, mkdirSync, existsSync } = await import('node:fs');
+    const ctx = await createTestContext();
+    try {
+      const eng = await signedIn(ctx, 'engineer');
+      const id = (await eng.post('/api/cases', { title: 'Kept capture', summary: 'has a capture' }).expect(201)).body.case.id;
+      const csv = Array.from({ length: 200 }, (_, i) => `${i * 1e-6},${i % 100 < 50 ? 0 : 1}`).join('\n');
+      await eng.upload(`/api/cases/${id}/attachments`, Buffer.from(`time,volts\n${csv}\n`), 'edge.csv', 'text/csv').expect(201);
+      const uploads = path.join(ctx.config.dataDir, 'uploads');
+      const live = readdirSync(uploads).filter((f) => f.endsWith('.plot'));
+      expect(live).toHaveLength(1);
+      mkdirSync(path.join(uploads, 'gone.csv.plot'));
+      mkdirSync(path.join(uploads, '.x.csv.samples-0b7e4c1a-9d2f-4a57-8c3e-2f1d6a9b0c4e'));
+      writeFileSync(path.join(uploads, 'gone.csv.plot', 'time.bin'), 'stale');
+      expect(await sweepUploads(ctx.db, ctx.config.dataDir)).toEqual({ partial: 2, orphaned: 0 });
+      expect(existsSync(path.join(uploads, 'gone.csv.plot'))).toBe(false);
+      expect(readdirSync(uploads).filter((f) => f.includes('.samples-'))).toEqual([]);
+      expect(readdirSync(uploads).filter((f) => f.endsWith('.plot'))).toEqual(live);
+    } finally {
+      await ctx.close();
+    }
+  });
 });

@@ -1,10 +1,11 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { createReadStream, mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sampleUniformly, secondOrderStep, stepWaveform } from '../../shared/capture/synthetic';
-import { createSampleCache } from '../../server/captures/sample-cache';
+import { createPlotStores } from '../../server/captures/plot-stores';
+import { readCaptureStream } from '../../server/captures/read-capture-stream';
 import { pngBytes, stepCsv } from './helpers/fixtures';
 import { client, createTestContext, signedIn, type TestContext } from './helpers/test-context';
 
@@ -119,8 +120,8 @@ describe('capture traces for plotting', () => {
   });
 });
 
-describe('the parsed-capture cache', () => {
-  const dir = mkdtempSync(path.join(tmpdir(), 'falsetrace-cache-'));
+describe('the compact plot samples', () => {
+  const dir = mkdtempSync(path.join(tmpdir(), 'falsetrace-plots-'));
   const files = ['a.csv', 'b.csv'].map((name) => {
     const file = path.join(dir, name);
     writeFileSync(file, stepCsv(1000));
@@ -128,22 +129,31 @@ describe('the parsed-capture cache', () => {
   });
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-  it('should share one read between concurrent requests and keep hits in memory', async () => {
-    const cache = createSampleCache();
-    const [first, second] = await Promise.all([cache.get('a', files[0]), cache.get('a', files[0])]);
-    expect(first.ok && second.ok && first.samples === second.samples).toBe(true);
-    const again = await cache.get('a', files[0]);
-    expect(again.ok && first.ok && again.samples === first.samples).toBe(true);
-    expect(cache.stats()).toEqual({ entries: 1, usedBytes: 2 * 8 * 1000 });
+  it("should build a capture's store once, sharing the build between concurrent requests", async () => {
+    const plots = createPlotStores();
+    const [first, second] = await Promise.all([plots.open(files[0]), plots.open(files[0])]);
+    expect(first.ok && second.ok).toBe(true);
+    expect(plots.stats()).toEqual({ builds: 1, building: 0 });
+    const again = await plots.open(files[0]);
+    expect(plots.stats().builds).toBe(1);
+    for (const opened of [first, second, again]) if (opened.ok) opened.store.close();
   });
 
-  it('should evict the least recently used capture beyond its budget', async () => {
-    const cache = createSampleCache({ budgetBytes: 2 * 8 * 1000 });
-    const a = await cache.get('a', files[0]);
-    await cache.get('b', files[1]);
-    expect(cache.stats().entries).toBe(1);
-    const reread = await cache.get('a', files[0]);
-    expect(a.ok && reread.ok && reread.samples !== a.samples).toBe(true);
-    expect((await cache.get('missing', path.join(dir, 'nope.csv'))).ok).toBe(false);
+  it('should keep the values the CSV holds, exactly, in 4 bytes a sample', async () => {
+    const plots = createPlotStores();
+    const opened = await plots.open(files[1]);
+    const parsed = await readCaptureStream(createReadStream(files[1]));
+    expect(opened.ok && parsed.ok).toBe(true);
+    if (!opened.ok || !parsed.ok) return;
+    try {
+      const volts = opened.store.channel(1);
+      expect(volts.length).toBe(parsed.samples.volts.length);
+      for (let i = 0; i < volts.length; i++) expect(volts.get(i)).toBe(parsed.samples.volts[i]);
+      for (let i = 0; i < volts.length; i++) expect(opened.store.timesS.get(i)).toBeCloseTo(parsed.samples.timesS[i], 15);
+      expect(statSync(path.join(`${files[1]}.plot`, 'ch1.i32')).size).toBe(4 * volts.length);
+    } finally {
+      opened.store.close();
+    }
+    expect((await plots.open(path.join(dir, 'nope.csv'))).ok).toBe(false);
   });
 });

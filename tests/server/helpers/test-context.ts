@@ -39,6 +39,8 @@ export interface TestContextOptions {
   trustProxy?: Config['trustProxy'];
   /** As UPLOADS_DIR would set it (removed with the context). */
   uploadsDir?: string;
+  /** As CAPTURE_LIMIT_BYTES would set it. */
+  captureLimitBytes?: number;
 }
 
 /** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
@@ -59,6 +61,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
     production: false,
     trustProxy: options.trustProxy,
     uploadsDir: options.uploadsDir,
+    captureLimitBytes: options.captureLimitBytes,
   };
   // the queue's sweep also turns password reset requests into mails
   const mail = createMailQueue(db, mailer, { prepare: (queue) => resolvePasswordResetRequests({ db, config, mail: queue }) });

@@ -9,7 +9,7 @@ export interface UploadHandle {
 // What to say when the answer is not our JSON (a proxy's page, a dropped connection).
 const FALLBACK: Record<number, string> = {
   0: 'The upload did not reach the Falsetrace server. Check your connection and try again.',
-  413: 'The file is too large: screenshots up to 10 MB, captures up to 50 MB.',
+  413: 'The file is too large: screenshots up to 10 MB, captures up to the server\'s limit (2 GB unless set otherwise).',
   415: 'Not an accepted file: screenshots as PNG, JPEG, GIF or BMP; captures as CSV.',
 };
 

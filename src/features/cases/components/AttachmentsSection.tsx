@@ -32,7 +32,7 @@ export function AttachmentsSection({ caseId, attachments, uploads, onFiles, onDi
     );
   };
   return (
-    <FormSection id="attachments" title="Attachments" lead="Screenshots of the trace (PNG, JPEG, GIF, BMP, up to 10 MB) and the waveform capture as CSV (up to 50 MB).">
+    <FormSection id="attachments" title="Attachments" lead="Screenshots of the trace (PNG, JPEG, GIF, BMP, up to 10 MB) and the waveform capture as CSV (up to 2 GB unless your server sets another limit).">
       <div
         data-testid="drop-zone"
         onDragOver={(e) => {

@@ -1,0 +1,63 @@
+import { randomUUID } from 'node:crypto';
+import { createReadStream } from 'node:fs';
+import { rename, rm } from 'node:fs/promises';
+import path from 'node:path';
+import { ByteCaptureParser } from '../../shared/capture/parse-bytes';
+import type { ParsedColumns } from '../../shared/capture/parse';
+import type { CaptureParseOptions } from '../../shared/capture/types';
+import { feedCaptureStream } from './read-capture-stream';
+import { openStore, SampleFileWriter, writePlotStore, type OpenStore } from './sample-store';
+
+// Large reads: fewer trips through the stream machinery for a file of a gigabyte.
+const READ_CHUNK_BYTES = 1 << 19;
+
+/** A scratch directory beside `file` (same disk, never a RAM-backed temp dir), removed by the caller. */
+export function scratchDirFor(file: string, purpose: string): string {
+  return path.join(path.dirname(file), `.${path.basename(file)}.${purpose}-${randomUUID()}`);
+}
+
+/**
+ * Parses a capture file into a store on disk (`dir`, one binary file per column) in one
+ * streaming pass: memory stays a few blocks whatever the size of the file. On failure nothing
+ * usable is left in `dir` (the caller removes it either way).
+ */
+export async function readCaptureToStore(
+  file: string,
+  dir: string,
+  options: CaptureParseOptions = {},
+): Promise<{ ok: true; columns: ParsedColumns; store: OpenStore } | { ok: false; message: string }> {
+  let writer: SampleFileWriter | null = null;
+  const parser = new ByteCaptureParser(options, (count) => (writer = new SampleFileWriter(dir, count)));
+  const fed = await feedCaptureStream(createReadStream(file, { highWaterMark: READ_CHUNK_BYTES }), parser);
+  const w = writer as SampleFileWriter | null;
+  if (fed.error !== null) {
+    w?.abandon();
+    return { ok: false, message: fed.error.message };
+  }
+  const columns = parser.finishColumns();
+  if (!columns.ok || w === null) {
+    w?.abandon();
+    return { ok: false, message: columns.ok ? 'no samples' : columns.error.message };
+  }
+  w.close({ timeExp10: columns.timeExp10, channelExp10s: columns.channelExp10s });
+  if (fed.note !== null) columns.notes.push(fed.note);
+  return { ok: true, columns, store: openStore(dir) };
+}
+
+/** Where the compact samples of a stored capture file are kept for plotting. */
+export const plotStoreDirFor = (file: string) => `${file}.plot`;
+
+/**
+ * Writes the plot store of an open store to `target`, through a scratch directory renamed into
+ * place, so a reader never sees half a store.
+ */
+export async function savePlotStore(store: OpenStore, target: string): Promise<void> {
+  const scratch = scratchDirFor(target, 'plot');
+  try {
+    writePlotStore(store, scratch);
+    await rm(target, { recursive: true, force: true });
+    await rename(scratch, target);
+  } finally {
+    await rm(scratch, { recursive: true, force: true });
+  }
+}

@@ -1,0 +1,56 @@
+import { existsSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
+import path from 'node:path';
+import { plotStoreDirFor, readCaptureToStore, savePlotStore, scratchDirFor } from './capture-store';
+import { openStore, type OpenStore } from './sample-store';
+
+type Built = { ok: true } | { ok: false; message: string };
+
+/**
+ * The compact samples of stored captures, for plots: kept on disk beside each capture file
+ * (written at upload; for a capture stored before that, built from its CSV on first use), so
+ * zooming and panning a plot reads the binary samples instead of re-parsing the CSV, and
+ * memory does not grow with the captures. Two requests for a store still being built share
+ * one build.
+ */
+export function createPlotStores() {
+  const building = new Map<string, Promise<Built>>();
+  let builds = 0;
+
+  const build = async (file: string, dir: string): Promise<Built> => {
+    builds++;
+    const scratch = scratchDirFor(file, 'samples');
+    try {
+      const parsed = await readCaptureToStore(file, scratch);
+      if (!parsed.ok) return parsed;
+      try {
+        await savePlotStore(parsed.store, dir);
+      } finally {
+        parsed.store.close();
+      }
+      return { ok: true };
+    } finally {
+      await rm(scratch, { recursive: true, force: true });
+    }
+  };
+
+  return {
+    /** The plot store of a capture file, opened; the caller closes it. */
+    async open(file: string): Promise<{ ok: true; store: OpenStore } | { ok: false; message: string }> {
+      const dir = plotStoreDirFor(file);
+      if (!existsSync(path.join(dir, 'meta.json'))) {
+        let pending = building.get(file);
+        if (!pending) {
+          pending = build(file, dir).finally(() => building.delete(file));
+          building.set(file, pending);
+        }
+        const built = await pending;
+        if (!built.ok) return built;
+      }
+      return { ok: true, store: openStore(dir) };
+    },
+    stats: () => ({ builds, building: building.size }),
+  };
+}
+
+export type PlotStores = ReturnType<typeof createPlotStores>;

@@ -1,0 +1,328 @@
+import { closeSync, mkdirSync, openSync, readFileSync, readSync, writeFileSync, writeSync } from 'node:fs';
+import path from 'node:path';
+import { scaleValue } from '../../shared/capture/parse';
+import type { RowSink } from '../../shared/capture/sample-buffer';
+import type { Series } from '../../shared/capture/series';
+
+/**
+ * Samples on disk, one binary file per column, so that a capture of any length is read a block
+ * at a time rather than held in memory. Values are stored as the file wrote them (before a unit
+ * from the preamble is applied); the reader applies each column's power of ten the way the
+ * in-memory parser does, so both give the same doubles.
+ *
+ * A store is a directory: `meta.json`, `time.f64` (absent when the times are start + i·interval)
+ * and per channel (1-based) `ch<N>.f64` (as parsed, for the analysis) or, for plots, `ch<N>.i32`
+ * (whole multiples of 10^−d V, when every value is one: the usual export with fixed decimals, kept
+ * exactly) else `ch<N>.f32`.
+ */
+export interface StoreMeta {
+  rows: number;
+  channelCount: number;
+  /** 'f64' as parsed (for the analysis); 'compact' for plots (4 bytes a sample, a fifth of the CSV or less). */
+  precision: 'f64' | 'compact';
+  /** In a compact store, per channel: d when stored as whole multiples of 10^−d (`ch<N>.i32`), null for `ch<N>.f32`. */
+  channelDecimals?: (number | null)[];
+  timeExp10: number;
+  channelExp10s: number[];
+  /** Set when the times are start + i·interval (within a millionth of the interval), and no time file is kept. */
+  uniformTime?: { startS: number; intervalS: number };
+}
+
+const WRITE_ROWS = 1 << 16;
+
+/** Rows from the parser, straight to one file per column, a block at a time. */
+export class SampleFileWriter implements RowSink {
+  length = 0;
+  private last = Number.NEGATIVE_INFINITY;
+  private readonly fds: number[];
+  private readonly blocks: Float64Array[];
+  private fill = 0;
+
+  constructor(
+    readonly dir: string,
+    readonly channelCount: number,
+  ) {
+    mkdirSync(dir, { recursive: true });
+    const names = ['time.f64', ...Array.from({ length: channelCount }, (_, c) => `ch${c + 1}.f64`)];
+    this.fds = names.map((name) => openSync(path.join(dir, name), 'w'));
+    this.blocks = names.map(() => new Float64Array(WRITE_ROWS));
+  }
+
+  lastTimeS(): number {
+    return this.last;
+  }
+
+  pushRow(timeS: number, values: Float64Array): void {
+    const at = this.fill;
+    this.blocks[0][at] = timeS;
+    for (let c = 0; c < this.channelCount; c++) this.blocks[c + 1][at] = values[c];
+    this.last = timeS;
+    this.length++;
+    if (++this.fill === WRITE_ROWS) this.flush();
+  }
+
+  /** Writes what is buffered and closes the files; then the store can be opened. */
+  close(meta: Omit<StoreMeta, 'rows' | 'channelCount' | 'precision'>): void {
+    this.flush();
+    for (const fd of this.fds) closeSync(fd);
+    this.fds.length = 0;
+    writeMeta(this.dir, { ...meta, rows: this.length, channelCount: this.channelCount, precision: 'f64' });
+  }
+
+  /** Closes the files without a usable store (the parse failed). */
+  abandon(): void {
+    for (const fd of this.fds) closeSync(fd);
+    this.fds.length = 0;
+  }
+
+  private flush(): void {
+    if (this.fill === 0) return;
+    this.fds.forEach((fd, k) => writeAll(fd, new Uint8Array(this.blocks[k].buffer, 0, this.fill * 8)));
+    this.fill = 0;
+  }
+}
+
+function writeAll(fd: number, bytes: Uint8Array): void {
+  let done = 0;
+  while (done < bytes.length) done += writeSync(fd, bytes, done, bytes.length - done);
+}
+
+function writeMeta(dir: string, meta: StoreMeta): void {
+  writeFileSync(path.join(dir, 'meta.json'), JSON.stringify(meta));
+}
+
+export function readMeta(dir: string): StoreMeta {
+  return JSON.parse(readFileSync(path.join(dir, 'meta.json'), 'utf8')) as StoreMeta;
+}
+
+const PAGE = 1 << 16;
+const PAGES_KEPT = 4;
+const SCAN_ROWS = 1 << 18;
+
+/**
+ * One column of a store, read on demand: `get` through a few cached pages of 65,536 samples
+ * (the work about an edge reads the same neighbourhood again and again), `scan` a block at a time.
+ */
+export class FileSeries implements Series {
+  private readonly pageIds = new Float64Array(PAGES_KEPT).fill(-1);
+  private readonly pages: Float64Array[] = [];
+  private scratch: Float64Array | null = null;
+  private raw: Float32Array | Int32Array | null = null;
+  private nextSlot = 0;
+
+  private readonly divisor: number;
+
+  /** @param decimals for 'i32': the stored integers are the values times 10^decimals */
+  constructor(
+    private readonly fd: number,
+    readonly length: number,
+    private readonly format: 'f64' | 'f32' | 'i32',
+    private readonly exp10: number,
+    decimals = 0,
+  ) {
+    this.divisor = 10 ** decimals;
+    for (let k = 0; k < PAGES_KEPT; k++) this.pages.push(new Float64Array(PAGE));
+  }
+
+  // the page read last, checked first: one subtraction and one comparison per sample
+  private lo = 0;
+  private span = 0;
+  private current: Float64Array = new Float64Array(0);
+
+  get(i: number): number {
+    const k = i - this.lo;
+    return k >= 0 && k < this.span ? this.current[k] : this.miss(i);
+  }
+
+  private miss(i: number): number {
+    const id = Math.floor(i / PAGE);
+    let slot = -1;
+    for (let k = 0; k < PAGES_KEPT; k++) if (this.pageIds[k] === id) slot = k;
+    if (slot < 0) {
+      slot = this.nextSlot;
+      this.nextSlot = (slot + 1) % PAGES_KEPT;
+      this.read(id * PAGE, Math.min(this.length, (id + 1) * PAGE), this.pages[slot]);
+      this.pageIds[slot] = id;
+    }
+    this.lo = id * PAGE;
+    this.span = Math.min(this.length, (id + 1) * PAGE) - this.lo;
+    this.current = this.pages[slot];
+    return this.current[i - this.lo];
+  }
+
+  scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {
+    this.scratch ??= new Float64Array(SCAN_ROWS);
+    const scratch = this.scratch;
+    for (let start = Math.max(0, from); start < Math.min(to, this.length); start += SCAN_ROWS) {
+      const end = Math.min(to, this.length, start + SCAN_ROWS);
+      this.read(start, end, scratch);
+      visit(scratch.subarray(0, end - start), start);
+    }
+  }
+
+  /** Samples [from, to) into `out`, scaled. */
+  private read(from: number, to: number, out: Float64Array): void {
+    const count = to - from;
+    if (this.format === 'f64') {
+      readAll(this.fd, new Uint8Array(out.buffer, out.byteOffset, count * 8), from * 8);
+    } else {
+      if (this.raw === null || this.raw.length < count) this.raw = this.format === 'f32' ? new Float32Array(Math.max(count, PAGE)) : new Int32Array(Math.max(count, PAGE));
+      const raw = this.raw;
+      readAll(this.fd, new Uint8Array(raw.buffer, 0, count * 4), from * 4);
+      if (this.format === 'f32') for (let k = 0; k < count; k++) out[k] = raw[k];
+      else for (let k = 0; k < count; k++) out[k] = raw[k] / this.divisor;
+    }
+    if (this.exp10 !== 0) for (let k = 0; k < count; k++) out[k] = scaleValue(out[k], this.exp10);
+  }
+}
+
+function readAll(fd: number, bytes: Uint8Array, position: number): void {
+  let done = 0;
+  while (done < bytes.length) {
+    const read = readSync(fd, bytes, done, bytes.length - done, position + done);
+    if (read === 0) throw new Error('the stored samples end early');
+    done += read;
+  }
+}
+
+/** Times start + i·interval, computed rather than stored. */
+export class UniformSeries implements Series {
+  private scratch: Float64Array | null = null;
+
+  constructor(
+    readonly length: number,
+    private readonly startS: number,
+    private readonly intervalS: number,
+  ) {}
+
+  get(i: number): number {
+    return this.startS + i * this.intervalS;
+  }
+
+  scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {
+    this.scratch ??= new Float64Array(SCAN_ROWS);
+    for (let start = Math.max(0, from); start < Math.min(to, this.length); start += SCAN_ROWS) {
+      const end = Math.min(to, this.length, start + SCAN_ROWS);
+      for (let i = start; i < end; i++) this.scratch[i - start] = this.startS + i * this.intervalS;
+      visit(this.scratch.subarray(0, end - start), start);
+    }
+  }
+}
+
+/** An open store: its time axis and channels as series, and the files to close. */
+export interface OpenStore {
+  meta: StoreMeta;
+  timesS: Series;
+  /** Channel `n` (1-based), opened on first use. */
+  channel(n: number): Series;
+  close(): void;
+}
+
+export function openStore(dir: string): OpenStore {
+  const meta = readMeta(dir);
+  const fds: number[] = [];
+  const open = (name: string) => {
+    const fd = openSync(path.join(dir, name), 'r');
+    fds.push(fd);
+    return fd;
+  };
+  const timesS = meta.uniformTime
+    ? new UniformSeries(meta.rows, meta.uniformTime.startS, meta.uniformTime.intervalS)
+    : new FileSeries(open('time.f64'), meta.rows, 'f64', meta.timeExp10);
+  const channels = new Map<number, Series>();
+  return {
+    meta,
+    timesS,
+    channel(n: number): Series {
+      let series = channels.get(n);
+      if (!series) {
+        const decimals = meta.channelDecimals?.[n - 1] ?? null;
+        const format = meta.precision === 'f64' ? 'f64' : decimals === null ? 'f32' : 'i32';
+        series = new FileSeries(open(`ch${n}.${format}`), meta.rows, format, meta.channelExp10s[n - 1] ?? 0, decimals ?? 0);
+        channels.set(n, series);
+      }
+      return series;
+    },
+    close(): void {
+      for (const fd of fds.splice(0)) closeSync(fd);
+    },
+  };
+}
+
+/**
+ * A compact copy of a store for plots: channels (in volts) as whole multiples of 10^−d in Int32
+ * when that keeps every value exactly, else Float32; the time axis as
+ * start + i·interval when every time lies within a millionth of an interval of it, else Float64
+ * seconds. One pass over each column.
+ */
+export function writePlotStore(source: OpenStore, dir: string): void {
+  mkdirSync(dir, { recursive: true });
+  const { rows, channelCount } = source.meta;
+  const startS = source.timesS.get(0);
+  const intervalS = rows > 1 ? (source.timesS.get(rows - 1) - startS) / (rows - 1) : 0;
+  let uniform = rows > 1 && intervalS > 0;
+  if (uniform) {
+    source.timesS.scan(0, rows, (values, first) => {
+      for (let k = 0; k < values.length && uniform; k++) if (Math.abs(values[k] - (startS + (first + k) * intervalS)) > 1e-6 * intervalS) uniform = false;
+    });
+  }
+  if (!uniform) copyColumn(source.timesS, path.join(dir, 'time.f64'), 'f64');
+  const channelDecimals: (number | null)[] = [];
+  for (let c = 1; c <= channelCount; c++) {
+    const decimals = exactDecimals(source.channel(c));
+    channelDecimals.push(decimals);
+    copyColumn(source.channel(c), path.join(dir, `ch${c}.${decimals === null ? 'f32' : 'i32'}`), decimals === null ? 'f32' : 'i32', decimals ?? 0);
+  }
+  writeMeta(dir, {
+    rows,
+    channelCount,
+    precision: 'compact',
+    channelDecimals,
+    timeExp10: 0,
+    channelExp10s: Array.from({ length: channelCount }, () => 0),
+    ...(uniform ? { uniformTime: { startS, intervalS } } : {}),
+  });
+}
+
+const MAX_DECIMALS = 9;
+const I32_MAX = 2 ** 31 - 1;
+
+/**
+ * The fewest decimals d such that every value v is exactly round(v·10^d)/10^d with the integer
+ * within Int32 (so the plot gets back the very doubles the parser read), or null. Two passes:
+ * find d, then check every value at it.
+ */
+function exactDecimals(series: Series): number | null {
+  let decimals = 0;
+  const exact = (v: number, d: number) => {
+    const scale = 10 ** d;
+    const n = Math.round(v * scale);
+    return Math.abs(n) <= I32_MAX && n / scale === v;
+  };
+  series.scan(0, series.length, (values) => {
+    for (let k = 0; k < values.length && decimals <= MAX_DECIMALS; k++) {
+      while (decimals <= MAX_DECIMALS && !exact(values[k], decimals)) decimals++;
+    }
+  });
+  if (decimals > MAX_DECIMALS) return null;
+  let all = true;
+  series.scan(0, series.length, (values) => {
+    for (let k = 0; k < values.length && all; k++) if (!exact(values[k], decimals)) all = false;
+  });
+  return all ? decimals : null;
+}
+
+function copyColumn(series: Series, file: string, format: 'f64' | 'f32' | 'i32', decimals = 0): void {
+  const fd = openSync(file, 'w');
+  try {
+    const out = format === 'f64' ? new Float64Array(SCAN_ROWS) : format === 'f32' ? new Float32Array(SCAN_ROWS) : new Int32Array(SCAN_ROWS);
+    const scale = 10 ** decimals;
+    series.scan(0, series.length, (values) => {
+      if (format === 'i32') for (let k = 0; k < values.length; k++) out[k] = Math.round(values[k] * scale);
+      else out.set(values);
+      writeAll(fd, new Uint8Array(out.buffer, 0, values.length * out.BYTES_PER_ELEMENT));
+    });
+  } finally {
+    closeSync(fd);
+  }
+}

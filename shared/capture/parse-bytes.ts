@@ -1,0 +1,191 @@
+import { CaptureParser, MAX_LINE_CHARS, ROW_FAILED, ROW_TAKEN, SLOT_NONE, SLOT_TIME } from './parse';
+import { readNumberBytes } from './read-number';
+import { CONTROL } from './separators';
+
+/** A capture's control bytes (as `CONTROL`), by code. */
+const CONTROL_BYTE = Array.from({ length: 32 }, (_, c) => CONTROL.test(String.fromCharCode(c)));
+
+/**
+ * A `CaptureParser` that also takes bytes: once the data rows start (and the file is UTF-8 or
+ * Latin-1 with LF line ends), the rows are read straight from the bytes of the file, without
+ * decoding it to text first. Every line that is not a plain data row goes back to the text reader.
+ */
+export class ByteCaptureParser extends CaptureParser {
+  private pendingBytes: Uint8Array | null = null;
+  private decodeBytes: ((bytes: Uint8Array) => string) | null = null;
+
+  /**
+   * True once data rows are being read with LF line ends: from then on the caller may hand over
+   * bytes (`pushBytes`) instead of text, after taking back the unfinished line (`takePending`).
+   */
+  get acceptsBytes(): boolean {
+    return this.layout !== null && this.lineEnd === '\n' && this.error === null;
+  }
+
+  /** The unfinished last line pushed as text, handed back so it can be pushed again as bytes. */
+  takePending(): string {
+    const text = this.pending;
+    this.pending = '';
+    return text;
+  }
+
+  /**
+   * Feeds the next bytes of an ASCII-compatible text (UTF-8 or Latin-1, as `decode` reads it)
+   * once `acceptsBytes`: data rows are read straight from the bytes, any other line is decoded
+   * and read as text.
+   */
+  pushBytes(bytes: Uint8Array, decode: (bytes: Uint8Array) => string): void {
+    if (this.error !== null || bytes.length === 0) return;
+    this.decodeBytes = decode;
+    try {
+      let start = 0;
+      if (this.pendingBytes !== null) {
+        // only the line cut between chunks is joined, not the whole chunk
+        const at = bytes.indexOf(10);
+        const head = at < 0 ? bytes : bytes.subarray(0, at + 1);
+        const joined = new Uint8Array(this.pendingBytes.length + head.length);
+        joined.set(this.pendingBytes);
+        joined.set(head, this.pendingBytes.length);
+        this.pendingBytes = null;
+        if (at < 0) {
+          if (joined.length > MAX_LINE_CHARS) this.keepPending('x'.repeat(MAX_LINE_CHARS + 1));
+          else this.pendingBytes = joined;
+          return;
+        }
+        this.line++;
+        const end = joined.length - 1;
+        this.readDataBytes(joined, 0, end > 0 && joined[end - 1] === 13 ? end - 1 : end, decode);
+        start = at + 1;
+      }
+      while (this.error === null) {
+        const at = bytes.indexOf(10, start);
+        if (at < 0) break;
+        this.line++;
+        this.readDataBytes(bytes, start, at > start && bytes[at - 1] === 13 ? at - 1 : at, decode);
+        start = at + 1;
+      }
+      if (this.error === null && start < bytes.length) {
+        if (bytes.length - start > MAX_LINE_CHARS) this.keepPending('x'.repeat(MAX_LINE_CHARS + 1));
+        else this.pendingBytes = bytes.slice(start);
+      }
+    } catch (cause) {
+      this.fail({ message: `the capture reader stopped unexpectedly (${String(cause)})` });
+    }
+  }
+
+  /** `readDataLine` over the bytes of one line; any line that is not plain data is decoded and read as text. */
+  private readDataBytes(bytes: Uint8Array, start: number, end: number, decode: (bytes: Uint8Array) => string): void {
+    const layout = this.layout!;
+    const separator = this.separatorCode;
+    const slots = this.slots;
+    const lastColumn = this.lastColumn;
+    const row = this.row;
+    const exp10s = this.exp10s;
+    const decimalComma = layout.decimalComma;
+    row.fill(Number.NaN);
+    let timeValue = Number.NaN;
+    let control = false;
+    for (let column = 0, i = start; ; column++) {
+      const slot = slots[column];
+      let cellEnd = -1;
+      let value = Number.NaN;
+      if (slot !== SLOT_NONE) {
+        value = plainNumber(bytes, i, end, separator, decimalComma, slot === SLOT_TIME ? this.timeExp10 : exp10s[slot]);
+        cellEnd = plainEnd;
+      }
+      if (cellEnd < 0) {
+        // not a plain number (or no number wanted): find the cell's end the slow way, watching for control bytes
+        cellEnd = i;
+        for (; cellEnd < end && bytes[cellEnd] !== separator; cellEnd++) if (bytes[cellEnd] < 32 && CONTROL_BYTE[bytes[cellEnd]]) control = true;
+        if (slot !== SLOT_NONE) value = readNumberBytes(bytes, i, cellEnd, decimalComma, slot === SLOT_TIME ? this.timeExp10 : exp10s[slot]);
+      }
+      if (slot === SLOT_TIME) timeValue = value;
+      else if (slot >= 0) row[slot] = value;
+      if (column === lastColumn || cellEnd >= end) {
+        for (let k = cellEnd + 1; k < end && !control; k++) if (bytes[k] < 32 && CONTROL_BYTE[bytes[k]]) control = true;
+        break;
+      }
+      i = cellEnd + 1;
+    }
+    const plain = !control && (layout.metadataColumns === 0 || start === end || bytes[start] === separator);
+    if (plain) {
+      const taken = this.takeRow(timeValue);
+      if (taken === ROW_TAKEN || taken === ROW_FAILED) return;
+    }
+    // the rare line: metadata cells, a footer, a bad row, a control character; the text reader has the words for it
+    this.line--;
+    const text = decode(bytes.subarray(start, end));
+    const found = text.search(CONTROL);
+    if (found >= 0) {
+      this.line++;
+      const code = text.charCodeAt(found).toString(16).padStart(2, '0');
+      return this.fail({ message: `line ${this.line}: control character 0x${code}; this looks like a binary file, not a CSV capture`, line: this.line, expected: 'text' });
+    }
+    this.readLine(text, 0, text.length, false);
+  }
+
+
+  override finishColumns() {
+    if (this.error === null && this.pendingBytes !== null) {
+      this.pending = this.decodeBytes!(this.pendingBytes);
+      this.pendingBytes = null;
+    }
+    return super.finishColumns();
+  }
+}
+
+/** Exact powers of ten (every one up to 1e22 is a double). */
+const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+
+/** Where the last `plainNumber` stopped (the separator or the line's end), or −1 when it gave up. */
+let plainEnd = -1;
+
+/**
+ * The common cell, read in the same pass that finds its end: an optional sign, digits with one
+ * decimal mark, an optional exponent, and right after it the separator or the end of the line.
+ * Converted exactly as `readNumber` converts it (at most 15 significant digits and a power of
+ * ten up to 1e22: one correctly rounded multiply or divide). Anything else (blanks, quotes, long
+ * mantissas, huge exponents) sets `plainEnd` to −1 and is left to `readNumberBytes`.
+ */
+function plainNumber(bytes: Uint8Array, i: number, end: number, separator: number, decimalComma: boolean, scaleExp10: number): number {
+  plainEnd = -1;
+  let code = i < end ? bytes[i] : -1;
+  const negative = code === 45;
+  if (negative || code === 43) code = ++i < end ? bytes[i] : -1;
+  let mantissa = 0;
+  let digits = 0;
+  let exp10 = 0;
+  let sawDigit = false;
+  let sawMark = false;
+  for (; i < end; code = ++i < end ? bytes[i] : -1) {
+    if (code >= 48 && code <= 57) {
+      sawDigit = true;
+      if (mantissa !== 0 || code !== 48) {
+        if (++digits > 15) return Number.NaN;
+        mantissa = mantissa * 10 + (code - 48);
+      }
+      if (sawMark) exp10--;
+    } else if (!sawMark && (code === 46 || (decimalComma && code === 44))) sawMark = true;
+    else break;
+  }
+  if (!sawDigit) return Number.NaN;
+  if (code === 101 || code === 69) {
+    code = ++i < end ? bytes[i] : -1;
+    const exponentNegative = code === 45;
+    if (exponentNegative || code === 43) code = ++i < end ? bytes[i] : -1;
+    let exponent = 0;
+    let exponentDigits = 0;
+    for (; i < end && code >= 48 && code <= 57; code = ++i < end ? bytes[i] : -1) {
+      if (++exponentDigits > 4) return Number.NaN;
+      exponent = exponent * 10 + (code - 48);
+    }
+    if (exponentDigits === 0) return Number.NaN;
+    exp10 += exponentNegative ? -exponent : exponent;
+  }
+  if (i < end && code !== separator) return Number.NaN;
+  const totalExp10 = exp10 + scaleExp10;
+  if (totalExp10 < -22 || totalExp10 > 22) return Number.NaN;
+  plainEnd = i;
+  const value = mantissa === 0 ? 0 : totalExp10 < 0 ? mantissa / POW10[-totalExp10] : mantissa * POW10[totalExp10];
+  return negative ? -value : value;
+}

@@ -62,7 +62,7 @@ console.log(`corpus: ${(words / rows.length).toFixed(0)} words per case on avera
 // ---- index time
 const index = new CaseIndex();
 const [, msIndex] = time(() => index.engine.addAll(entries.map((e) => e.doc)));
-for (const e of entries) index.facts.set(e.doc.id, e.facts);
+for (const e of entries) index.setFacts(e.doc.id, e.facts);
 const [, msHeavy] = time(() => index.rebuildHeavy());
 
 const dir = mkdtempSync(path.join(tmpdir(), 'falsetrace-bench-search-'));

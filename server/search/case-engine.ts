@@ -42,6 +42,21 @@ export class CaseEngine extends MiniSearch<CaseDoc> {
     return n;
   }
 
+  /**
+   * How many cases hold a term in any field; above `cap` postings the count is not needed
+   * exactly, and the summed postings (≥ the count of cases... ≥ cap) are returned.
+   */
+  documentFrequency(term: string, cap: number): number {
+    const data = this._index.get(term);
+    if (!data) return 0;
+    let sum = 0;
+    for (const docs of data.values()) sum += docs.size;
+    if (data.size === 1 || sum > data.size * cap) return sum;
+    const ids = new Set<number>();
+    for (const docs of data.values()) for (const id of docs.keys()) ids.add(id);
+    return ids.size;
+  }
+
   /** Terms that start with `prefix` (itself excluded), with their postings, at most `limit` of them. */
   completions(prefix: string, limit: number): { term: string; postings: number }[] {
     const out: { term: string; postings: number }[] = [];

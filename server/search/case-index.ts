@@ -41,6 +41,8 @@ const docTerms = (doc: CaseDoc) => new Set(DOC_FIELDS.flatMap((f) => indexTerms(
 /** The cases' minisearch index, the facts that filter and facet them, and the common terms' scores. */
 export class CaseIndex {
   readonly facts = new Map<number, CaseFacts>();
+  /** Cases by stated and by engine cause: symptom fitting reads only the inferred causes' cases. */
+  private readonly byCause = new Map<string, Set<number>>();
 
   constructor(
     public engine = new CaseEngine(INDEX_OPTIONS),
@@ -54,7 +56,7 @@ export class CaseIndex {
 
   addAll(entries: { doc: CaseDoc; facts: CaseFacts }[]) {
     this.engine.addAll(entries.map((e) => e.doc));
-    for (const e of entries) this.facts.set(e.doc.id, e.facts);
+    for (const e of entries) this.setFacts(e.doc.id, e.facts);
     this.rebuildHeavy();
   }
 
@@ -63,13 +65,38 @@ export class CaseIndex {
     if (this.engine.has(doc.id)) this.engine.replace(doc);
     else this.engine.add(doc);
     this.heavy.addDoc(this.engine, doc.id, docTerms(doc));
-    this.facts.set(doc.id, facts);
+    this.setFacts(doc.id, facts);
   }
 
   remove(id: number) {
     this.heavy.removeDoc(id);
     if (this.engine.has(id)) this.engine.discard(id);
+    this.deleteFacts(id);
+  }
+
+  /** Records what filters and facets a case, keeping the per-cause lists in step. */
+  setFacts(id: number, facts: CaseFacts) {
+    this.deleteFacts(id);
+    this.facts.set(id, facts);
+    for (const c of new Set([facts.cause, facts.engineCause])) {
+      if (!c) continue;
+      let set = this.byCause.get(c);
+      if (!set) this.byCause.set(c, (set = new Set()));
+      set.add(id);
+    }
+  }
+
+  private deleteFacts(id: number) {
+    const old = this.facts.get(id);
+    if (!old) return;
     this.facts.delete(id);
+    if (old.cause) this.byCause.get(old.cause)?.delete(id);
+    if (old.engineCause) this.byCause.get(old.engineCause)?.delete(id);
+  }
+
+  /** Cases filed under `cause` or diagnosed as it by the engine. */
+  casesOfCause(cause: string): Iterable<number> {
+    return this.byCause.get(cause) ?? [];
   }
 
   /** Which terms are common enough to keep scored: decided again whenever the lists are rebuilt. */

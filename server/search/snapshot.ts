@@ -7,7 +7,7 @@ import { CaseIndex, INDEX_OPTIONS, type IndexTuning } from './case-index';
 import { HeavyTerms, type SerializedHeavyTerms } from './heavy-terms';
 
 /** Bump when the analysis or the document layout changes: older snapshots are then rebuilt. */
-export const SNAPSHOT_VERSION = 1;
+export const SNAPSHOT_VERSION = 2;
 
 interface SnapshotHeader {
   version: number;
@@ -63,7 +63,7 @@ export function readSnapshot(dataDir: string, stamp: string, tuning?: IndexTunin
     // the postings must start on a 4-byte boundary for the Uint32 view
     const postings = Buffer.from(bytes.subarray(4 + length));
     const index = new CaseIndex(CaseEngine.decode(header.engine, postings, INDEX_OPTIONS), HeavyTerms.fromJSON(header.heavy), tuning);
-    for (const [id, f] of header.facts) index.facts.set(id, f);
+    for (const [id, f] of header.facts) index.setFacts(id, f);
     return index;
   } catch (err) {
     console.error('[falsetrace] search snapshot unreadable, rebuilding:', (err as Error).message);

@@ -31,10 +31,17 @@ export const INDEX_OPTIONS: Options<CaseDoc> = {
 };
 
 export interface IndexTuning {
-  /** A term with at least this many postings has its scores kept ready (see HeavyTerms). */
+  /** A term with at least this many postings may have its scores kept ready (see HeavyTerms). */
   heavyPostings: number;
+  /**
+   * At most this many scores kept over all kept terms, the most common terms first. A fixed
+   * threshold alone kept 19.4M scores at 100k cases (every term above it grows with the
+   * casebook); a budget keeps the memory flat and spends it where scoring costs most.
+   */
+  heavyBudget?: number;
 }
-export const DEFAULT_TUNING: IndexTuning = { heavyPostings: 1000 };
+/** 2M scores: 16 MB of typed arrays. */
+export const DEFAULT_TUNING: IndexTuning = { heavyPostings: 1000, heavyBudget: 2_000_000 };
 
 const docTerms = (doc: CaseDoc) => new Set(DOC_FIELDS.flatMap((f) => indexTerms(doc[f])));
 
@@ -101,8 +108,17 @@ export class CaseIndex {
 
   /** Which terms are common enough to keep scored: decided again whenever the lists are rebuilt. */
   heavyCandidates(): string[] {
+    const common: { term: string; postings: number }[] = [];
+    for (const c of this.engine.completions('', Infinity)) if (c.postings >= this.tuning.heavyPostings) common.push(c);
+    common.sort((a, b) => b.postings - a.postings);
     const out: string[] = [];
-    for (const { term, postings } of this.engine.completions('', Infinity)) if (postings >= this.tuning.heavyPostings) out.push(term);
+    let left = this.tuning.heavyBudget ?? Infinity;
+    for (const c of common) {
+      // postings count a case once per field; the kept list holds it once, so this errs on the safe side
+      if (c.postings > left) continue;
+      left -= c.postings;
+      out.push(c.term);
+    }
     return out;
   }
 

@@ -74,7 +74,7 @@ export class SearchCore {
 
   /** Starts a new index; the current one keeps answering until `finish`. */
   begin() {
-    this.building = new CaseIndex(undefined, undefined, this.options.tuning);
+    this.building = new CaseIndex();
   }
 
   add(entries: IndexEntry[]) {
@@ -83,11 +83,10 @@ export class SearchCore {
     for (const e of entries) b.setFacts(e.doc.id, e.facts);
   }
 
-  /** Scores the common terms, swaps the new index in and snapshots it. */
+  /** Swaps the new index in and snapshots it. */
   finish(synonyms: SynonymStats) {
     const b = this.building!;
     this.building = undefined;
-    b.rebuildHeavy();
     this.index = b;
     this.synonyms = synonyms;
     this.dirty = true;
@@ -132,8 +131,6 @@ export class SearchCore {
   save() {
     const { dataDir } = this.options;
     if (!dataDir || !this.dirty || !this.index) return;
-    // writes shift every score a little; once they add up, score the common terms afresh
-    if (this.index.heavy.drifted(this.index.size)) this.index.rebuildHeavy();
     writeSnapshot(dataDir, this.index, indexStamp(this.index, this.synonyms));
     this.dirty = false;
   }

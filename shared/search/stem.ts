@@ -120,3 +120,10 @@ const IRREGULAR = new Map<string, string>(
     begin: ['began', 'begun'],
   }).flatMap(([base, forms]) => forms.map((f): [string, string] => [f, base])),
 );
+
+/** The irregular forms that stem to `base` ("ring" → rang, rung): where a highlighter must look besides the stem itself. */
+export function irregularFormsOf(base: string): string[] {
+  const out: string[] = [];
+  for (const [form, b] of IRREGULAR) if (b === base) out.push(form);
+  return out;
+}

@@ -94,7 +94,7 @@ async function buildInto(db: Db, core: CoreClient) {
  * for the index, then answer 503.
  */
 export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): Promise<CaseSearch> {
-  const { dataDir, tuning, snapshotDelayMs, worker = false, background = false, followMs = 500, readyWaitMs = 2000 } = options;
+  const { dataDir, tuning, snapshotDelayMs, worker = false, background = false, followMs = 500, readyWaitMs = 5000 } = options;
   let failure: Error | undefined;
   const core = worker
     ? workerCore({ dataDir, tuning, snapshotDelayMs }, (err) => {

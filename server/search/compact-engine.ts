@@ -33,6 +33,9 @@ export interface CompactHeader {
  * marked dead and skipped, and `vacuum` drops dead postings once they are a tenth of the lot.
  */
 export class CompactEngine {
+  /** Term → id, for exact lookups (a hash map: the radix tree is slow to walk for every term of every case). */
+  private termIds = new Map<string, number>();
+  /** The same, as a radix tree: for prefix and fuzzy lookups. */
   private dict = new SearchableMap<number>();
   private terms: string[] = [];
   private lists: Uint32Array[] = [];
@@ -51,19 +54,19 @@ export class CompactEngine {
   }
 
   hasTerm(term: string): boolean {
-    const t = this.dict.get(term);
+    const t = this.termIds.get(term);
     return t !== undefined && this.used[t] > 0;
   }
 
   /** Postings of a term over all fields (dead ones included until vacuumed): its cost to score. */
   postings(term: string): number {
-    const t = this.dict.get(term);
+    const t = this.termIds.get(term);
     return t === undefined ? 0 : this.used[t];
   }
 
   /** Live cases holding the term; above `cap` the exact count is not needed and the postings are returned. */
   documentFrequency(term: string, cap: number): number {
-    const t = this.dict.get(term);
+    const t = this.termIds.get(term);
     if (t === undefined) return 0;
     const n = this.used[t];
     if (n > FIELDS * cap + this.dead) return n;
@@ -103,29 +106,36 @@ export class CompactEngine {
     this.ids[slot] = doc.id;
     this.slotOf.set(doc.id, slot);
     this.documentCount++;
-    const freqs = new Map<string, number[]>();
+    // per term, its count in each field, 6 bits a field (capped at 31 below, so no field overflows into the next)
+    const freqs = new Map<string, number>();
     DOC_FIELDS.forEach((field, f) => {
       const terms = indexTerms(doc[field]);
+      const shift = 6 * f;
       let unique = 0;
       for (const term of terms) {
-        let tf = freqs.get(term);
-        if (!tf) freqs.set(term, (tf = new Array<number>(FIELDS).fill(0)));
-        if (tf[f]++ === 0) unique++;
+        const packed = freqs.get(term) ?? 0;
+        const n = (packed >>> shift) & 63;
+        if (n === 0) unique++;
+        if (n < TF_MASK) freqs.set(term, packed + (1 << shift));
       }
       // minisearch's field length: the distinct terms of the field
       this.fieldLength[f][slot] = Math.min(unique, 65535);
       this.totalLength[f] += unique;
     });
-    for (const [term, tf] of freqs) {
-      let t = this.dict.get(term);
+    for (const [term, packed] of freqs) {
+      let t = this.termIds.get(term);
       if (t === undefined) {
         t = this.terms.length;
         this.terms.push(term);
+        this.termIds.set(term, t);
         this.dict.set(term, t);
         this.lists.push(new Uint32Array(2));
         if (t >= this.used.length) this.used = copyInto(new Uint32Array(this.used.length * 2), this.used);
       }
-      for (let f = 0; f < FIELDS; f++) if (tf[f] > 0) this.push(t, (slot << SLOT_SHIFT) | (f << FIELD_SHIFT) | Math.min(tf[f], TF_MASK));
+      for (let f = 0; f < FIELDS; f++) {
+        const tf = (packed >>> (6 * f)) & 63;
+        if (tf > 0) this.push(t, (slot << SLOT_SHIFT) | (f << FIELD_SHIFT) | tf);
+      }
     }
   }
 
@@ -145,7 +155,7 @@ export class CompactEngine {
    * frequency is counted per field over live cases, as minisearch does after its vacuum.
    */
   scoreTerm(term: string, weight: number, allow: (id: number) => boolean, out: Map<number, number>) {
-    const t = this.dict.get(term);
+    const t = this.termIds.get(term);
     if (t === undefined || this.documentCount === 0) return;
     const list = this.lists[t];
     const n = this.used[t];
@@ -250,6 +260,7 @@ export class CompactEngine {
     e.used = new Uint32Array(Math.max(1024, e.terms.length));
     e.used.set(take32(e.terms.length));
     e.lists = e.terms.map((term, t) => {
+      e.termIds.set(term, t);
       e.dict.set(term, t);
       return take32(e.used[t]);
     });

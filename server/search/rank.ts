@@ -31,12 +31,15 @@ const SYMPTOM_WEIGHT = 0.6;
 /**
  * A typed word found in at most this share of the cases (and at least `RARE_MIN` of them) is
  * rare: whoever types "piezo" means the case about the piezo driver more than any case the
- * symptom reading guesses. Our choice, tuned on the judged set in bench/search-judged.ts.
+ * symptom reading guesses. Our choice; bench/search-judged.ts measures what it does.
  */
 const RARE_SHARE = 0.01;
-const RARE_MIN = 3;
-/** Cases holding every rare word gain as much as a perfect symptom fit, so they outrank a guess. */
-const RARE_WEIGHT = SYMPTOM_WEIGHT;
+const RARE_MIN = 1;
+/**
+ * What holding every rare word adds: the most a case can score without (text 1 − SYMPTOM_WEIGHT
+ * plus a perfect fit SYMPTOM_WEIGHT), so a case with all the rare words outranks every guess.
+ */
+const RARE_WEIGHT = 1;
 
 /** Who may see what, as a test per case id; moderators see everything. */
 export function visibilityOf(index: CaseIndex, actor: Actor): (id: number) => boolean {
@@ -64,8 +67,9 @@ function symptomFit(reading: SymptomReading, f: CaseFacts): number {
 }
 
 /**
- * With a symptom reading, a case that holds the query's rare words gains up to RARE_WEIGHT
- * (the share of the rare words it holds), and joins the candidates if AND left it out.
+ * A case that holds the query's rare words gains up to RARE_WEIGHT (the share of the rare
+ * words it holds), and joins the candidates if AND left it out: a word in one case in a
+ * hundred says which case is meant more than a common word or the reading's guess does.
  * Rare: in at most RARE_SHARE of the cases; words the dictionary lacks count for nothing.
  */
 function addRareWordBonus(index: CaseIndex, groups: TermGroup[], visible: (id: number) => boolean, scores: Map<number, number>) {
@@ -115,7 +119,7 @@ export function rankCases(index: CaseIndex, actor: Actor, query: SearchQuery, sy
       }
     }
   }
-  if (reading) addRareWordBonus(index, groups, visible, scores);
+  if (hasWords) addRareWordBonus(index, groups, visible, scores);
   if (!hasWords) for (const id of index.facts.keys()) if (visible(id)) scores.set(id, 0);
 
   const { facets, passing } = countFacets(index, scores.keys(), query);

@@ -29,7 +29,6 @@ import { searchRoutes, similarCaseRoutes } from './routes/search';
 import { tagRoutes } from './routes/tags';
 import { traceRoutes } from './routes/traces';
 import { captureAttachmentRoutes } from './routes/capture-attachments';
-import { sql } from 'kysely';
 
 export interface AppOptions {
   /** Folder of the built client (vite build); served with an SPA fallback when present. */
@@ -91,12 +90,6 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   const csrf = createCsrf(config.sessionSecret, config.production);
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
-  });
-  // readiness for a load balancer: 503 until the database answers and the search index is loaded
-  app.get('/api/ready', async (_req, res) => {
-    const database = await sql`select 1`.execute(deps.db).then(() => true, () => false);
-    const search = deps.search?.isReady?.() ?? false;
-    res.status(database && search ? 200 : 503).json({ ready: database && search, database, search });
   });
   app.use('/api', csrf.protect);
   app.use('/api/auth', authRoutes(deps, passport, csrf.tokenFor));

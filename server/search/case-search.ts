@@ -36,6 +36,8 @@ export interface CaseSearch {
   readonly origin: 'snapshot' | 'rebuilt' | 'loading';
   /** Whether searches are answered yet (GET /api/ready). */
   isReady(): boolean;
+  /** How far behind the other instances' writes this index may be, in seconds (the index lag metric); undefined while loading. */
+  lagSeconds(): number | undefined;
   /** Resolves once the index is loaded; rejects when loading failed. */
   readonly ready: Promise<void>;
   /** Cases indexed. */
@@ -179,6 +181,7 @@ export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): P
       return load;
     },
     isReady: () => ready && !failure,
+    lagSeconds: () => (ready ? follower.lagSeconds() : undefined),
     size: () => core.size(),
     syncCase: (id) => logged(id, () => syncOne(id)),
     removeCase: (id) => logged(id, () => core.remove(id)),

@@ -29,6 +29,8 @@ export class ChangeFollower {
   private timer: NodeJS.Timeout | undefined;
   private running: Promise<void> | undefined;
   private lastPrune = 0;
+  /** When the last pass that found the log read to its end finished. */
+  private caughtUpAt: number | undefined;
 
   constructor(
     private readonly db: Db,
@@ -37,6 +39,7 @@ export class ChangeFollower {
 
   start(from: number, intervalMs: number) {
     this.watermark = from;
+    this.caughtUpAt = Date.now();
     if (intervalMs <= 0) return;
     this.timer = setInterval(() => {
       this.poll().catch((err) => console.error('[falsetrace] search change log poll failed:', (err as Error).message));
@@ -49,6 +52,11 @@ export class ChangeFollower {
     clearInterval(this.timer);
     this.timer = undefined;
     await this.running?.catch(() => undefined);
+  }
+
+  /** Seconds since this instance last had every logged change applied; undefined before following starts. */
+  lagSeconds(): number | undefined {
+    return this.caughtUpAt === undefined ? undefined : (Date.now() - this.caughtUpAt) / 1000;
   }
 
   /** One pass over the log; concurrent calls share the pass in progress. */
@@ -73,6 +81,7 @@ export class ChangeFollower {
       this.ahead.add(c.id);
     }
     this.advance();
+    if (changes.length < 1000) this.caughtUpAt = Date.now();
     if (Date.now() - this.lastPrune > PRUNE_EVERY_MS) {
       this.lastPrune = Date.now();
       await pruneChanges(this.db);

@@ -61,7 +61,6 @@ function outcomeOf(status: number, body: { error?: string }): Outcome {
 }
 
 const ROUTES: Record<string, Entry> = {
-  'GET /api/ready': { rule: 'public', call: (c) => c.get('/api/ready') },
   'GET /api/auth/csrf': { rule: 'public', call: (c) => c.get('/api/auth/csrf') },
   'GET /api/auth/me': { rule: 'public', call: (c) => c.get('/api/auth/me') },
   'POST /api/auth/login': { rule: 'public', call: (c) => c.post('/api/auth/login', {}) },

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Actor } from '../../shared/auth/roles';
 import { openCaseSearch, type CaseSearch } from '../../server/search/case-search';
 import { changesAfter, pruneChanges, recordCaseChange } from '../../server/search/change-log';
-import { client, createTestContext, signedIn, type TestContext } from './helpers/test-context';
+import { createTestContext, signedIn, type TestContext } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 const query = (q: string) => ({ q, page: 1, pageSize: 20 });
@@ -33,6 +33,7 @@ describe('search across app instances and off the request thread', () => {
     expect((await b.search(moderator, query('quokkatron '))).total).toBe(0);
     await b.followNow();
     expect((await b.search(moderator, query('quokkatron '))).results.map((r) => r.id)).toEqual([id]);
+    expect(b.lagSeconds()).toBeGreaterThanOrEqual(0);
 
     await eng.del(`/api/cases/${id}`).expect(204);
     await b.followNow();
@@ -71,10 +72,5 @@ describe('search across app instances and off the request thread', () => {
     } finally {
       await w.close();
     }
-  });
-
-  it('should say on /api/ready whether the database and the search index are ready', async () => {
-    const res = await (await client(ctx)).get('/api/ready').expect(200);
-    expect(res.body).toEqual({ ready: true, database: true, search: true });
   });
 });

@@ -1,36 +1,29 @@
 /**
- * npm run bench:search — minisearch (the product's index) against SQLite FTS5 over the same
- * 10,000 generated cases, in the same run: index time, memory, cold start from what is on
- * disk, and query p50/p95 over a fixed mix of 200 queries. Ends with the p95 ratio line.
+ * npm run bench:search — the search page the API serves against an SQLite FTS5 page doing the
+ * same work (query, total, facets by cause/status/tag, highlights of the shown 20), over the
+ * same generated cases, in the same run, at 10,000 and 100,000 cases (BENCH_SIZES=10000,100000).
  *
- * Queries run interleaved (one engine then the other, the order swapped every round) for
- * three rounds after a warm-up on a different mix; each query's time is its median over the
- * rounds, which keeps other work on a shared machine from landing on one engine only. Both
- * sides do the same job: every visible match found, the top 20 by BM25 and the total.
+ * For each size: index time; start-up to ready from disk and resident memory (RSS) of each
+ * side, each measured in a fresh process; page p50/p95 over a fixed mix of 200 queries, run
+ * interleaved (one side then the other, the order swapped every round) and each query's time
+ * the median over the rounds, so other work on a shared machine lands on both sides alike;
+ * and nDCG@5 on a judged set (bench/search-judged.ts) for the app and for plain FTS5 BM25.
  */
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import v8 from 'node:v8';
-import vm from 'node:vm';
-import { canModerate } from '../shared/auth/roles';
 import { caseDocument } from '../server/search/case-document';
 import { CaseIndex } from '../server/search/case-index';
-import { highlightsFor } from '../server/search/highlight';
-import { planQuery } from '../server/search/query-plan';
 import { rankCases } from '../server/search/rank';
-import { runTextQuery } from '../server/search/run-query';
 import { indexStamp, snapshotPath, writeSnapshot } from '../server/search/snapshot';
-import { topK } from '../server/search/top-k';
+import { appPage } from './search-app-page';
 import { generateCorpus } from './search-corpus';
-import { buildBaseline } from './search-baseline';
 import { buildFts5 } from './search-fts5';
-import { queryMix, type BenchQuery } from './search-queries';
+import { JUDGED_QUERIES, judgedRows, ndcgAt } from './search-judged';
+import { queryMix } from './search-queries';
 
-v8.setFlagsFromString('--expose-gc');
-const gc = vm.runInNewContext('gc') as () => void;
-const mb = (bytes: number) => `${(bytes / 1e6).toFixed(0)} MB`;
+const mb = (x: number) => `${x.toFixed(0)} MB`;
 const ms = (x: number) => `${x < 10 ? x.toFixed(2) : x.toFixed(0)} ms`;
 const quantile = (xs: number[], q: number) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -42,136 +35,94 @@ const time = <T>(f: () => T): [T, number] => {
   const r = f();
   return [r, performance.now() - t];
 };
-const memory = () => {
-  gc();
-  gc();
-  return process.memoryUsage();
-};
 
-const COUNT = Number(process.env.BENCH_CASES ?? 10_000);
-/** BENCH_BASELINE=1 also times minisearch out of the box (adds about a minute). */
-const BASELINE = process.env.BENCH_BASELINE === '1';
-const ROUNDS = 3;
-console.log(`search benchmark: ${COUNT} generated cases, 200 queries × ${ROUNDS} rounds, node ${process.version}`);
+const SIZES = (process.env.BENCH_SIZES ?? '10000,100000').split(',').map(Number);
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
+console.log(`search benchmark: ${SIZES.join(' and ')} generated cases, 200 queries × ${ROUNDS} rounds, node ${process.version}`);
 
-const { rows, tags } = generateCorpus(COUNT);
-const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], new Map()));
-const words = rows.reduce((n, r) => n + `${r.title} ${r.summary} ${r.narrative} ${r.fix} ${r.lesson_summary}`.split(/\s+/).length, 0);
-console.log(`corpus: ${(words / rows.length).toFixed(0)} words per case on average`);
+const ratios: string[] = [];
+for (const count of SIZES) {
+  const corpus = generateCorpus(count);
+  const judged = judgedRows(count);
+  const rows = [...corpus.rows, ...judged.rows];
+  const tags = new Map([...corpus.tags, ...judged.tags]);
+  const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], new Map()));
+  const titleOf = new Map(rows.map((r) => [r.id, r.title]));
 
-// ---- index time
-const index = new CaseIndex();
-const [, msIndex] = time(() => index.engine.addAll(entries.map((e) => e.doc)));
-for (const e of entries) index.facts.set(e.doc.id, e.facts);
-const [, msHeavy] = time(() => index.rebuildHeavy());
+  const index = new CaseIndex();
+  const [, msIndex] = time(() => index.addAll(entries));
+  const dir = mkdtempSync(path.join(tmpdir(), 'falsetrace-bench-search-'));
+  const ftsFile = path.join(dir, 'fts5.sqlite');
+  const [fts, msFts] = time(() => buildFts5(entries, rows, ftsFile));
+  const stamp = indexStamp(index, { count: 0, length: 0 });
+  const [, msWrite] = time(() => writeSnapshot(dir, index, stamp));
 
-const dir = mkdtempSync(path.join(tmpdir(), 'falsetrace-bench-search-'));
-const ftsFile = path.join(dir, 'fts5.sqlite');
-const [fts, msFts] = time(() => buildFts5(entries, ftsFile));
+  // start-up and resident memory, each side in a fresh process
+  const child = (side: string) =>
+    JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', path.join(import.meta.dirname, 'search-cold-start.ts'), side, dir, stamp, ftsFile], { encoding: 'utf8', maxBuffer: 1 << 20 }).trim().split('\n').pop()!) as {
+      msReady: number;
+      msFirst: number;
+      rssIndexMB: number;
+      rssServedMB: number;
+    };
+  const app = child('app');
+  const lite = child('fts5');
 
-// ---- cold start: a fresh process restores each index from disk
-const stamp = indexStamp(index, { count: 0, length: 0 });
-const [, msWrite] = time(() => writeSnapshot(dir, index, stamp));
-const cold = JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', path.join(import.meta.dirname, 'search-cold-start.ts'), dir, stamp, ftsFile], { encoding: 'utf8' }).trim().split('\n').pop()!);
-
-// ---- queries
-const visibleFor = (q: BenchQuery) => {
-  if (canModerate({ role: q.as.role })) return () => true;
-  return (id: number) => {
-    const f = index.facts.get(id)!;
-    return f.status === 'verified' || f.authorId === q.as.id;
-  };
-};
-const synonyms = new Map<string, string>();
-/** What the FTS5 side does too: all visible matches, the top 20 by score, the total. */
-function minisearchCore(q: BenchQuery) {
-  const result = runTextQuery(index, planQuery(q.q, index, synonyms), visibleFor(q));
-  return { ids: topK(result.scores, 20, (a, b) => b[1] - a[1]).map(([id]) => id), total: result.scores.size };
-}
-/** The whole search page the API serves: symptom reading, blending, facets and highlights. */
-function minisearchPage(q: BenchQuery) {
-  const r = rankCases(index, { id: q.as.id, role: q.as.role }, { q: q.q, page: 1, pageSize: 20 }, synonyms);
-  for (const { id } of r.page) {
-    const d = entries[id - 1].doc;
-    highlightsFor([{ field: 'title', text: d.title }, { field: 'summary', text: d.summary }, { field: 'narrative', text: d.narrative }], r.terms);
+  // page times, interleaved
+  const mix = queryMix();
+  for (const q of queryMix(777)) {
+    appPage(index, fts.rowsOf, q);
+    fts.page(q);
   }
-  return r.total;
-}
-
-for (const q of queryMix(777)) {
-  minisearchCore(q);
-  minisearchPage(q);
-  fts.search(q);
-}
-const mix = queryMix();
-const times = { core: mix.map(() => [] as number[]), page: mix.map(() => [] as number[]), fts: mix.map(() => [] as number[]) };
-let agree = 0;
-for (let round = 0; round < ROUNDS; round++) {
-  mix.forEach((q, i) => {
-    const runMs = () => time(() => minisearchCore(q));
-    const runFts = () => time(() => fts.search(q));
-    let mini: ReturnType<typeof runMs>;
-    let lite: ReturnType<typeof runFts>;
-    if (round % 2 === 0) {
-      mini = runMs();
-      lite = runFts();
-    } else {
-      lite = runFts();
-      mini = runMs();
-    }
-    const [[a, ta], [b, tb]] = [mini, lite];
-    times.core[i].push(ta);
-    times.fts[i].push(tb);
-    times.page[i].push(time(() => minisearchPage(q))[1]);
-    if (round === 0 && a.total > 0 === b.total > 0) agree++;
-  });
-}
-const core = times.core.map(median);
-const heapWhole = memory().heapUsed;
-
-// the out-of-the-box reference runs afterwards, so its second index does not weigh on the figures above
-let baseline: { p50: number; p95: number; ftsP95: number; buildMs: number } | undefined;
-if (BASELINE) {
-  const [base, buildMs] = time(() => buildBaseline(entries));
-  const b = mix.map(() => [] as number[]);
-  const f = mix.map(() => [] as number[]);
+  const times = { app: mix.map(() => [] as number[]), fts: mix.map(() => [] as number[]) };
   for (let round = 0; round < ROUNDS; round++) {
     mix.forEach((q, i) => {
-      b[i].push(time(() => base.search(q))[1]);
-      f[i].push(time(() => fts.search(q))[1]);
+      const a = () => times.app[i].push(time(() => appPage(index, fts.rowsOf, q))[1]);
+      const b = () => times.fts[i].push(time(() => fts.page(q))[1]);
+      if (round % 2 === 0) {
+        a();
+        b();
+      } else {
+        b();
+        a();
+      }
     });
   }
-  const bm = b.map(median);
-  baseline = { p50: quantile(bm, 0.5), p95: quantile(bm, 0.95), ftsP95: quantile(f.map(median), 0.95), buildMs };
-}
-const page = times.page.map(median);
-const ftsTimes = times.fts.map(median);
+  const appMs = times.app.map(median);
+  const ftsMs = times.fts.map(median);
 
-const kinds = [...new Set(mix.map((q) => q.kind))];
-console.log('');
-console.log('                       minisearch       fts5');
-console.log(`index time             ${ms(msIndex + msHeavy).padEnd(16)} ${ms(msFts)}   (minisearch: ${ms(msIndex)} index + ${ms(msHeavy)} common-term scores)`);
-console.log(`memory, index alone    ${mb((cold.heapMB + cold.arrayBuffersMB) * 1e6).padEnd(16)} ${mb(statSync(ftsFile).size).padEnd(6)}   (minisearch: heap of a fresh process after the restore ${mb(cold.heapMB * 1e6)} + kept scores ${mb(cold.arrayBuffersMB * 1e6)}; fts5: the file, paged in on demand)`);
-console.log(`heap, whole bench      ${mb(heapWhole)}           (corpus, both indexes' inputs and the minisearch index)`);
-console.log(`cold start             ${ms(cold.msLoad).padEnd(16)} ${ms(cold.ftsOpen)}   (from disk to ready; snapshot ${mb(statSync(snapshotPath(dir)).size)}, written in ${ms(msWrite)})`);
-console.log(`first query after      ${ms(cold.msFirst).padEnd(16)} ${ms(cold.ftsFirst)}`);
-console.log(`query p50              ${ms(quantile(core, 0.5)).padEnd(16)} ${ms(quantile(ftsTimes, 0.5))}`);
-console.log(`query p95              ${ms(quantile(core, 0.95)).padEnd(16)} ${ms(quantile(ftsTimes, 0.95))}`);
-console.log(`full page p50 / p95    ${ms(quantile(page, 0.5))} / ${ms(quantile(page, 0.95))}   (minisearch with reading, facets, highlights; no fts5 counterpart)`);
-if (baseline) {
-  console.log(`out of the box p50/p95 ${ms(baseline.p50)} / ${ms(baseline.p95)}   (minisearch defaults, built in ${ms(baseline.buildMs)}, timed after the rest; p95 ratio to fts5 ${(baseline.p95 / baseline.ftsP95).toFixed(2)})`);
+  // relevance on the judged set, as a moderator (every case visible to both)
+  const as = { role: 'moderator' as const, id: 999 };
+  let ndcgApp = 0;
+  let ndcgFts = 0;
+  for (const j of JUDGED_QUERIES) {
+    const mine = rankCases(index, as, { q: j.q, page: 1, pageSize: 5 }, new Map()).page.map((r) => titleOf.get(r.id)!);
+    const theirs = fts.search({ q: j.q, as, kind: 'judged' }).ids.slice(0, 5).map((id) => titleOf.get(id)!);
+    ndcgApp += ndcgAt(5, mine, j.relevant) / JUDGED_QUERIES.length;
+    ndcgFts += ndcgAt(5, theirs, j.relevant) / JUDGED_QUERIES.length;
+  }
+
+  console.log('');
+  console.log(`${count} cases (+${judged.rows.length} judged)     app              fts5`);
+  console.log(`index time                 ${ms(msIndex).padEnd(16)} ${ms(msFts)}`);
+  console.log(`start-up to ready          ${ms(app.msReady).padEnd(16)} ${ms(lite.msReady)}   (fresh process, from disk; app snapshot ${mb(statSync(snapshotPath(dir)).size / 1e6)}, written in ${ms(msWrite)}; fts5 file ${mb(statSync(ftsFile).size / 1e6)})`);
+  console.log(`RSS for the index          ${mb(app.rssIndexMB).padEnd(16)} ${mb(lite.rssIndexMB)}   (resident memory added by loading, fresh process)`);
+  console.log(`RSS after serving the mix  ${mb(app.rssServedMB).padEnd(16)} ${mb(lite.rssServedMB)}`);
+  console.log(`first page after start     ${ms(app.msFirst).padEnd(16)} ${ms(lite.msFirst)}`);
+  console.log(`full page p50              ${ms(quantile(appMs, 0.5)).padEnd(16)} ${ms(quantile(ftsMs, 0.5))}`);
+  console.log(`full page p95              ${ms(quantile(appMs, 0.95)).padEnd(16)} ${ms(quantile(ftsMs, 0.95))}`);
+  console.log(`nDCG@5, judged set         ${ndcgApp.toFixed(3).padEnd(16)} ${ndcgFts.toFixed(3)}   (${JUDGED_QUERIES.length} queries; fts5: plain BM25)`);
+  const kinds = [...new Set(mix.map((q) => q.kind))];
+  console.log('by kind of query, page p50 / p95:');
+  for (const k of kinds) {
+    const at = mix.flatMap((q, i) => (q.kind === k ? [i] : []));
+    const a = at.map((i) => appMs[i]);
+    const f = at.map((i) => ftsMs[i]);
+    console.log(`  ${k.padEnd(26)} app ${ms(quantile(a, 0.5))} / ${ms(quantile(a, 0.95)).padEnd(9)} fts5 ${ms(quantile(f, 0.5))} / ${ms(quantile(f, 0.95))}`);
+  }
+  ratios.push(`${count}: page p95 ratio (app/fts5) ${(quantile(appMs, 0.95) / quantile(ftsMs, 0.95)).toFixed(2)}, p50 ${(quantile(appMs, 0.5) / quantile(ftsMs, 0.5)).toFixed(2)}; RSS ${mb(app.rssIndexMB)} vs ${mb(lite.rssIndexMB)}; ready ${ms(app.msReady)}; nDCG@5 ${ndcgApp.toFixed(3)} vs ${ndcgFts.toFixed(3)}`);
+  fts.close();
+  rmSync(dir, { recursive: true, force: true });
 }
-console.log(`common terms kept      ${index.heavy.lists.size} terms, ${index.heavy.entries} scores`);
-console.log(`both found something   ${agree} of ${mix.length} queries agree on whether anything matches`);
 console.log('');
-console.log('by kind of query (p50 / p95):');
-for (const k of kinds) {
-  const at = mix.flatMap((q, i) => (q.kind === k ? [i] : []));
-  const m = at.map((i) => core[i]);
-  const f = at.map((i) => ftsTimes[i]);
-  console.log(`  ${k.padEnd(26)} minisearch ${ms(quantile(m, 0.5))} / ${ms(quantile(m, 0.95)).padEnd(9)} fts5 ${ms(quantile(f, 0.5))} / ${ms(quantile(f, 0.95))}`);
-}
-fts.close();
-rmSync(dir, { recursive: true, force: true });
-console.log('');
-console.log(`search p95 ratio (minisearch/fts5): ${(quantile(core, 0.95) / quantile(ftsTimes, 0.95)).toFixed(2)}`);
+for (const r of ratios) console.log(r);

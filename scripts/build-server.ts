@@ -12,6 +12,8 @@ mkdirSync(path.join(out, 'migrations'), { recursive: true });
 
 const common = { platform: 'node', format: 'esm', target: 'node20', packages: 'external', sourcemap: true, logLevel: 'warning' } as const;
 await build({ ...common, entryPoints: [path.join(root, 'server/index.ts')], bundle: true, outfile: path.join(out, 'index.mjs') });
+// the search index's thread, found by the server beside its bundle
+await build({ ...common, entryPoints: [path.join(root, 'server/search/search-worker.ts')], bundle: true, outfile: path.join(out, 'search-worker.mjs') });
 await build({
   ...common,
   entryPoints: readdirSync(path.join(root, 'migrations')).filter((f) => /^\d.*\.ts$/.test(f)).map((f) => path.join(root, 'migrations', f)),

@@ -9,6 +9,7 @@ export type ErrorCode =
   | 'too_large'
   | 'unsupported_type'
   | 'rate_limited'
+  | 'unavailable'
   | 'gone';
 
 const STATUS: Record<ErrorCode, number> = {
@@ -22,6 +23,7 @@ const STATUS: Record<ErrorCode, number> = {
   too_large: 413,
   unsupported_type: 415,
   rate_limited: 429,
+  unavailable: 503,
 };
 
 export interface Issue {

@@ -46,9 +46,13 @@ export async function startServer(config: Config) {
   mail.start();
   void mail.retryDue();
   // after seeding, so a fresh casebook is indexed; a matching snapshot in DATA_DIR skips the rebuild
+  // on its own thread and in the background: the server listens at once, searches wait for it (or 503)
   const searchStarted = performance.now();
-  const search = await openCaseSearch(db, { dataDir: config.dataDir });
-  logger.info(`search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${search.index.size} cases in ${Math.round(performance.now() - searchStarted)} ms`);
+  const search = await openCaseSearch(db, { dataDir: config.dataDir, worker: true, background: true });
+  search.ready.then(
+    async () => logger.info(`search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${await search.size()} cases in ${Math.round(performance.now() - searchStarted)} ms`),
+    () => undefined,
+  );
   const app = createApp({ db, mailer, mail, config, search }, { clientDir: CLIENT_DIR });
   const digestTimer = setInterval(
     () => void runDailyDigestIfDue({ db, mailer, mail, config }).catch((err) => logger.error({ err }, 'digest failed')),
@@ -62,7 +66,7 @@ export async function startServer(config: Config) {
   }).catch(async (err: NodeJS.ErrnoException) => {
     clearInterval(digestTimer);
     mail.stop();
-    search.close();
+    await search.close();
     mailer.close();
     await fake?.close();
     await db.destroy();
@@ -92,7 +96,7 @@ export async function startServer(config: Config) {
     mail.stop();
     // a sweep that is talking to SMTP ends within the mailer's timeouts; the mail stays queued otherwise
     await Promise.race([mail.idle(), new Promise((r) => setTimeout(r, 2000).unref())]);
-    search.close();
+    await search.close();
     await imageWorkers.close();
     await zipWorkers.close();
     mailer.close();

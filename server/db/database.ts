@@ -156,6 +156,14 @@ export interface PasswordResetRequestsTable {
   created_at: string;
 }
 
+/** One row per change to what search holds of a case; every app instance's index follows it. */
+export interface CaseChangesTable {
+  id: Generated<number>;
+  /** Null: re-read every case (tag curation, an import). */
+  case_id: number | null;
+  changed_at: string;
+}
+
 export interface WatchesTable {
   id: Generated<number>;
   user_id: number;
@@ -234,6 +242,7 @@ export interface Database {
   audit_log: AuditLogTable;
   mail_queue: MailQueueTable;
   password_reset_requests: PasswordResetRequestsTable;
+  case_changes: CaseChangesTable;
   watches: WatchesTable;
   notification_prefs: NotificationPrefsTable;
   digest_items: DigestItemsTable;

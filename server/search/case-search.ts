@@ -2,13 +2,15 @@ import type { Actor } from '../../shared/auth/roles';
 import type { HighlightField, SearchQuery, SearchResponse, SimilarResponse } from '../../shared/schemas/search';
 import type { Db } from '../db/database';
 import { searchSourceRows, searchSourceStamp, searchTags, synonymsByTag, type SearchSourceRow } from '../db/repositories/search-source';
+import { AppError } from '../errors';
 import { synonymMap } from '../services/tags';
 import { caseDocument } from './case-document';
-import { CaseIndex, type IndexTuning } from './case-index';
-import { highlightsFor } from './highlight';
-import { rankCases, visibilityOf, type Ranked } from './rank';
-import { similarCases } from './similar';
-import { indexStamp, readSnapshot, writeSnapshot } from './snapshot';
+import type { CaseIndex, IndexTuning } from './case-index';
+import { latestChangeId, recordCaseChange } from './change-log';
+import { ChangeFollower } from './change-follower';
+import { localCore, workerCore, type CoreClient } from './core-client';
+import type { Ranked } from './rank';
+import type { SynonymStats } from './search-core';
 
 export interface CaseSearchOptions {
   /** Where the snapshot lives; without it the index is rebuilt on every start. */
@@ -16,35 +18,50 @@ export interface CaseSearchOptions {
   tuning?: IndexTuning;
   /** Quiet time after the last change before the snapshot is written. */
   snapshotDelayMs?: number;
+  /** Hold the index on a worker thread (the server); in process otherwise (tests, tools). */
+  worker?: boolean;
+  /** Return at once and load in the background (the server listens meanwhile); else wait until ready. */
+  background?: boolean;
+  /** How often the change log is read for other instances' writes; 0 turns following off. */
+  followMs?: number;
+  /** How long a search made before the index is ready waits for it before answering 503. */
+  readyWaitMs?: number;
 }
 
-/** The search index as the app uses it: kept in step with case writes, snapshotted to DATA_DIR. */
+/** The search index as the app uses it: kept in step with case writes here and on other instances, snapshotted to DATA_DIR. */
 export interface CaseSearch {
+  /** The index itself, when it is held in process (tests). */
   readonly index: CaseIndex;
-  /** How this index came to be, for logs and tests. */
-  readonly origin: 'snapshot' | 'rebuilt';
-  /** Re-reads one case and indexes it as it now is (removes it when it is gone). */
+  /** How this index came to be, for logs and tests; `loading` until ready. */
+  readonly origin: 'snapshot' | 'rebuilt' | 'loading';
+  /** Whether searches are answered yet (GET /api/ready). */
+  isReady(): boolean;
+  /** How far behind the other instances' writes this index may be, in seconds (the index lag metric); undefined while loading. */
+  lagSeconds(): number | undefined;
+  /** Resolves once the index is loaded; rejects when loading failed. */
+  readonly ready: Promise<void>;
+  /** Cases indexed. */
+  size(): Promise<number>;
+  /** Logs a change to one case for every instance and indexes it here as it now is (removes it when it is gone). */
   syncCase(id: number): Promise<void>;
-  removeCase(id: number): void;
-  /** Reads every case again: after tag curation (rename, merge) that touches many cases. */
+  removeCase(id: number): Promise<void>;
+  /** Reads every case again, here and (through the log) on every instance: after tag curation or an import. */
   rebuild(): Promise<void>;
+  /** Applies the other instances' changes now instead of at the next poll (tests). */
+  followNow(): Promise<void>;
   search(actor: Actor, query: SearchQuery): Promise<SearchResponse>;
   similar(actor: Actor, id: number): Promise<SimilarResponse>;
-  saveSnapshot(): void;
-  close(): void;
+  saveSnapshot(): Promise<void>;
+  close(): Promise<void>;
 }
 
-const synonymStats = (byTag: Map<string, string[]>) => {
+/** Cases read from the database per batch while building: bounded memory, and the event loop breathes between batches. */
+const BUILD_BATCH = 2000;
+
+const synonymStats = (byTag: Map<string, string[]>): SynonymStats => {
   const all = [...byTag.values()].flat();
   return { count: all.length, length: all.reduce((n, s) => n + s.length, 0) };
 };
-
-async function buildIndex(db: Db, tuning?: IndexTuning) {
-  const [rows, tags, synonyms] = await Promise.all([searchSourceRows(db), searchTags(db), synonymsByTag(db)]);
-  const index = new CaseIndex(undefined, undefined, tuning);
-  index.addAll(rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], synonyms)));
-  return { index, synonyms: synonymStats(synonyms) };
-}
 
 const round = (x: number) => Math.round(x * 1e4) / 1e4;
 
@@ -58,89 +75,131 @@ function bodyFields(r: SearchSourceRow): { field: HighlightField; text: string |
   ];
 }
 
-/** Opens the index from the snapshot when it matches the database, else rebuilds it (and snapshots it). */
-export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): Promise<CaseSearch> {
-  const { dataDir, tuning, snapshotDelayMs = 10_000 } = options;
-  const stamp = await searchSourceStamp(db);
-  let index = dataDir ? readSnapshot(dataDir, stamp, tuning) : undefined;
-  let synonyms = synonymStats(await synonymsByTag(db));
-  const origin = index ? 'snapshot' : 'rebuilt';
-  if (!index) ({ index, synonyms } = await buildIndex(db, tuning));
+/** Every case into `core`, a batch at a time, by id. */
+async function buildInto(db: Db, core: CoreClient) {
+  const synonyms = await synonymsByTag(db);
+  await core.begin();
+  let after = 0;
+  for (;;) {
+    const ids = (await db.selectFrom('cases').select('id').where('id', '>', after).orderBy('id').limit(BUILD_BATCH).execute()).map((r) => r.id);
+    if (ids.length === 0) break;
+    const [rows, tags] = await Promise.all([searchSourceRows(db, ids), searchTags(db, ids)]);
+    await core.add(rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], synonyms)));
+    after = ids[ids.length - 1];
+  }
+  await core.finish(synonymStats(synonyms));
+}
 
-  let timer: NodeJS.Timeout | undefined;
-  let pending = 0;
-  let dirty = origin === 'rebuilt';
-  const save = () => {
-    if (!dataDir || !dirty) return;
-    // a case being re-read would be missing from a snapshot written now
-    if (pending > 0) return schedule();
-    // writes shift every score a little; once they add up, score the common terms afresh
-    if (index!.heavy.drifted(index!.size)) index!.rebuildHeavy();
-    writeSnapshot(dataDir, index!, indexStamp(index!, synonyms));
-    dirty = false;
-  };
-  const schedule = () => {
-    if (!dataDir) return;
+/**
+ * Opens the index: from the snapshot when it matches the database, else built from the cases
+ * (and snapshotted). With `background`, returns at once; searches wait up to `readyWaitMs`
+ * for the index, then answer 503.
+ */
+export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): Promise<CaseSearch> {
+  const { dataDir, tuning, snapshotDelayMs, worker = false, background = false, followMs = 500, readyWaitMs = 5000 } = options;
+  let failure: Error | undefined;
+  const core = worker
+    ? workerCore({ dataDir, tuning, snapshotDelayMs }, (err) => {
+        failure = err;
+        ready = false;
+        console.error('[falsetrace] search worker failed; search answers 503 until restart:', err.message);
+      })
+    : localCore({ dataDir, tuning, snapshotDelayMs });
+
+  let ready = false;
+  let origin: CaseSearch['origin'] = 'loading';
+  /** Changes this instance logged and already applied: the follower skips them. */
+  const applied = new Set<number>();
+  let closed = false;
+
+  async function syncOne(id: number) {
+    const [rows, tags, bySynonym] = await Promise.all([searchSourceRows(db, [id]), searchTags(db, [id]), synonymsByTag(db)]);
+    if (rows.length === 0) await core.remove(id);
+    else await core.upsert(caseDocument(rows[0], tags.get(id) ?? [], bySynonym));
+  }
+
+  const follower = new ChangeFollower(db, {
+    applied,
+    syncCase: syncOne,
+    rebuild: () => buildInto(db, core),
+  });
+
+  const load = (async () => {
+    // read before anything else: a change made while the index loads is then applied after it
+    const from = await latestChangeId(db);
+    const [stamp, synonyms] = await Promise.all([searchSourceStamp(db), synonymsByTag(db)]);
+    if (await core.restore(stamp, synonymStats(synonyms))) origin = 'snapshot';
+    else {
+      await buildInto(db, core);
+      origin = 'rebuilt';
+    }
+    if (closed) return;
+    follower.start(from, followMs);
+    ready = true;
+  })();
+  load.catch((err) => {
+    failure = err as Error;
+    console.error('[falsetrace] search index failed to load:', err);
+  });
+
+  async function whenReady() {
+    if (ready) return;
+    if (failure) throw new AppError('unavailable', 'Search is unavailable: its index failed to load. The server log says why.');
+    let timer: NodeJS.Timeout | undefined;
+    const waited = await Promise.race([
+      load.then(() => true, () => false),
+      new Promise<boolean>((resolve) => (timer = setTimeout(() => resolve(false), readyWaitMs))),
+    ]);
     clearTimeout(timer);
-    timer = setTimeout(() => {
-      try {
-        save();
-      } catch (err) {
-        console.error('[falsetrace] search snapshot failed:', err);
-      }
-    }, snapshotDelayMs);
-    timer.unref();
-  };
-  const changed = () => {
-    dirty = true;
-    schedule();
-  };
-  if (dirty) save();
+    if (!waited || !ready) throw new AppError('unavailable', 'Search is still loading its index; try again in a few seconds.');
+  }
 
   async function page(ranked: Ranked[]) {
     const rows = new Map((await searchSourceRows(db, ranked.map((r) => r.id))).map((r) => [r.id, r]));
     return ranked.filter((r) => rows.has(r.id)).map((r) => ({ ranked: r, row: rows.get(r.id)! }));
   }
 
+  async function logged(caseId: number | null, apply: () => Promise<void>) {
+    const change = await recordCaseChange(db, caseId);
+    // before the index is ready the follower applies it, after the load
+    if (!ready) return;
+    applied.add(change);
+    await apply();
+  }
+
+  if (!background) await load;
+
   return {
     get index() {
-      return index!;
+      if (!core.local) throw new Error('the search index lives on its worker thread');
+      return core.local.current;
     },
-    origin,
-    async syncCase(id) {
-      pending++;
-      try {
-        const [rows, tags, bySynonym] = await Promise.all([searchSourceRows(db, [id]), searchTags(db, [id]), synonymsByTag(db)]);
-        if (rows.length === 0) index!.remove(id);
-        else {
-          const { doc, facts } = caseDocument(rows[0], tags.get(id) ?? [], bySynonym);
-          index!.upsert(doc, facts);
-        }
-      } finally {
-        pending--;
-      }
-      changed();
+    get origin() {
+      return origin;
     },
-    removeCase(id) {
-      index!.remove(id);
-      changed();
+    get ready() {
+      return load;
     },
-    async rebuild() {
-      ({ index, synonyms } = await buildIndex(db, tuning));
-      dirty = true;
-      schedule();
-    },
+    isReady: () => ready && !failure,
+    lagSeconds: () => (ready ? follower.lagSeconds() : undefined),
+    size: () => core.size(),
+    syncCase: (id) => logged(id, () => syncOne(id)),
+    removeCase: (id) => logged(id, () => core.remove(id)),
+    rebuild: () => logged(null, () => buildInto(db, core)),
+    followNow: () => follower.poll(),
     async search(actor, query) {
-      const ranked = rankCases(index!, actor, query, await synonymMap(db));
+      await whenReady();
+      const ranked = await core.rank(actor, query, [...(await synonymMap(db))]);
       const rows = await page(ranked.page);
+      const highlights = await core.highlights(rows.map(({ row }) => bodyFields(row)), ranked.terms);
       return {
-        results: rows.map(({ ranked: r, row }) => ({
+        results: rows.map(({ ranked: r, row }, i) => ({
           id: row.id,
           title: row.title,
           summary: row.summary,
           cause: row.cause,
           score: round(r.score),
-          highlights: highlightsFor(bodyFields(row), ranked.terms),
+          highlights: highlights[i],
         })),
         facets: ranked.facets,
         total: ranked.total,
@@ -148,15 +207,19 @@ export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): P
       };
     },
     async similar(actor, id) {
+      await whenReady();
       const [source] = await searchSourceRows(db, [id]);
       if (!source) return { similar: [] };
-      const rows = await page(similarCases(index!, source, visibilityOf(index!, actor)));
+      const rows = await page(await core.similar(actor, { id: source.id, title: source.title, summary: source.summary }));
       return { similar: rows.map(({ ranked: r, row }) => ({ id: row.id, title: row.title, summary: row.summary, cause: row.cause, score: round(r.score) })) };
     },
-    saveSnapshot: save,
-    close() {
-      clearTimeout(timer);
-      save();
+    saveSnapshot: () => core.save(),
+    async close() {
+      closed = true;
+      await follower.stop();
+      // a worker is stopped mid-load; in process the load cannot be interrupted
+      if (!worker) await load.catch(() => undefined);
+      await core.terminate();
     },
   };
 }

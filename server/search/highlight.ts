@@ -1,12 +1,77 @@
+import { irregularFormsOf } from '../../shared/search/stem';
+import { PHRASES } from '../../shared/search/synonyms';
 import { termsWithOffsets } from '../../shared/search/text-terms';
 import type { HighlightField, SearchHighlight } from '../../shared/schemas/search';
 
 /** Longest snippet cut from a long field, in characters (our choice: two lines of a result card). */
 const SNIPPET = 180;
 
+/** Below this length a field is tokenised whole; above it only around the places a query term may be. */
+const WHOLE = 600;
+/** Characters tokenised either side of a place a term may start (covers a two-word phrase). */
+const AROUND = 48;
+
+const keyCache = new WeakMap<ReadonlySet<string>, string[]>();
+
+/**
+ * Lower-case strings one of which every written form of the terms contains: a stem's first
+ * four letters ("ringing" and "rings" start "ring"), its irregular forms ("rang"), a quantity's
+ * digits, a phrase's words ("ten times" for 10x, "spring tip" for the ground spring).
+ */
+function keysOf(terms: ReadonlySet<string>): string[] {
+  let keys = keyCache.get(terms);
+  if (keys) return keys;
+  const out = new Set<string>();
+  for (const term of terms) {
+    const digits = /^\d+(?:\.\d+)?/.exec(term);
+    if (digits) {
+      out.add(digits[0]);
+      if (term === '10x') out.add('ten');
+      if (term === '100x') out.add('hundred');
+      if (term === '1000x') out.add('thousand');
+      continue;
+    }
+    out.add(term.slice(0, 4));
+    for (const form of irregularFormsOf(term)) out.add(form);
+    for (const p of PHRASES) if (p.term === term) for (const w of p.words) out.add(w.slice(0, 4));
+  }
+  keys = [...out].filter((k) => k !== '');
+  keyCache.set(terms, keys);
+  return keys;
+}
+
+/** Windows of `text` worth tokenising: around every place a key occurs, merged, on spaces. */
+function windows(text: string, keys: string[]): [number, number][] {
+  const lower = text.toLowerCase();
+  const spans: [number, number][] = [];
+  for (const k of keys) {
+    for (let at = lower.indexOf(k); at >= 0; at = lower.indexOf(k, at + 1)) spans.push([Math.max(0, at - AROUND), Math.min(text.length, at + k.length + AROUND)]);
+  }
+  spans.sort((a, b) => a[0] - b[0]);
+  const merged: [number, number][] = [];
+  for (const s of spans) {
+    const last = merged[merged.length - 1];
+    if (last && s[0] <= last[1]) last[1] = Math.max(last[1], s[1]);
+    else merged.push([s[0], s[1]]);
+  }
+  // start and end on a space so no word is cut in two
+  return merged.map(([s, e]) => {
+    const start = s === 0 ? 0 : text.indexOf(' ', s) + 1 || s;
+    const space = text.indexOf(' ', e);
+    return [start, space < 0 ? text.length : space];
+  });
+}
+
 /** [start, end) of each word in `text` whose index term is one the query stood for, overlaps merged. */
 export function matchRanges(text: string, terms: ReadonlySet<string>): [number, number][] {
-  const hits = termsWithOffsets(text, 'index')
+  const found: { term: string; start: number; end: number }[] = [];
+  if (text.length <= WHOLE) found.push(...termsWithOffsets(text, 'index'));
+  else {
+    for (const [s, e] of windows(text, keysOf(terms))) {
+      for (const t of termsWithOffsets(text.slice(s, e), 'index')) found.push({ term: t.term, start: t.start + s, end: t.end + s });
+    }
+  }
+  const hits = found
     .filter((t) => terms.has(t.term))
     .map((t): [number, number] => [t.start, t.end])
     .sort((a, b) => a[0] - b[0] || b[1] - a[1]);

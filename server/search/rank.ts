@@ -4,7 +4,7 @@ import { symptomNumbersFit } from '../../shared/search/case-numbers';
 import { readSymptomQuery, type SymptomReading } from '../../shared/search/symptom-query';
 import type { SearchQuery } from '../../shared/schemas/search';
 import type { CaseFacts } from './case-document';
-import type { CaseIndex } from './case-index';
+import type { CaseIndex, TermGroup } from './case-index';
 import { countFacets, type Facets } from './facets';
 import { planQuery } from './query-plan';
 import { runTextQuery } from './run-query';
@@ -28,6 +28,18 @@ export interface RankedPage {
 const ENGINE_CAUSE_MATCH = 0.6;
 /** With a symptom reading, how much the cause and numbers weigh against the words. */
 const SYMPTOM_WEIGHT = 0.6;
+/**
+ * A typed word found in at most this share of the cases (and at least `RARE_MIN` of them) is
+ * rare: whoever types "piezo" means the case about the piezo driver more than any case the
+ * symptom reading guesses. Our choice; bench/search-judged.ts measures what it does.
+ */
+const RARE_SHARE = 0.01;
+const RARE_MIN = 1;
+/**
+ * What holding every rare word adds: the most a case can score without (text 1 − SYMPTOM_WEIGHT
+ * plus a perfect fit SYMPTOM_WEIGHT), so a case with all the rare words outranks every guess.
+ */
+const RARE_WEIGHT = 1;
 
 /** Who may see what, as a test per case id; moderators see everything. */
 export function visibilityOf(index: CaseIndex, actor: Actor): (id: number) => boolean {
@@ -55,6 +67,26 @@ function symptomFit(reading: SymptomReading, f: CaseFacts): number {
 }
 
 /**
+ * A case that holds the query's rare words gains up to RARE_WEIGHT (the share of the rare
+ * words it holds), and joins the candidates if AND left it out: a word in one case in a
+ * hundred says which case is meant more than a common word or the reading's guess does.
+ * Rare: in at most RARE_SHARE of the cases; words the dictionary lacks count for nothing.
+ */
+function addRareWordBonus(index: CaseIndex, groups: TermGroup[], visible: (id: number) => boolean, scores: Map<number, number>) {
+  const limit = Math.max(RARE_MIN, Math.floor(RARE_SHARE * index.size));
+  const rare = groups.filter((g) => {
+    const exact = g.terms.filter((t) => t.weight === 1);
+    if (exact.length === 0) return false;
+    const df = Math.max(...exact.map((t) => index.engine.documentFrequency(t.term, limit)));
+    return df > 0 && df <= limit;
+  });
+  if (rare.length === 0) return;
+  const held = new Map<number, number>();
+  for (const g of rare) for (const id of index.scoreGroup(g, visible).keys()) held.set(id, (held.get(id) ?? 0) + 1);
+  for (const [id, n] of held) scores.set(id, (scores.get(id) ?? 0) + (RARE_WEIGHT * n) / rare.length);
+}
+
+/**
  * The search: words through the index, the symptom reading through the engine, blended.
  * score = text (normalised to the best match, times the share of words matched) when the
  * query is only words; with a reading, 0.4·text + 0.6·fit, and cases filed under an inferred
@@ -65,7 +97,8 @@ function symptomFit(reading: SymptomReading, f: CaseFacts): number {
 export function rankCases(index: CaseIndex, actor: Actor, query: SearchQuery, synonyms: Map<string, string>): RankedPage {
   const visible = visibilityOf(index, actor);
   const hasWords = query.q.trim() !== '';
-  const text = hasWords ? runTextQuery(index, planQuery(query.q, index, synonyms), visible) : undefined;
+  const groups = hasWords ? planQuery(query.q, index, synonyms) : [];
+  const text = hasWords ? runTextQuery(index, groups, visible) : undefined;
   const reading = hasWords ? readSymptomQuery(query.q) : null;
 
   const scores = new Map<number, number>();
@@ -75,11 +108,18 @@ export function rankCases(index: CaseIndex, actor: Actor, query: SearchQuery, sy
     for (const [id, s] of text.scores) scores.set(id, ((best > 0 ? s / best : 0) * text.coverage(id)) * (reading ? 1 - SYMPTOM_WEIGHT : 1));
   }
   if (reading && reading.causes.length > 0) {
-    for (const [id, f] of index.facts) {
-      const fit = symptomFit(reading, f);
-      if (fit > 0 && visible(id)) scores.set(id, (scores.get(id) ?? 0) + SYMPTOM_WEIGHT * fit);
+    // only the cases filed (or diagnosed) under an inferred cause can fit: read them from the per-cause lists
+    const seen = new Set<number>();
+    for (const c of reading.causes) {
+      for (const id of index.casesOfCause(c.cause)) {
+        if (seen.has(id)) continue;
+        seen.add(id);
+        const fit = symptomFit(reading, index.facts.get(id)!);
+        if (fit > 0 && visible(id)) scores.set(id, (scores.get(id) ?? 0) + SYMPTOM_WEIGHT * fit);
+      }
     }
   }
+  if (hasWords) addRareWordBonus(index, groups, visible, scores);
   if (!hasWords) for (const id of index.facts.keys()) if (visible(id)) scores.set(id, 0);
 
   const { facets, passing } = countFacets(index, scores.keys(), query);

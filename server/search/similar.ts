@@ -37,9 +37,14 @@ export function similarCases(index: CaseIndex, source: SimilarSource, visible: (
   const best = topText[0]?.[1] ?? 0;
 
   const candidates = new Map<number, number>(topText.map(([id, s]) => [id, best > 0 ? s / best : 0]));
-  for (const [id, f] of index.facts) {
-    const sameCause = (base.cause && (f.cause === base.cause || f.engineCause === base.cause)) || (base.engineCause && f.cause === base.engineCause);
-    if (sameCause && allow(id) && !candidates.has(id)) candidates.set(id, 0);
+  // the cases of the same cause, read from the per-cause lists rather than every case
+  for (const c of new Set([base.cause, base.engineCause])) {
+    if (!c) continue;
+    for (const id of index.casesOfCause(c)) {
+      const f = index.facts.get(id)!;
+      const sameCause = (base.cause && (f.cause === base.cause || f.engineCause === base.cause)) || (base.engineCause && f.cause === base.engineCause);
+      if (sameCause && allow(id) && !candidates.has(id)) candidates.set(id, 0);
+    }
   }
 
   const scored: Ranked[] = [];

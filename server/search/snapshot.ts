@@ -1,20 +1,17 @@
 import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import type { CaseFacts } from './case-document';
-import type { EngineHeader } from './case-engine';
-import { CaseEngine } from './case-engine';
-import { CaseIndex, INDEX_OPTIONS, type IndexTuning } from './case-index';
-import { HeavyTerms, type SerializedHeavyTerms } from './heavy-terms';
+import { CaseIndex, type IndexTuning } from './case-index';
+import { CompactEngine, type CompactHeader } from './compact-engine';
 
 /** Bump when the analysis or the document layout changes: older snapshots are then rebuilt. */
-export const SNAPSHOT_VERSION = 1;
+export const SNAPSHOT_VERSION = 3;
 
 interface SnapshotHeader {
   version: number;
   /** The index's own fingerprint of what it holds (see `indexStamp`). */
   stamp: string;
-  engine: EngineHeader;
-  heavy: SerializedHeavyTerms;
+  engine: CompactHeader;
   facts: [number, CaseFacts][];
 }
 
@@ -39,20 +36,21 @@ export function indexStamp(index: CaseIndex, synonyms: { count: number; length: 
   return [index.facts.size, latest, ids, tags, tagLength, synonyms.count, synonyms.length].join('|');
 }
 
-/** One file: a 4-byte length, the JSON header, then the postings. Written aside, then renamed into place. */
+/** One file: a 4-byte length, the JSON header padded to 4 bytes, then the arrays. Written aside, then renamed into place. */
 export function writeSnapshot(dataDir: string, index: CaseIndex, stamp: string) {
-  const { header, postings } = index.engine.encode();
-  const json = Buffer.from(JSON.stringify({ version: SNAPSHOT_VERSION, stamp, engine: header, heavy: index.heavy.toJSON(), facts: [...index.facts] } satisfies SnapshotHeader));
+  const { header, body } = index.engine.encode();
+  let json = Buffer.from(JSON.stringify({ version: SNAPSHOT_VERSION, stamp, engine: header, facts: [...index.facts] } satisfies SnapshotHeader));
+  if (json.length % 4) json = Buffer.concat([json, Buffer.alloc(4 - (json.length % 4), 0x20)]);
   const length = Buffer.alloc(4);
   length.writeUInt32LE(json.length);
   const file = snapshotPath(dataDir);
   mkdirSync(path.dirname(file), { recursive: true });
-  writeFileSync(`${file}.tmp`, Buffer.concat([length, json, postings]));
+  writeFileSync(`${file}.tmp`, Buffer.concat([length, json, body]));
   renameSync(`${file}.tmp`, file);
 }
 
 /** The snapshot's index when it exists, is readable, and matches `stamp`; otherwise undefined. */
-export function readSnapshot(dataDir: string, stamp: string, tuning?: IndexTuning): CaseIndex | undefined {
+export function readSnapshot(dataDir: string, stamp: string, _tuning?: IndexTuning): CaseIndex | undefined {
   const file = snapshotPath(dataDir);
   if (!existsSync(file)) return undefined;
   try {
@@ -60,10 +58,8 @@ export function readSnapshot(dataDir: string, stamp: string, tuning?: IndexTunin
     const length = bytes.readUInt32LE(0);
     const header = JSON.parse(bytes.subarray(4, 4 + length).toString('utf8')) as SnapshotHeader;
     if (header.version !== SNAPSHOT_VERSION || header.stamp !== stamp) return undefined;
-    // the postings must start on a 4-byte boundary for the Uint32 view
-    const postings = Buffer.from(bytes.subarray(4 + length));
-    const index = new CaseIndex(CaseEngine.decode(header.engine, postings, INDEX_OPTIONS), HeavyTerms.fromJSON(header.heavy), tuning);
-    for (const [id, f] of header.facts) index.facts.set(id, f);
+    const index = new CaseIndex(CompactEngine.decode(header.engine, bytes.subarray(4 + length)));
+    for (const [id, f] of header.facts) index.setFacts(id, f);
     return index;
   } catch (err) {
     console.error('[falsetrace] search snapshot unreadable, rebuilding:', (err as Error).message);

@@ -13,6 +13,7 @@ import { storagePaths } from '../storage';
 import { toAttachment } from './case-mapper';
 import { visibleCaseRow } from './cases';
 import { reencodeImage, sniffImage } from './image-intake';
+import { caseChanged } from '../search/change-log';
 
 export const IMAGE_LIMIT_BYTES = 10 * 1024 * 1024;
 
@@ -105,7 +106,7 @@ export async function addAttachment(deps: AppDeps, actor: Actor, caseId: number,
       });
     }
     await updateCaseRow(deps.db, caseId, { updated_at: now });
-    await deps.search?.syncCase(caseId);
+    await caseChanged(deps, caseId);
     return toAttachment(attachment);
   } catch (err) {
     await Promise.all(written.map((n) => rm(storage.fileFor(n), { recursive: true, force: true })));
@@ -122,7 +123,7 @@ export async function removeAttachment(deps: AppDeps, actor: Actor, caseId: numb
   if (!att || att.case_id !== caseId) throw notFound('No such attachment on this case');
   await deleteAttachmentRow(deps.db, attachmentId);
   await updateCaseRow(deps.db, caseId, { updated_at: new Date().toISOString() });
-  await deps.search?.syncCase(caseId);
+  await caseChanged(deps, caseId);
   const storage = storagePaths(deps.config);
   await storage.remove(att.storage_name);
   if (att.thumbnail_name) await storage.remove(att.thumbnail_name);

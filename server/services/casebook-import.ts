@@ -23,6 +23,7 @@ import { AppError } from '../errors';
 import { storagePaths } from '../storage';
 import { recomputeDiagnosis } from './case-diagnosis';
 import { MAX_IMAGE_PIXELS, reencodeImage, sniffImage } from './image-intake';
+import { allCasesChanged } from '../search/change-log';
 
 type Records = ArchiveRecords;
 type Db = AppDeps['db'];
@@ -334,6 +335,6 @@ async function importRecords(deps: AppDeps, actor: Actor, records: Records, dryR
   // files of cases that turned out to be here already while importing are not kept
   await Promise.all(unused.map((n) => storage.remove(n)));
   // rows went in beside the services, so the search index reads them afresh
-  await deps.search?.rebuild();
+  await allCasesChanged(deps);
   return report;
 }

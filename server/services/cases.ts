@@ -15,6 +15,7 @@ import { moderatorIds, notifyUsers } from './notifications';
 import { canonicalTags } from './tags';
 import { toCase, toCaseSummary } from './case-mapper';
 import { recordWriteUpReferences, visibleReferences, visibleReferrers } from './case-references';
+import { caseChanged, caseRemoved } from '../search/change-log';
 
 /** The case row if the actor may see it; a 404 otherwise, so existence does not leak. */
 export async function visibleCaseRow(db: Db, actor: Actor, id: number): Promise<CaseRowWithAuthor> {
@@ -87,7 +88,7 @@ export async function createCase({ db, search }: AppDeps, actor: Actor, input: C
     await watchCase(trx, actor.id, id);
     return id;
   });
-  await search?.syncCase(id);
+  await caseChanged({ db, search }, id);
   return loadCase(db, actor, id);
 }
 
@@ -146,7 +147,7 @@ export async function updateCase({ db, search }: AppDeps, actor: Actor, id: numb
       await recordAudit(trx, { caseId: id, actorId: actor.id, action: 'moderator_edit', before: pick(row, changed), after: input, note: `Edited ${changed.join(', ')}` });
     }
   });
-  await search?.syncCase(id);
+  await caseChanged({ db, search }, id);
   return loadCase(db, actor, id);
 }
 
@@ -173,7 +174,7 @@ export async function submitCase(deps: AppDeps, actor: Actor, id: number): Promi
     await insertRevision(trx, id, actor.id, await snapshotOf(trx, id), now);
     await recordAudit(trx, { caseId: id, actorId: actor.id, action: 'submit', before: { status: row.status }, after: { status: 'in_review' } });
   });
-  await deps.search?.syncCase(id);
+  await caseChanged(deps, id);
   const resubmitted = row.status === 'needs_changes';
   await notifyUsers(deps, await moderatorIds(deps), {
     kind: 'submitted',
@@ -190,7 +191,7 @@ export async function deleteCase({ db, search }: AppDeps, actor: Actor, id: numb
   if (!canDeleteCase(actor, { authorId: row.author_id, status: row.status })) throw forbidden('Only the author may delete a draft that was never submitted');
   const files = await listAttachments(db, id);
   await deleteCaseRow(db, id);
-  search?.removeCase(id);
+  await caseRemoved({ db, search }, id);
   return files.flatMap((f) => [f.storage_name, ...(f.thumbnail_name ? [f.thumbnail_name] : [])]);
 }
 

@@ -10,6 +10,7 @@ import { AppError, forbidden, invalid, notFound } from '../errors';
 import { loadCase, visibleCaseRow } from './cases';
 import { audienceOf, notifyUsers } from './notifications';
 import { tellSavedSearches } from './saved-searches';
+import { caseChanged } from '../search/change-log';
 
 const REVIEWABLE = { verify: ['in_review'], send_back: ['in_review'], retire: ['in_review', 'needs_changes', 'verified'], duplicate: ['in_review', 'needs_changes', 'verified'] } as const;
 
@@ -53,7 +54,7 @@ export async function reviewCase(deps: AppDeps, actor: User, id: number, input: 
     });
   });
 
-  await deps.search?.syncCase(id);
+  await caseChanged(deps, id);
 
   const line = {
     verify: `Verified by ${actor.name}`,

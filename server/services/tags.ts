@@ -5,6 +5,7 @@ import { recordAudit } from '../db/repositories/audit-log';
 import type { Db } from '../db/database';
 import type { AppDeps } from '../deps';
 import { forbidden, invalid } from '../errors';
+import { allCasesChanged } from '../search/change-log';
 
 async function ensureTagRow(db: Db, tag: string) {
   await db.insertInto('tags').values({ tag, created_at: new Date().toISOString() }).onConflict((oc) => oc.doNothing()).execute();
@@ -80,7 +81,7 @@ async function moveTag(deps: AppDeps, actor: Actor, from: string, to: string, ac
     await recordAudit(trx, { caseId: null, actorId: actor.id, action, before: { tag: from }, after: { tag: to } });
   });
   // tags and synonyms are indexed words: many cases change at once
-  await deps.search?.rebuild();
+  await allCasesChanged(deps);
 }
 
 export const renameTag = (deps: AppDeps, actor: Actor, from: string, to: string) => moveTag(deps, actor, from, to, 'rename_tag');
@@ -99,7 +100,7 @@ export async function setTagSynonyms(deps: AppDeps, actor: Actor, tag: string, s
     }
     await recordAudit(trx, { caseId: null, actorId: actor.id, action: 'tag_synonyms', before: { tag, synonyms: before }, after: { tag, synonyms } });
   });
-  await deps.search?.rebuild();
+  await allCasesChanged(deps);
 }
 
 export async function setTagRetired(deps: AppDeps, actor: Actor, tag: string, retired: boolean) {

@@ -5,6 +5,8 @@
  * source: M. F. Porter, "An algorithm for suffix stripping", Program 14(3), 1980, steps 1a–1c
  */
 export function stem(word: string): string {
+  const irregular = IRREGULAR.get(word);
+  if (irregular) return irregular;
   if (word.length <= 3 || !/^[a-z]+$/.test(word)) return word;
   let w = step1a(word);
   w = step1b(w);
@@ -68,4 +70,60 @@ function step1b(w: string): string {
 
 function step1c(w: string): string {
   return w.endsWith('y') && hasVowel(w.slice(0, -1)) ? `${w.slice(0, -1)}i` : w;
+}
+
+/**
+ * Irregular past forms of verbs a bench report uses, read as their base form so "rang" finds
+ * "ringing". Only forms that are not also a common noun of the trade: "led" (the diode),
+ * "left", "wound" and "lead" stay as written. // common practice, no source (English irregular verbs)
+ */
+const IRREGULAR = new Map<string, string>(
+  Object.entries({
+    ring: ['rang', 'rung'],
+    fall: ['fell', 'fallen'],
+    rise: ['rose', 'risen'],
+    run: ['ran'],
+    break: ['broke', 'broken'],
+    blow: ['blew', 'blown'],
+    burn: ['burnt'],
+    bend: ['bent'],
+    build: ['built'],
+    catch: ['caught'],
+    draw: ['drew', 'drawn'],
+    drive: ['drove', 'driven'],
+    feed: ['fed'],
+    freeze: ['froze', 'frozen'],
+    get: ['got', 'gotten'],
+    grow: ['grew', 'grown'],
+    hang: ['hung'],
+    hold: ['held'],
+    keep: ['kept'],
+    lose: ['lost'],
+    mean: ['meant'],
+    send: ['sent'],
+    shake: ['shook', 'shaken'],
+    sink: ['sank', 'sunk'],
+    slide: ['slid'],
+    spin: ['spun'],
+    stick: ['stuck'],
+    swing: ['swung'],
+    take: ['took', 'taken'],
+    tear: ['tore', 'torn'],
+    throw: ['threw', 'thrown'],
+    wear: ['wore', 'worn'],
+    write: ['wrote', 'written'],
+    go: ['went', 'gone'],
+    see: ['seen'],
+    show: ['shown'],
+    give: ['gave', 'given'],
+    find: ['found'],
+    begin: ['began', 'begun'],
+  }).flatMap(([base, forms]) => forms.map((f): [string, string] => [f, base])),
+);
+
+/** The irregular forms that stem to `base` ("ring" → rang, rung): where a highlighter must look besides the stem itself. */
+export function irregularFormsOf(base: string): string[] {
+  const out: string[] = [];
+  for (const [form, b] of IRREGULAR) if (b === base) out.push(form);
+  return out;
 }

@@ -78,7 +78,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
     async close() {
       mail.stop();
       await mail.idle();
-      search.close();
+      await search.close();
       (app.locals.sessionStore as { close(): void }).close();
       mailer.close();
       await fake.close();

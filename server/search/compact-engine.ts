@@ -1,0 +1,295 @@
+import SearchableMap from 'minisearch/SearchableMap';
+import { indexTerms } from '../../shared/search/text-terms';
+import { DOC_FIELDS, FIELD_BOOST, type CaseDoc } from './case-document';
+
+/** BM25+ parameters, minisearch's defaults. source: Lv & Zhai, "Lower-bounding term frequency normalization", CIKM 2011 (BM25+); minisearch 7 defaults k=1.2, b=0.7, d=0.5 */
+const K = 1.2;
+const B = 0.7;
+const D = 0.5;
+const BOOSTS = DOC_FIELDS.map((f) => FIELD_BOOST[f]);
+const FIELDS = DOC_FIELDS.length;
+
+// A posting is one 32-bit word: case slot (24 bits) · field (3 bits) · term frequency (5 bits, capped at 31:
+// BM25 saturates long before, so 31 and 40 score within a hair of each other).
+const SLOT_SHIFT = 8;
+const FIELD_SHIFT = 5;
+const TF_MASK = 31;
+const MAX_SLOTS = 1 << 24;
+
+export interface CompactHeader {
+  terms: string[];
+  slots: number;
+  documentCount: number;
+  totalLength: number[];
+}
+
+/**
+ * The inverted index, compact: each term's postings are one growable Uint32Array, cases are
+ * numbered slots, field lengths are Uint16Arrays. minisearch keeps a Map per term and field
+ * (about 70 bytes a posting, 1.7 GB at 100k cases); this keeps 4 bytes a posting plus slack,
+ * and the snapshot is the arrays themselves, so a restart maps them back without parsing.
+ * Scoring is minisearch's BM25+ over the same fields and boosts (its dictionary, a radix tree,
+ * is reused for prefix and fuzzy lookups). A changed case takes a new slot; the old one is
+ * marked dead and skipped, and `vacuum` drops dead postings once they are a tenth of the lot.
+ */
+export class CompactEngine {
+  /** Term → id, for exact lookups (a hash map: the radix tree is slow to walk for every term of every case). */
+  private termIds = new Map<string, number>();
+  /** The same, as a radix tree: for prefix and fuzzy lookups. */
+  private dict = new SearchableMap<number>();
+  private terms: string[] = [];
+  private lists: Uint32Array[] = [];
+  private used = new Uint32Array(1024);
+  private slotOf = new Map<number, number>();
+  /** Case id per slot; -1 for a dead slot. */
+  private ids = new Int32Array(1024).fill(-1);
+  private fieldLength: Uint16Array[] = Array.from({ length: FIELDS }, () => new Uint16Array(1024));
+  private totalLength = new Float64Array(FIELDS);
+  private slots = 0;
+  private dead = 0;
+  documentCount = 0;
+
+  has(id: number) {
+    return this.slotOf.has(id);
+  }
+
+  hasTerm(term: string): boolean {
+    const t = this.termIds.get(term);
+    return t !== undefined && this.used[t] > 0;
+  }
+
+  /** Postings of a term over all fields (dead ones included until vacuumed): its cost to score. */
+  postings(term: string): number {
+    const t = this.termIds.get(term);
+    return t === undefined ? 0 : this.used[t];
+  }
+
+  /** Live cases holding the term; above `cap` the exact count is not needed and the postings are returned. */
+  documentFrequency(term: string, cap: number): number {
+    const t = this.termIds.get(term);
+    if (t === undefined) return 0;
+    const n = this.used[t];
+    if (n > FIELDS * cap + this.dead) return n;
+    const list = this.lists[t];
+    let count = 0;
+    let last = -1;
+    // a case's postings of one term are adjacent: count the changes of slot
+    for (let i = 0; i < n; i++) {
+      const slot = list[i] >>> SLOT_SHIFT;
+      if (slot !== last && this.ids[slot] >= 0) count++;
+      last = slot;
+    }
+    return count;
+  }
+
+  completions(prefix: string, limit: number): { term: string; postings: number }[] {
+    const out: { term: string; postings: number }[] = [];
+    for (const [term, t] of this.dict.atPrefix(prefix)) if (term !== prefix && this.used[t] > 0) out.push({ term, postings: this.used[t] });
+    return out.length > limit ? out.sort((a, b) => b.postings - a.postings).slice(0, limit) : out;
+  }
+
+  nearTerms(term: string, distance: number): { term: string; distance: number }[] {
+    const out: { term: string; distance: number }[] = [];
+    for (const [t, [v, d]] of this.dict.fuzzyGet(term, distance)) if (d > 0 && this.used[v] > 0) out.push({ term: t, distance: d });
+    return out;
+  }
+
+  addAll(docs: CaseDoc[]) {
+    for (const d of docs) this.add(d);
+  }
+
+  add(doc: CaseDoc) {
+    if (this.slotOf.has(doc.id)) this.discard(doc.id);
+    if (this.slots >= MAX_SLOTS) this.vacuum(true);
+    const slot = this.slots++;
+    this.grow(slot + 1);
+    this.ids[slot] = doc.id;
+    this.slotOf.set(doc.id, slot);
+    this.documentCount++;
+    // per term, its count in each field, 6 bits a field (capped at 31 below, so no field overflows into the next)
+    const freqs = new Map<string, number>();
+    DOC_FIELDS.forEach((field, f) => {
+      const terms = indexTerms(doc[field]);
+      const shift = 6 * f;
+      let unique = 0;
+      for (const term of terms) {
+        const packed = freqs.get(term) ?? 0;
+        const n = (packed >>> shift) & 63;
+        if (n === 0) unique++;
+        if (n < TF_MASK) freqs.set(term, packed + (1 << shift));
+      }
+      // minisearch's field length: the distinct terms of the field
+      this.fieldLength[f][slot] = Math.min(unique, 65535);
+      this.totalLength[f] += unique;
+    });
+    for (const [term, packed] of freqs) {
+      let t = this.termIds.get(term);
+      if (t === undefined) {
+        t = this.terms.length;
+        this.terms.push(term);
+        this.termIds.set(term, t);
+        this.dict.set(term, t);
+        this.lists.push(new Uint32Array(2));
+        if (t >= this.used.length) this.used = copyInto(new Uint32Array(this.used.length * 2), this.used);
+      }
+      for (let f = 0; f < FIELDS; f++) {
+        const tf = (packed >>> (6 * f)) & 63;
+        if (tf > 0) this.push(t, (slot << SLOT_SHIFT) | (f << FIELD_SHIFT) | tf);
+      }
+    }
+  }
+
+  discard(id: number) {
+    const slot = this.slotOf.get(id);
+    if (slot === undefined) return;
+    this.slotOf.delete(id);
+    this.ids[slot] = -1;
+    for (let f = 0; f < FIELDS; f++) this.totalLength[f] -= this.fieldLength[f][slot];
+    this.documentCount--;
+    this.dead++;
+    if (this.dead > 1000 && this.dead > 0.1 * this.documentCount) this.vacuum(false);
+  }
+
+  /**
+   * Adds Σ weight × BM25+ over the fields to `out` for each live case `allow` admits. Document
+   * frequency is counted per field over live cases, as minisearch does after its vacuum.
+   */
+  scoreTerm(term: string, weight: number, allow: (id: number) => boolean, out: Map<number, number>) {
+    const t = this.termIds.get(term);
+    if (t === undefined || this.documentCount === 0) return;
+    const list = this.lists[t];
+    const n = this.used[t];
+    const ids = this.ids;
+    const df = new Float64Array(FIELDS);
+    for (let i = 0; i < n; i++) if (ids[list[i] >>> SLOT_SHIFT] >= 0) df[(list[i] >>> FIELD_SHIFT) & 7]++;
+    const factor = new Float64Array(FIELDS);
+    const avg = new Float64Array(FIELDS);
+    for (let f = 0; f < FIELDS; f++) {
+      factor[f] = weight * BOOSTS[f] * Math.log(1 + (this.documentCount - df[f] + 0.5) / (df[f] + 0.5));
+      avg[f] = this.totalLength[f] / this.documentCount || 1;
+    }
+    let lastSlot = -1;
+    let lastOk = false;
+    for (let i = 0; i < n; i++) {
+      const e = list[i];
+      const slot = e >>> SLOT_SHIFT;
+      const id = ids[slot];
+      if (id < 0) continue;
+      if (slot !== lastSlot) {
+        lastSlot = slot;
+        lastOk = allow(id);
+      }
+      if (!lastOk) continue;
+      const f = (e >>> FIELD_SHIFT) & 7;
+      const tf = e & TF_MASK;
+      const score = factor[f] * (D + (tf * (K + 1)) / (tf + K * (1 - B + (B * this.fieldLength[f][slot]) / avg[f])));
+      out.set(id, (out.get(id) ?? 0) + score);
+    }
+  }
+
+  /** Drops dead postings; with `renumber`, also gives the live cases slots from 0 again. */
+  vacuum(renumber: boolean) {
+    const map = new Int32Array(this.slots).fill(-1);
+    let next = 0;
+    for (let s = 0; s < this.slots; s++) if (this.ids[s] >= 0) map[s] = renumber ? next++ : s;
+    for (let t = 0; t < this.lists.length; t++) {
+      const list = this.lists[t];
+      let w = 0;
+      for (let i = 0; i < this.used[t]; i++) {
+        const to = map[list[i] >>> SLOT_SHIFT];
+        if (to >= 0) list[w++] = (to << SLOT_SHIFT) | (list[i] & 0xff);
+      }
+      this.used[t] = w;
+    }
+    if (renumber) {
+      const ids = new Int32Array(this.ids.length).fill(-1);
+      const lengths = this.fieldLength.map((l) => new Uint16Array(l.length));
+      for (let s = 0; s < this.slots; s++) {
+        const to = map[s];
+        if (to < 0) continue;
+        ids[to] = this.ids[s];
+        for (let f = 0; f < FIELDS; f++) lengths[f][to] = this.fieldLength[f][s];
+        this.slotOf.set(this.ids[s], to);
+      }
+      this.ids = ids;
+      this.fieldLength = lengths;
+      this.slots = next;
+    }
+    this.dead = 0;
+  }
+
+  /** A JSON header and one buffer: ids, field lengths, list lengths, then every list. */
+  encode(): { header: CompactHeader; body: Buffer } {
+    const s = this.slots;
+    const parts: Uint8Array[] = [];
+    const view = (a: Int32Array | Uint32Array | Uint16Array) => new Uint8Array(a.buffer, a.byteOffset, a.byteLength);
+    parts.push(view(this.ids.subarray(0, s)));
+    for (let f = 0; f < FIELDS; f++) {
+      // pad the Uint16 runs to 4 bytes so the Uint32 sections stay aligned
+      const padded = new Uint16Array(s + (s & 1));
+      padded.set(this.fieldLength[f].subarray(0, s));
+      parts.push(view(padded));
+    }
+    parts.push(view(this.used.subarray(0, this.terms.length)));
+    for (let t = 0; t < this.terms.length; t++) parts.push(view(this.lists[t].subarray(0, this.used[t])));
+    return { header: { terms: this.terms, slots: s, documentCount: this.documentCount, totalLength: [...this.totalLength] }, body: Buffer.concat(parts) };
+  }
+
+  /** Restores `encode()`d arrays; the lists are views into `body` until a case is added to them. */
+  static decode(header: CompactHeader, body: Buffer): CompactEngine {
+    const e = new CompactEngine();
+    const s = header.slots;
+    if (body.byteOffset % 4 !== 0) body = Buffer.from(body);
+    let at = body.byteOffset;
+    const take32 = (n: number) => {
+      const a = new Uint32Array(body.buffer, at, n);
+      at += n * 4;
+      return a;
+    };
+    e.slots = s;
+    e.ids = new Int32Array(Math.max(1024, s));
+    e.ids.fill(-1);
+    e.ids.set(new Int32Array(body.buffer, at, s));
+    at += s * 4;
+    for (let f = 0; f < FIELDS; f++) {
+      e.fieldLength[f] = new Uint16Array(Math.max(1024, s));
+      e.fieldLength[f].set(new Uint16Array(body.buffer, at, s));
+      at += (s + (s & 1)) * 2;
+    }
+    e.terms = header.terms;
+    e.used = new Uint32Array(Math.max(1024, e.terms.length));
+    e.used.set(take32(e.terms.length));
+    e.lists = e.terms.map((term, t) => {
+      e.termIds.set(term, t);
+      e.dict.set(term, t);
+      return take32(e.used[t]);
+    });
+    for (let slot = 0; slot < s; slot++) if (e.ids[slot] >= 0) e.slotOf.set(e.ids[slot], slot);
+    e.dead = s - e.slotOf.size;
+    e.documentCount = header.documentCount;
+    e.totalLength = Float64Array.from(header.totalLength);
+    return e;
+  }
+
+  private push(t: number, entry: number) {
+    let list = this.lists[t];
+    const n = this.used[t];
+    if (n === list.length) this.lists[t] = list = copyInto(new Uint32Array(Math.max(4, Math.ceil(n * 1.5))), list);
+    list[n] = entry;
+    this.used[t] = n + 1;
+  }
+
+  private grow(slots: number) {
+    if (slots <= this.ids.length) return;
+    const size = Math.max(slots, this.ids.length * 2);
+    const ids = new Int32Array(size).fill(-1);
+    ids.set(this.ids);
+    this.ids = ids;
+    this.fieldLength = this.fieldLength.map((l) => copyInto(new Uint16Array(size), l));
+  }
+}
+
+function copyInto<T extends Uint32Array | Uint16Array>(to: T, from: T): T {
+  to.set(from);
+  return to;
+}

@@ -1,0 +1,80 @@
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import { SearchCore, type CoreOptions } from './search-core';
+
+const METHODS = ['size', 'restore', 'begin', 'add', 'finish', 'upsert', 'remove', 'rank', 'highlights', 'similar', 'save', 'close'] as const;
+type Method = (typeof METHODS)[number];
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type Fn = (...args: any[]) => any;
+
+/** SearchCore's calls, answered later: on a worker thread, or in process. */
+export type CoreClient = { [K in Method]: SearchCore[K] extends (...a: infer A) => infer R ? (...a: A) => Promise<R> : never } & {
+  /** The core itself when it runs in process (tests read the index directly). */
+  readonly local?: SearchCore;
+  terminate(): Promise<void>;
+};
+
+/** The core in this thread: for tests and tools, where one more thread buys nothing. */
+export function localCore(options: CoreOptions): CoreClient {
+  const core = new SearchCore(options);
+  const client = { local: core, terminate: async () => core.close() } as Record<string, unknown>;
+  for (const m of METHODS) client[m] = async (...args: unknown[]) => (core[m] as Fn).apply(core, args);
+  return client as unknown as CoreClient;
+}
+
+/** Where the worker's code is: beside the bundle in production, else its TypeScript source through tsx. */
+function workerEntry(): { file: URL; workerData: Record<string, unknown> } {
+  const bundled = new URL('./search-worker.mjs', import.meta.url);
+  if (existsSync(fileURLToPath(bundled))) return { file: bundled, workerData: {} };
+  return { file: new URL('./worker-boot.mjs', import.meta.url), workerData: { entry: new URL('./search-worker.ts', import.meta.url).href } };
+}
+
+/**
+ * The core on one long-lived worker thread. Calls are answered in order; if the worker dies,
+ * every call in flight and every later one fails with `onExit`'s error until the owner opens
+ * a new one.
+ */
+export function workerCore(options: CoreOptions, onExit: (err: Error) => void): CoreClient {
+  const { file, workerData } = workerEntry();
+  const worker = new Worker(file, { workerData: { ...workerData, options } });
+  const pending = new Map<number, { resolve: (v: unknown) => void; reject: (e: Error) => void }>();
+  let next = 1;
+  let dead: Error | undefined;
+  worker.on('message', (m: { id: number; result?: unknown; error?: string }) => {
+    const p = pending.get(m.id);
+    if (!p) return;
+    pending.delete(m.id);
+    if (m.error !== undefined) p.reject(new Error(m.error));
+    else p.resolve(m.result);
+  });
+  const die = (err: Error) => {
+    if (dead) return;
+    dead = err;
+    for (const p of pending.values()) p.reject(err);
+    pending.clear();
+    onExit(err);
+  };
+  worker.on('error', (err) => die(err));
+  worker.on('exit', (code) => die(new Error(`the search worker stopped (exit code ${code})`)));
+  // the worker must not keep the process alive on its own
+  worker.unref();
+
+  const call = (op: Method, args: unknown[]) =>
+    new Promise((resolve, reject) => {
+      if (dead) return reject(dead);
+      const id = next++;
+      pending.set(id, { resolve, reject });
+      worker.postMessage({ id, op, args });
+    });
+  const client = {
+    async terminate() {
+      if (dead) return;
+      await call('close', []).catch(() => undefined);
+      dead = new Error('the search worker was closed');
+      await worker.terminate();
+    },
+  } as Record<string, unknown>;
+  for (const m of METHODS) client[m] = (...args: unknown[]) => call(m, args);
+  return client as unknown as CoreClient;
+}

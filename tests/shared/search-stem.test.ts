@@ -1,0 +1,26 @@
+import { describe, expect, it } from 'vitest';
+import { stem } from '../../shared/search/stem';
+import { indexTerms } from '../../shared/search/text-terms';
+
+// source: English grammar, principal parts of irregular verbs (ring–rang–rung, fall–fell–fallen, rise–rose–risen)
+describe('stemmer: irregular verb forms', () => {
+  it.each([
+    ['ring', ['ring', 'rings', 'ringing', 'rang', 'rung']],
+    ['fall', ['fall', 'falls', 'falling', 'fell', 'fallen']],
+    ['rise', ['rise', 'rises', 'rising', 'rose', 'risen']],
+    ['clip', ['clip', 'clips', 'clipping', 'clipped']],
+    ['drive', ['drive', 'drives', 'driving', 'drove', 'driven']],
+  ])('should bring every form of "%s" to one term', (base, forms) => {
+    for (const f of forms) expect(stem(f), f).toBe(stem(base));
+  });
+
+  it('should leave trade nouns that look like past forms alone', () => {
+    // "led" is the diode, not a form of "lead"
+    expect(stem('led')).toBe('led');
+    expect(stem('left')).toBe('left');
+  });
+
+  it('should index a sentence in the past tense with the terms of the present', () => {
+    expect(indexTerms('The output rang and the rail fell')).toEqual(indexTerms('The output rings and the rail falls'));
+  });
+});

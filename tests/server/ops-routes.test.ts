@@ -96,10 +96,18 @@ describe('Prometheus metrics at /metrics', () => {
   });
 
   it('should leave the lag out when the index does not report one', async () => {
-    const app = createApp({ db: ctx.db, mailer: ctx.mailer, mail: ctx.mail, config: { ...ctx.config, metricsToken: TOKEN }, search: ctx.search });
+    // the same index, seen through an object that does not report its lag
+    const silent = Object.assign(Object.create(ctx.search!), { lagSeconds: undefined });
+    const app = createApp({ db: ctx.db, mailer: ctx.mailer, mail: ctx.mail, config: { ...ctx.config, metricsToken: TOKEN }, search: silent });
     const res = await request(app).get('/metrics').set('Authorization', `Bearer ${TOKEN}`).expect(200);
     expect(res.text).toMatch(/# TYPE falsetrace_search_index_lag_seconds gauge/);
     expect(res.text).not.toMatch(/^falsetrace_search_index_lag_seconds\{/m);
+  });
+
+  it('should report the index lag the search index gives', async () => {
+    const app = createApp({ db: ctx.db, mailer: ctx.mailer, mail: ctx.mail, config: { ...ctx.config, metricsToken: TOKEN }, search: ctx.search });
+    const res = await request(app).get('/metrics').set('Authorization', `Bearer ${TOKEN}`).expect(200);
+    expect(res.text).toMatch(/^falsetrace_search_index_lag_seconds\{index="cases"\} \d/m);
   });
 });
 

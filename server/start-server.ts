@@ -7,7 +7,7 @@ import { sweepUploads } from './backup/upload-sweep';
 import { zipWorkers } from './casebook/zip-pool';
 import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
-import { openDatabase } from './db/database';
+import { openAppDatabase } from './db/database';
 import { migrateToLatest } from './db/migrate';
 import { countUsers } from './db/repositories/users';
 import { startLocalSmtpFake } from './mail/local-smtp-fake';
@@ -24,7 +24,7 @@ export const CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.ur
 export async function startServer(config: Config) {
   // tells `npm run restore` that this folder is in use
   const release = claimDataDir(config.dataDir);
-  const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
+  const db = openAppDatabase(config);
   await migrateToLatest(db);
   const swept = await sweepUploads(db, config.dataDir);
   if (swept.partial || swept.orphaned) {

@@ -5,6 +5,7 @@ import path from 'node:path';
 import type { Writable } from 'node:stream';
 import SQLite from 'better-sqlite3';
 import { sqliteOf, type Db } from '../db/database';
+import { isPostgres } from '../db/dialect';
 import { zipWriter, type WrittenEntry } from './zip-stream';
 
 export const BACKUP_FORMAT = 'falsetrace-backup';
@@ -12,6 +13,13 @@ export const BACKUP_VERSION = 1;
 export const MANIFEST_NAME = 'falsetrace-backup.json';
 export const DATABASE_NAME = 'falsetrace.sqlite';
 export const SECRET_NAME = 'session-secret';
+/** Why there is no online backup on PostgreSQL, and what to do instead (README: Running for a larger team). */
+export const POSTGRES_BACKUP_REFUSAL =
+  'The built-in backup copies the SQLite database; this server runs on PostgreSQL (DATABASE_URL). Back up with pg_dump (pg_dump --format=custom "$DATABASE_URL" > falsetrace.dump) and copy the uploads directory beside it.';
+
+/** The built-in backup is SQLite's online backup API; null when it can run on this database. */
+export const backupRefusal = (db: Db): string | null => (isPostgres(db) ? POSTGRES_BACKUP_REFUSAL : null);
+
 /** Uploads in progress (multer's partial files) are not part of the state. */
 const SKIP_UPLOAD_DIRS = new Set(['incoming']);
 
@@ -64,6 +72,8 @@ async function snapshot(db: Db, dataDir: string, workDir: string) {
  * held in memory whole.
  */
 export async function writeBackup(db: Db, dataDir: string, out: Writable, now = new Date()): Promise<BackupManifest> {
+  const refusal = backupRefusal(db);
+  if (refusal) throw new Error(refusal);
   const workDir = await mkdtemp(path.join(tmpdir(), 'falsetrace-backup-'));
   try {
     const { copy, uploads, migrations } = await snapshot(db, dataDir, workDir);

@@ -2,10 +2,11 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
+import { inject } from 'vitest';
 import type { Role } from '../../../shared/auth/roles';
 import { createApp } from '../../../server/app';
 import type { Config } from '../../../server/config';
-import { openDatabase, type Db } from '../../../server/db/database';
+import { openDatabase, openPostgres, type Db } from '../../../server/db/database';
 import { migrateToLatest } from '../../../server/db/migrate';
 import { listOutboxMessages } from '../../../server/db/repositories/outbox';
 import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
@@ -14,6 +15,17 @@ import { resolvePasswordResetRequests } from '../../../server/services/auth';
 import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { openCaseSearch, type CaseSearch } from '../../../server/search/case-search';
 import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
+import { createPostgresDatabase } from '../../helpers/postgres';
+
+/** Set by the api-pg project: every test context gets a fresh database on the throwaway PostgreSQL cluster. */
+export const ON_POSTGRES = process.env.FALSETRACE_TEST_DB === 'postgres';
+
+/** A fresh database for one test context: in memory (or a file in `dataDir`) on SQLite, a new database on PostgreSQL. */
+export async function openTestDatabase(dataDir: string, onDisk = false): Promise<{ db: Db; drop(): Promise<void> }> {
+  if (!ON_POSTGRES) return { db: openDatabase(onDisk ? path.join(dataDir, 'falsetrace.sqlite') : ':memory:'), drop: async () => {} };
+  const created = await createPostgresDatabase(inject('postgresAdminUrl'));
+  return { db: openPostgres(created.url, { max: 4 }), drop: created.drop };
+}
 
 export const DEMO_PASSWORD = 'demo-probe-2026';
 export const demoEmail = (role: Role) => DEMO_ACCOUNTS.find((a) => a.role === role)!.email;
@@ -39,10 +51,10 @@ export interface TestContextOptions {
   trustProxy?: Config['trustProxy'];
 }
 
-/** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
+/** A fresh world per suite: in-memory database (or a fresh PostgreSQL one, see ON_POSTGRES), migrations, demo users, a real SMTP fake. */
 export async function createTestContext(options: TestContextOptions = {}): Promise<TestContext> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-test-'));
-  const db = openDatabase(options.onDisk ? path.join(dataDir, 'falsetrace.sqlite') : ':memory:');
+  const { db, drop } = await openTestDatabase(dataDir, options.onDisk);
   await migrateToLatest(db);
   await seedDemoUsers(db, DEMO_PASSWORD);
   const fake = await startLocalSmtpFake(db);
@@ -77,6 +89,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
       mailer.close();
       await fake.close();
       await db.destroy();
+      await drop();
       rmSync(config.dataDir, { recursive: true, force: true });
     },
   };

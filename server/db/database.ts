@@ -149,6 +149,9 @@ export interface MailQueueTable {
   last_error: string | null;
   sent_at: string | null;
   created_at: string;
+  /** The sender holding the mail while it talks to SMTP (migration 0011); null: nobody. */
+  claimed_by: Generated<string | null>;
+  claimed_at: Generated<string | null>;
 }
 
 /** A reset asked for an address not yet looked up (the background sender resolves and deletes it). */

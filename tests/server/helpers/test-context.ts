@@ -30,6 +30,16 @@ export async function openTestDatabase(dataDir: string, onDisk = false): Promise
 export const DEMO_PASSWORD = 'demo-probe-2026';
 export const demoEmail = (role: Role) => DEMO_ACCOUNTS.find((a) => a.role === role)!.email;
 
+/**
+ * One database several "instances" open at once (each `open()` is its own connection or pool):
+ * a SQLite file in `dataDir`, or a fresh PostgreSQL database.
+ */
+export async function openSharedTestDatabase(dataDir: string): Promise<{ open(): Db; drop(): Promise<void> }> {
+  if (!ON_POSTGRES) return { open: () => openDatabase(path.join(dataDir, 'falsetrace.sqlite')), drop: async () => {} };
+  const created = await createPostgresDatabase(inject('postgresAdminUrl'));
+  return { open: () => openPostgres(created.url, { max: 4 }), drop: created.drop };
+}
+
 export interface TestContext {
   app: ReturnType<typeof createApp>;
   db: Db;

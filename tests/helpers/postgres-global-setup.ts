@@ -12,5 +12,7 @@ declare module 'vitest' {
 export default async function setup(project: TestProject) {
   const cluster = await startPostgresCluster();
   project.provide('postgresAdminUrl', cluster.adminUrl);
+  // an interrupted run (Ctrl-C) skips the teardown; stop is synchronous, so it can run at exit
+  process.once('exit', () => cluster.stop());
   return () => cluster.stop();
 }

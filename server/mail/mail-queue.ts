@@ -1,8 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
+import type { Selectable } from 'kysely';
 import type { Db, MailQueueTable } from '../db/database';
 import { claimNextMail, insertQueuedMail, markMailFailed, markMailSent } from '../db/repositories/mail-queue';
-import type { Selectable } from 'kysely';
 import type { MailMessage, Mailer } from './mailer';
 
 /** Backoff after the n-th failed attempt: 30 s, 1 min, 2 min … capped at 1 h. */

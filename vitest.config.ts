@@ -1,4 +1,25 @@
 import { defineConfig } from 'vitest/config';
+import { findPostgresBin, POSTGRES_MISSING } from './tests/helpers/postgres';
+
+// The API suite runs a second time on PostgreSQL (a throwaway cluster, tests/helpers/postgres.ts).
+// Without the server binaries that project is left out, loudly; in CI their absence is a failure.
+const postgresHere = findPostgresBin() !== null;
+if (!postgresHere && !process.env.CI) console.warn(`[vitest] project api-pg skipped: ${POSTGRES_MISSING}`);
+const postgresProjects =
+  postgresHere || process.env.CI
+    ? [
+        {
+          extends: true as const,
+          test: {
+            name: 'api-pg',
+            include: ['tests/server/**/*.test.ts'],
+            testTimeout: 90_000,
+            env: { FALSETRACE_TEST_DB: 'postgres' },
+            globalSetup: ['tests/helpers/postgres-global-setup.ts'],
+          },
+        },
+      ]
+    : [];
 
 export default defineConfig({
   test: {
@@ -8,6 +29,7 @@ export default defineConfig({
     // e2e suites each start a server and a browser; 2 cores cannot run many at once
     maxWorkers: 2,
     projects: [
+      ...postgresProjects,
       // generous: a loaded 2-core machine runs the heavier API tests (imports, crash runs) near 30 s
       { extends: true, test: { name: 'unit', include: ['tests/shared/**/*.test.ts', 'tests/server/**/*.test.ts', 'tests/client/**/*.test.ts'], testTimeout: 90_000 } },
       {

@@ -1,9 +1,10 @@
 import { Kysely, sql } from 'kysely';
+import { autoId, isPostgres } from '../server/db/dialect';
 
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.schema
     .createTable('users')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('email', 'text', (c) => c.notNull().unique())
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('role', 'text', (c) => c.notNull().check(sql`role in ('engineer','moderator','admin')`))
@@ -18,7 +19,8 @@ export async function up(db: Kysely<unknown>): Promise<void> {
     .addColumn('sid', 'text', (c) => c.primaryKey())
     .addColumn('data', 'text', (c) => c.notNull())
     .addColumn('user_id', 'integer', (c) => c.references('users.id').onDelete('cascade'))
-    .addColumn('expires_at', 'integer', (c) => c.notNull())
+    // milliseconds since 1970: SQLite's integer holds 64 bits, PostgreSQL's only 32, so bigint there
+    .addColumn('expires_at', isPostgres(db) ? 'bigint' : 'integer', (c) => c.notNull())
     .execute();
   await db.schema.createIndex('sessions_user_id').on('sessions').column('user_id').execute();
   await db.schema.createIndex('sessions_expires_at').on('sessions').column('expires_at').execute();
@@ -26,7 +28,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
   // One table for every single-use mailed link; only a hash of the token is kept.
   await db.schema
     .createTable('auth_tokens')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('kind', 'text', (c) => c.notNull().check(sql`kind in ('invitation','password_reset')`))
     .addColumn('token_hash', 'text', (c) => c.notNull().unique())
     .addColumn('email', 'text', (c) => c.notNull())
@@ -41,7 +43,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
   // Mails caught by the built-in local SMTP fake.
   await db.schema
     .createTable('outbox_messages')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('to_addr', 'text', (c) => c.notNull())
     .addColumn('from_addr', 'text', (c) => c.notNull())
     .addColumn('subject', 'text', (c) => c.notNull())

@@ -1,9 +1,10 @@
 import { Kysely, sql } from 'kysely';
+import { autoId } from '../server/db/dialect';
 
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.schema
     .createTable('cases')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('author_id', 'integer', (c) => c.notNull().references('users.id'))
     .addColumn('title', 'text', (c) => c.notNull())
     .addColumn('summary', 'text', (c) => c.notNull())
@@ -46,7 +47,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
 
   await db.schema
     .createTable('attachments')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('case_id', 'integer', (c) => c.notNull().references('cases.id').onDelete('cascade'))
     .addColumn('uploaded_by', 'integer', (c) => c.references('users.id').onDelete('set null'))
     .addColumn('kind', 'text', (c) => c.notNull().check(sql`kind in ('screenshot','capture')`))
@@ -64,7 +65,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
 
   await db.schema
     .createTable('case_revisions')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('case_id', 'integer', (c) => c.notNull().references('cases.id').onDelete('cascade'))
     .addColumn('number', 'integer', (c) => c.notNull())
     .addColumn('author_id', 'integer', (c) => c.references('users.id').onDelete('set null'))
@@ -75,7 +76,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
 
   await db.schema
     .createTable('comments')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('case_id', 'integer', (c) => c.notNull().references('cases.id').onDelete('cascade'))
     .addColumn('author_id', 'integer', (c) => c.notNull().references('users.id'))
     .addColumn('body', 'text', (c) => c.notNull())

@@ -1,9 +1,10 @@
 import { Kysely, sql } from 'kysely';
+import { autoId } from '../server/db/dialect';
 
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.schema
     .createTable('audit_log')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('case_id', 'integer', (c) => c.references('cases.id').onDelete('cascade'))
     .addColumn('actor_id', 'integer', (c) => c.references('users.id').onDelete('set null'))
     .addColumn('action', 'text', (c) => c.notNull())
@@ -17,7 +18,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
   // Every mail waits here until the SMTP server has taken it; failures are retried with backoff.
   await db.schema
     .createTable('mail_queue')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('to_addr', 'text', (c) => c.notNull())
     .addColumn('subject', 'text', (c) => c.notNull())
     .addColumn('text', 'text', (c) => c.notNull())
@@ -32,7 +33,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
 
   await db.schema
     .createTable('watches')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('user_id', 'integer', (c) => c.notNull().references('users.id').onDelete('cascade'))
     .addColumn('case_id', 'integer', (c) => c.references('cases.id').onDelete('cascade'))
     .addColumn('tag', 'text')
@@ -53,7 +54,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
   // Notifications a user chose to get once a day instead of at once.
   await db.schema
     .createTable('digest_items')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('user_id', 'integer', (c) => c.notNull().references('users.id').onDelete('cascade'))
     .addColumn('kind', 'text', (c) => c.notNull())
     .addColumn('case_id', 'integer', (c) => c.references('cases.id').onDelete('cascade'))

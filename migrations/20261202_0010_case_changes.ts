@@ -1,4 +1,5 @@
-import { PostgresAdapter, type Kysely } from 'kysely';
+import type { Kysely } from 'kysely';
+import { autoId } from '../server/db/dialect';
 
 /**
  * The change log search indexes follow: a row whenever a case's searchable content or who may
@@ -6,11 +7,9 @@ import { PostgresAdapter, type Kysely } from 'kysely';
  * database stay in step without talking to each other. Rows older than a day are pruned.
  */
 export async function up(db: Kysely<unknown>): Promise<void> {
-  // an auto-numbered key is spelt differently: SQLite's INTEGER PRIMARY KEY AUTOINCREMENT, PostgreSQL's serial
-  const postgres = db.getExecutor().adapter instanceof PostgresAdapter;
   await db.schema
     .createTable('case_changes')
-    .addColumn('id', postgres ? 'serial' : 'integer', (c) => (postgres ? c.primaryKey() : c.primaryKey().autoIncrement()))
+    .addColumn('id', 'integer', autoId(db))
     // no foreign key: the row must outlive a deleted case, so other instances learn of the delete
     .addColumn('case_id', 'integer')
     .addColumn('changed_at', 'text', (c) => c.notNull())

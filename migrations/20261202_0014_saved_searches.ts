@@ -1,10 +1,11 @@
 import { Kysely, sql } from 'kysely';
+import { autoId } from '../server/db/dialect';
 
 // A Bench symptom search someone asked to be told about: checked against each newly verified case.
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.schema
     .createTable('saved_searches')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('user_id', 'integer', (c) => c.notNull().references('users.id').onDelete('cascade'))
     .addColumn('name', 'text', (c) => c.notNull())
     // the words as typed and the facets (cause, tag), as JSON

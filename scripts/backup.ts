@@ -1,7 +1,7 @@
 import { createWriteStream, existsSync } from 'node:fs';
 import { rename, rm } from 'node:fs/promises';
 import path from 'node:path';
-import { DATABASE_NAME, writeBackup } from '../server/backup/backup';
+import { DATABASE_NAME, POSTGRES_BACKUP_REFUSAL, writeBackup } from '../server/backup/backup';
 import { openDatabase } from '../server/db/database';
 
 // npm run backup -- FILE     (DATA_DIR and UPLOADS_DIR as for the server; safe while the server runs)
@@ -9,6 +9,10 @@ const target = process.argv[2];
 if (!target) {
   console.error('Usage: npm run backup -- FILE.zip   (backs up DATA_DIR, default ./data)');
   process.exit(2);
+}
+if (process.env.DATABASE_URL?.trim()) {
+  console.error(`backup refused: ${POSTGRES_BACKUP_REFUSAL}`);
+  process.exit(1);
 }
 const dataDir = path.resolve(process.env.DATA_DIR ?? './data');
 const dbFile = path.join(dataDir, DATABASE_NAME);

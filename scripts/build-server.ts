@@ -6,7 +6,8 @@ import { build } from 'esbuild';
 // npm run build:server → dist-server/: the server as plain JavaScript for `node dist-server/index.mjs`,
 // so production runs without tsx or npm between the process manager's signals and the server.
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
-const out = path.join(root, 'dist-server');
+// BUILD_SERVER_OUT: another folder beside dist-server (tests that build while another build runs)
+const out = path.join(root, process.env.BUILD_SERVER_OUT ?? 'dist-server');
 rmSync(out, { recursive: true, force: true });
 mkdirSync(path.join(out, 'migrations'), { recursive: true });
 

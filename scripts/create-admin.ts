@@ -1,9 +1,8 @@
-import path from 'node:path';
 import { createInterface } from 'node:readline';
 import { Writable } from 'node:stream';
 import { newPasswordSchema } from '../shared/schemas/auth';
 import { loadConfig } from '../server/config';
-import { openDatabase } from '../server/db/database';
+import { openAppDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrate';
 import { createAdmin } from '../server/services/first-admin';
 
@@ -45,7 +44,7 @@ if (!parsed.success) {
 }
 
 const config = loadConfig();
-const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
+const db = openAppDatabase(config);
 try {
   await migrateToLatest(db);
   const user = await createAdmin(db, { email, name, password: parsed.data });

@@ -1,6 +1,5 @@
-import path from 'node:path';
 import { loadConfig } from '../server/config';
-import { openDatabase } from '../server/db/database';
+import { openAppDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrate';
 import { startLocalSmtpFake } from '../server/mail/local-smtp-fake';
 import { createMailQueue } from '../server/mail/mail-queue';
@@ -9,7 +8,7 @@ import { sendDigests } from '../server/services/digest';
 
 // npm run digest: sends today's digest now (safe to repeat: nobody gets a lesson twice)
 const config = loadConfig();
-const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
+const db = openAppDatabase(config);
 await migrateToLatest(db);
 const fake = config.smtpUrl ? undefined : await startLocalSmtpFake(db);
 const mailer = createMailer(config.smtpUrl ?? `smtp://127.0.0.1:${fake!.port}?ignoreTLS=true`, !config.smtpUrl);

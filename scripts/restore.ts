@@ -7,6 +7,10 @@ if (!archive || !process.env.DATA_DIR) {
   console.error('Usage: DATA_DIR=/path/to/data npm run restore -- BACKUP.zip   (stop the server first)');
   process.exit(2);
 }
+if (process.env.DATABASE_URL?.trim()) {
+  console.error('restore refused: this restores the SQLite database of a built-in backup; with DATABASE_URL set, restore PostgreSQL with pg_restore and copy the uploads directory back instead');
+  process.exit(1);
+}
 const dataDir = path.resolve(process.env.DATA_DIR);
 const uploadsDir = process.env.UPLOADS_DIR?.trim() ? path.resolve(process.env.UPLOADS_DIR.trim()) : undefined;
 try {

@@ -1,6 +1,5 @@
-import path from 'node:path';
 import { loadConfig } from '../server/config';
-import { openDatabase } from '../server/db/database';
+import { openAppDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrate';
 import { countUsers } from '../server/db/repositories/users';
 import { createMailQueue } from '../server/mail/mail-queue';
@@ -9,7 +8,7 @@ import { seedDemoCasebook } from '../server/seed/demo/seed-casebook';
 
 // DATA_DIR=/tmp/demo npm run seed:demo → a fresh DATA_DIR holding the demo casebook
 const config = loadConfig();
-const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
+const db = openAppDatabase(config);
 await migrateToLatest(db);
 if ((await countUsers(db)) > 0) {
   console.error(`${config.dataDir} already holds a casebook with people in it; seed:demo only fills a fresh DATA_DIR.`);

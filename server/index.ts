@@ -9,7 +9,10 @@ const graceMs = Number(process.env.SHUTDOWN_GRACE_MS ?? 20_000);
 if (!Number.isFinite(graceMs) || graceMs < 0) throw new Error(`SHUTDOWN_GRACE_MS must be a number of milliseconds, got "${process.env.SHUTDOWN_GRACE_MS}"`);
 const { close, server } = await startServer(config);
 const { port } = server.address() as AddressInfo;
-logger.info({ port }, `listening on http://localhost:${port} (data in ${config.dataDir}${config.smtpUrl ? '' : ', mail to the local fake'})`);
+// host and database name only: the address may carry a password
+const pgAddress = config.databaseUrl ? new URL(config.databaseUrl) : undefined;
+const database = pgAddress ? `, PostgreSQL at ${pgAddress.host}${pgAddress.pathname}` : '';
+logger.info({ port }, `listening on http://localhost:${port} (data in ${config.dataDir}${database}${config.smtpUrl ? '' : ', mail to the local fake'})`);
 
 let closing = false;
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {

@@ -8,7 +8,7 @@ import { sweepUploads } from './backup/upload-sweep';
 import { zipWorkers } from './casebook/zip-pool';
 import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
-import { openDatabase } from './db/database';
+import { openAppDatabase } from './db/database';
 import { migrateToLatest } from './db/migrate';
 import { countUsers } from './db/repositories/users';
 import { startLocalSmtpFake } from './mail/local-smtp-fake';
@@ -25,7 +25,7 @@ export const CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.ur
 export async function startServer(config: Config) {
   // tells `npm run restore` that this folder is in use
   const release = claimDataDir(config.dataDir);
-  const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
+  const db = openAppDatabase(config);
   await migrateToLatest(db);
   // a shared UPLOADS_DIR holds other instances' uploads in progress: only an hour-old leftover is a crash's
   const swept = await sweepUploads(db, { dataDir: config.dataDir, uploadsDir: config.uploadsDir }, { minAgeMs: config.uploadsDir ? 60 * 60 * 1000 : 0 });

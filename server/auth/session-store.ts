@@ -14,7 +14,7 @@ const userIdOf = (sess: session.SessionData) => {
   return typeof id === 'number' ? id : null;
 };
 
-/** express-session store on the app's own SQLite database (sessions survive restarts). */
+/** express-session store on the app's own database, SQLite or PostgreSQL (sessions survive restarts and are shared by every instance). */
 export class SqliteSessionStore extends session.Store {
   private sweeper: NodeJS.Timeout;
 

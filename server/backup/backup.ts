@@ -7,6 +7,7 @@ import SQLite from 'better-sqlite3';
 import { isPartialName } from '../atomic-file';
 import { sqliteOf, type Db } from '../db/database';
 import type { UploadDirs } from './upload-sweep';
+import { isPostgres } from '../db/dialect';
 import { zipWriter, type WrittenEntry } from './zip-stream';
 
 export const BACKUP_FORMAT = 'falsetrace-backup';
@@ -14,6 +15,13 @@ export const BACKUP_VERSION = 1;
 export const MANIFEST_NAME = 'falsetrace-backup.json';
 export const DATABASE_NAME = 'falsetrace.sqlite';
 export const SECRET_NAME = 'session-secret';
+/** Why there is no online backup on PostgreSQL, and what to do instead (README: Running for a larger team). */
+export const POSTGRES_BACKUP_REFUSAL =
+  'The built-in backup copies the SQLite database; this server runs on PostgreSQL (DATABASE_URL). Back up with pg_dump (pg_dump --format=custom "$DATABASE_URL" > falsetrace.dump) and copy the uploads directory beside it.';
+
+/** The built-in backup is SQLite's online backup API; null when it can run on this database. */
+export const backupRefusal = (db: Db): string | null => (isPostgres(db) ? POSTGRES_BACKUP_REFUSAL : null);
+
 /** Uploads in progress (multer's partial files) are not part of the state. */
 const SKIP_UPLOAD_DIRS = new Set(['incoming']);
 
@@ -72,6 +80,8 @@ export async function writeBackup(db: Db, where: string | UploadDirs, out: Writa
   const dirs = typeof where === 'string' ? { dataDir: where } : where;
   const dataDir = dirs.dataDir;
   const uploadsDir = uploadsOf(dirs);
+  const refusal = backupRefusal(db);
+  if (refusal) throw new Error(refusal);
   const workDir = await mkdtemp(path.join(tmpdir(), 'falsetrace-backup-'));
   try {
     const { copy, uploads, migrations } = await snapshot(db, uploadsDir, workDir);

@@ -1,5 +1,7 @@
+import path from 'node:path';
 import SQLite from 'better-sqlite3';
-import { Kysely, SqliteDialect, type Generated } from 'kysely';
+import { Kysely, PostgresDialect, SqliteDialect, type Generated } from 'kysely';
+import pg from 'pg';
 import type { Role } from '../../shared/auth/roles';
 import type { CaseStatus } from '../../shared/schemas/case';
 
@@ -147,6 +149,9 @@ export interface MailQueueTable {
   last_error: string | null;
   sent_at: string | null;
   created_at: string;
+  /** The sender holding the mail while it talks to SMTP (migration 0011); null: nobody. */
+  claimed_by: Generated<string | null>;
+  claimed_at: Generated<string | null>;
 }
 
 /** A reset asked for an address not yet looked up (the background sender resolves and deletes it). */
@@ -263,9 +268,9 @@ export interface Database {
 
 export type Db = Kysely<Database>;
 
-/** Opens (or creates) the SQLite file; ':memory:' for tests. WAL and foreign keys on. */
 const connections = new WeakMap<Db, SQLite.Database>();
 
+/** Opens (or creates) the SQLite file; ':memory:' for tests. WAL and foreign keys on. */
 export function openDatabase(file: string): Db {
   const sqlite = new SQLite(file);
   sqlite.pragma('journal_mode = WAL');
@@ -281,4 +286,29 @@ export function sqliteOf(db: Db): SQLite.Database {
   const sqlite = connections.get(db);
   if (!sqlite) throw new Error('This database was not opened with openDatabase');
   return sqlite;
+}
+
+// pg hands back int8 (count(*), sum of integers) and numeric as strings, since they may not fit a
+// JavaScript number; our counts and sums always do, and SQLite gives numbers, so parse them here.
+const INT8_OID = 20;
+const NUMERIC_OID = 1700;
+const pgTypes = {
+  getTypeParser: ((oid: number, format?: 'text' | 'binary') => {
+    if (oid === INT8_OID) return (v: string) => Number.parseInt(v, 10);
+    if (oid === NUMERIC_OID) return (v: string) => Number.parseFloat(v);
+    return pg.types.getTypeParser(oid, format);
+  }) as typeof pg.types.getTypeParser,
+};
+
+/** A PostgreSQL database through a connection pool (DATABASE_URL=postgres://…). */
+export function openPostgres(connectionString: string, options: { max?: number } = {}): Db {
+  const pool = new pg.Pool({ connectionString, max: options.max ?? 10, types: pgTypes });
+  // an idle client losing its connection (server restart) must not crash the process; the pool replaces it
+  pool.on('error', (err) => console.error('[falsetrace] PostgreSQL connection lost:', err.message));
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+}
+
+/** The configured database: PostgreSQL when DATABASE_URL is set, else the SQLite file in DATA_DIR. */
+export function openAppDatabase(config: { databaseUrl?: string; dataDir: string }): Db {
+  return config.databaseUrl ? openPostgres(config.databaseUrl) : openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
 }

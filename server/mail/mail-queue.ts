@@ -1,5 +1,8 @@
-import type { Db } from '../db/database';
-import { dueMails, findQueuedMail, insertQueuedMail, markMailFailed, markMailSent } from '../db/repositories/mail-queue';
+import { randomBytes } from 'node:crypto';
+import { hostname } from 'node:os';
+import type { Selectable } from 'kysely';
+import type { Db, MailQueueTable } from '../db/database';
+import { claimNextMail, insertQueuedMail, markMailFailed, markMailSent } from '../db/repositories/mail-queue';
 import { logger } from '../logger';
 import type { MailMessage, Mailer } from './mailer';
 
@@ -33,15 +36,28 @@ export interface BackgroundMailQueue extends MailQueue {
 export interface MailQueueOptions {
   /** Work that turns requests into mails (password resets), run at the start of every sweep. */
   prepare?: (queue: MailQueue) => Promise<unknown>;
+  /** Who claims mails (several instances share one queue); default host, process and a random part. */
+  claimer?: string;
+  /**
+   * A claim older than this is taken over: its sender died between claiming and sending. Far
+   * above one SMTP exchange (the mailer's timeouts are seconds), so a live sender keeps its mail.
+   */
+  claimTimeoutMs?: number;
 }
+
+/** Mails one sweep sends at most; the rest wait for the next sweep (every 15 s, or a wake). */
+const SWEEP_LIMIT = 20;
+export const DEFAULT_CLAIM_TIMEOUT_MS = 10 * 60 * 1000;
 
 export function createMailQueue(db: Db, mailer: Mailer, options: MailQueueOptions = {}): BackgroundMailQueue {
   let timer: NodeJS.Timeout | undefined;
   let running: Promise<number> | undefined;
+  const claimer = options.claimer ?? `${hostname()}:${process.pid}:${randomBytes(4).toString('hex')}`;
+  const claimTimeoutMs = options.claimTimeoutMs ?? DEFAULT_CLAIM_TIMEOUT_MS;
 
-  async function attempt(id: number, now: Date): Promise<boolean> {
-    const row = await findQueuedMail(db, id);
-    if (!row || row.sent_at) return false;
+  /** Sends one claimed mail; a failure puts it back (unclaimed) for a later retry. */
+  async function attempt(row: Selectable<MailQueueTable>, now: Date): Promise<boolean> {
+    const id = row.id;
     try {
       await mailer.send({ to: row.to_addr, subject: row.subject, text: row.text, html: row.html });
       await markMailSent(db, id, new Date().toISOString());
@@ -76,7 +92,14 @@ export function createMailQueue(db: Db, mailer: Mailer, options: MailQueueOption
       await options.prepare?.(queue).catch((err) => logger.error({ err }, 'preparing mails failed'));
       // what prepare just queued is due too
       const due = new Date(Math.max(now.getTime(), Date.now()));
-      for (const row of await dueMails(db, due.toISOString())) if (await attempt(row.id, now)) sent++;
+      // claimed one by one: another instance sweeping at the same time takes the other rows
+      for (let n = 0; n < SWEEP_LIMIT; n++) {
+        // the claim's age is real time, whatever `now` a caller passes to make retries due
+        const claimedAt = Date.now();
+        const row = await claimNextMail(db, claimer, due.toISOString(), new Date(claimedAt - claimTimeoutMs).toISOString(), new Date(claimedAt).toISOString());
+        if (!row) break;
+        if (await attempt(row, now)) sent++;
+      }
       return sent;
     })().finally(() => (running = undefined));
     return running;

@@ -1,6 +1,7 @@
 import { Router } from 'express';
-import { backupFileName, writeBackup } from '../backup/backup';
+import { backupFileName, backupRefusal, writeBackup } from '../backup/backup';
 import type { AppDeps } from '../deps';
+import { AppError } from '../errors';
 import { requireRole } from '../middleware/require-auth';
 
 /**
@@ -11,6 +12,8 @@ export function backupRoutes(deps: AppDeps) {
   const r = Router();
   r.use(requireRole('admin'));
   r.get('/', async (req, res) => {
+    const refusal = backupRefusal(deps.db);
+    if (refusal) throw new AppError('conflict', refusal);
     res.setHeader('Content-Type', 'application/zip');
     res.setHeader('Content-Disposition', `attachment; filename="${backupFileName()}"`);
     res.setHeader('Cache-Control', 'no-store');

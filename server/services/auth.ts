@@ -77,7 +77,8 @@ export async function resolvePasswordResetRequests({ db, config, mail }: Pick<Ap
   for (const request of await pendingResetRequests(db)) {
     const user = await findUserByEmail(db, request.email);
     await db.transaction().execute(async (trx) => {
-      await deleteResetRequest(trx, request.id);
+      // the delete is the claim: another instance sweeping at the same time gets false and mails nothing
+      if (!(await deleteResetRequest(trx, request.id))) return;
       if (!user || user.active !== 1) return;
       const { token, tokenHash } = newLinkToken();
       // the link lives an hour from when it was asked for, not from when the sender got to it

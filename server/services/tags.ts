@@ -53,7 +53,8 @@ export async function synonymMap(db: Db): Promise<Map<string, string>> {
 export async function canonicalTags(db: Db, tags: string[]): Promise<string[]> {
   const map = await synonymMap(db);
   const mapped = [...new Set(tags.map((t) => map.get(t) ?? t))];
-  const retired = await db.selectFrom('tags').select('tag').where('retired', '=', 1).where('tag', 'in', mapped.length ? mapped : ['\u0000']).execute();
+  // no tags, no query (PostgreSQL refuses a NUL placeholder in text, and `in ()` is not SQL)
+  const retired = mapped.length ? await db.selectFrom('tags').select('tag').where('retired', '=', 1).where('tag', 'in', mapped).execute() : [];
   if (retired.length) {
     throw invalid(`Moderators retired the tag${retired.length > 1 ? 's' : ''} ${retired.map((r) => r.tag).join(', ')}; pick another`, [{ path: 'tags', message: `Retired: ${retired.map((r) => r.tag).join(', ')}` }]);
   }

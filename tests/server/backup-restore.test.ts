@@ -8,7 +8,7 @@ import { writeBackup } from '../../server/backup/backup';
 import { restoreBackup } from '../../server/backup/restore';
 import { PID_FILE } from '../../server/backup/server-lock';
 import { pngBytes, stepCsv } from './helpers/fixtures';
-import { createTestContext, invitedEngineer, signedIn, type TestContext, updatedAtOf } from './helpers/test-context';
+import { createTestContext, ON_POSTGRES, invitedEngineer, signedIn, type TestContext, updatedAtOf } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
@@ -38,7 +38,8 @@ const toFile = async (ctx: TestContext, file: string) => {
   return writeBackup(ctx.db, ctx.config.dataDir, out);
 };
 
-describe('backup and restore of the whole installation', () => {
+// the built-in backup is SQLite's online backup API; on PostgreSQL it refuses (tested below) and pg_dump does the job
+describe.skipIf(ON_POSTGRES)('backup and restore of the whole installation (SQLite; skipped on PostgreSQL)', () => {
   let ctx: TestContext;
   let eng: Client;
   let mod: Client;
@@ -151,5 +152,20 @@ describe('backup and restore of the whole installation', () => {
     writeFileSync(path.join(work, 'casebook.zip'), exported.body as Buffer);
     await expect(restoreBackup(path.join(work, 'casebook.zip'), target)).rejects.toThrow(/not a Falsetrace backup/);
     expect(readdirSync(target)).toEqual(['keep.txt']);
+  });
+});
+
+describe.runIf(ON_POSTGRES)('backup on PostgreSQL', () => {
+  let ctx: TestContext;
+  beforeAll(async () => {
+    ctx = await createTestContext();
+  });
+  afterAll(() => ctx.close());
+
+  it('should refuse the built-in backup and point to pg_dump and the uploads directory', async () => {
+    const admin = await signedIn(ctx, 'admin');
+    const res = await admin.get('/api/admin/backup').expect(409);
+    expect(res.body.error).toMatch(/pg_dump/);
+    expect(res.body.error).toMatch(/uploads/);
   });
 });

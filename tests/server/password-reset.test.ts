@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sqliteOf } from '../../server/db/database';
-import { client, createTestContext, demoEmail, linkPath, mailsTo, signedIn, type TestContext } from './helpers/test-context';
+import { client, createTestContext, ON_POSTGRES, demoEmail, linkPath, mailsTo, signedIn, type TestContext } from './helpers/test-context';
 
 describe('password reset by e-mail', () => {
   let ctx: TestContext;
@@ -63,7 +63,8 @@ describe('password reset by e-mail', () => {
   });
 });
 
-describe('password reset: the same work for a known and an unknown address', () => {
+// counts statements through better-sqlite3's prepare(); the service code is the same on PostgreSQL
+describe.skipIf(ON_POSTGRES)('password reset: the same work for a known and an unknown address (statement count read from SQLite; skipped on PostgreSQL)', () => {
   let ctx: TestContext;
   beforeAll(async () => {
     ctx = await createTestContext();

@@ -3,7 +3,9 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { connect, type Socket } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
+import { createPostgresDatabase } from '../helpers/postgres';
+import { ON_POSTGRES } from './helpers/test-context';
 
 const root = path.resolve(import.meta.dirname, '../..');
 
@@ -23,17 +25,26 @@ async function refused(port: number): Promise<void> {
   }
 }
 
-describe('the compiled server under plain node stops cleanly on SIGTERM', () => {
+describe(`the compiled server under plain node stops cleanly on SIGTERM (${ON_POSTGRES ? 'PostgreSQL' : 'SQLite'})`, () => {
   let child: ChildProcess;
   let port: number;
   let output = '';
   const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-shutdown-'));
+  // the api-pg run builds into its own folder, so the two projects' builds never replace each other's files
+  const outDir = ON_POSTGRES ? 'dist-server-pg' : 'dist-server';
+  let dropDatabase = async () => {};
 
   beforeAll(async () => {
-    execFileSync(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), 'scripts/build-server.ts'], { cwd: root, stdio: 'pipe' });
-    child = spawn(process.execPath, [path.join(root, 'dist-server/index.mjs')], {
+    execFileSync(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), 'scripts/build-server.ts'], { cwd: root, stdio: 'pipe', env: { ...process.env, BUILD_SERVER_OUT: outDir } });
+    let databaseUrl = '';
+    if (ON_POSTGRES) {
+      const created = await createPostgresDatabase(inject('postgresAdminUrl'));
+      databaseUrl = created.url;
+      dropDatabase = created.drop;
+    }
+    child = spawn(process.execPath, [path.join(root, outDir, 'index.mjs')], {
       cwd: root,
-      env: { ...process.env, DATA_DIR: dataDir, PORT: '0', SEED_DEMO: '0', SHUTDOWN_GRACE_MS: '60000', NODE_ENV: '' },
+      env: { ...process.env, DATA_DIR: dataDir, DATABASE_URL: databaseUrl, PORT: '0', SEED_DEMO: '0', SHUTDOWN_GRACE_MS: '60000', NODE_ENV: '' },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     child.stdout!.on('data', (d: Buffer) => (output += d.toString()));
@@ -47,9 +58,11 @@ describe('the compiled server under plain node stops cleanly on SIGTERM', () => 
       child.once('exit', (code) => reject(new Error(`server exited (${code}): ${output}`)));
     });
   }, 60_000);
-  afterAll(() => {
-    if (child.exitCode === null) child.kill('SIGKILL');
+  afterAll(async () => {
+    if (child?.exitCode === null) child.kill('SIGKILL');
+    await dropDatabase();
     rmSync(dataDir, { recursive: true, force: true });
+    if (ON_POSTGRES) rmSync(path.join(root, outDir), { recursive: true, force: true });
   });
 
   it('should finish a request in flight, refuse new connections, and exit with 0', async () => {
@@ -75,5 +88,6 @@ describe('the compiled server under plain node stops cleanly on SIGTERM', () => 
     expect(await exited).toBe(0);
     expect(output).toMatch(/SIGTERM: finishing requests in flight/);
     expect(output).toMatch(/stopped/);
+    if (ON_POSTGRES) expect(output).toMatch(/PostgreSQL at 127\.0\.0\.1/);
   }, 60_000);
 });

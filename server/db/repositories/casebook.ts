@@ -1,5 +1,6 @@
-import type { Insertable } from 'kysely';
+import { sql, type Insertable } from 'kysely';
 import type { AttachmentsTable, AuditLogTable, CaseRevisionsTable, CasesTable, CommentsTable, Db, UsersTable } from '../database';
+import { isPostgres } from '../dialect';
 
 // SQLite caps bound parameters per statement; big casebooks are read in slices
 const SLICE = 500;
@@ -99,4 +100,14 @@ export async function appendPinnedLesson(db: Db, caseId: number, pinnedBy: numbe
     .values({ case_id: caseId, position: Number(max ?? 0) + 1, pinned_by: pinnedBy, created_at: createdAt })
     .onConflict((oc) => oc.doNothing())
     .execute();
+}
+
+/**
+ * Makes concurrent imports wait for each other inside their transactions, so the second sees what
+ * the first wrote (its people and cases) instead of inserting them again. PostgreSQL only, through
+ * a transaction-scoped advisory lock (raw SQL: Kysely has no builder for it); SQLite runs one
+ * write transaction at a time already.
+ */
+export async function lockCasebookImport(trx: Db): Promise<void> {
+  if (isPostgres(trx)) await sql`select pg_advisory_xact_lock(hashtext('falsetrace:casebook-import'))`.execute(trx);
 }

@@ -6,4 +6,6 @@ export const insertResetRequest = (db: Db, email: string, nowIso: string) =>
 export const pendingResetRequests = (db: Db, limit = 50) =>
   db.selectFrom('password_reset_requests').selectAll().orderBy('id').limit(limit).execute();
 
-export const deleteResetRequest = (db: Db, id: number) => db.deleteFrom('password_reset_requests').where('id', '=', id).execute();
+/** Deletes the request; false when another sender deleted (took) it first. */
+export const deleteResetRequest = async (db: Db, id: number) =>
+  Number((await db.deleteFrom('password_reset_requests').where('id', '=', id).executeTakeFirst()).numDeletedRows) === 1;

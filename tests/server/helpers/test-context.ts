@@ -2,10 +2,11 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
+import { inject } from 'vitest';
 import type { Role } from '../../../shared/auth/roles';
 import { createApp } from '../../../server/app';
 import type { Config } from '../../../server/config';
-import { openDatabase, type Db } from '../../../server/db/database';
+import { openDatabase, openPostgres, type Db } from '../../../server/db/database';
 import { migrateToLatest } from '../../../server/db/migrate';
 import { listOutboxMessages } from '../../../server/db/repositories/outbox';
 import { startLocalSmtpFake, type LocalSmtpFake } from '../../../server/mail/local-smtp-fake';
@@ -14,9 +15,30 @@ import { resolvePasswordResetRequests } from '../../../server/services/auth';
 import { createMailer, type Mailer } from '../../../server/mail/mailer';
 import { openCaseSearch, type CaseSearch } from '../../../server/search/case-search';
 import { DEMO_ACCOUNTS, seedDemoUsers } from '../../../server/seed/demo-users';
+import { createPostgresDatabase } from '../../helpers/postgres';
+
+/** Set by the api-pg project: every test context gets a fresh database on the throwaway PostgreSQL cluster. */
+export const ON_POSTGRES = process.env.FALSETRACE_TEST_DB === 'postgres';
+
+/** A fresh database for one test context: in memory (or a file in `dataDir`) on SQLite, a new database on PostgreSQL. */
+export async function openTestDatabase(dataDir: string, onDisk = false): Promise<{ db: Db; drop(): Promise<void> }> {
+  if (!ON_POSTGRES) return { db: openDatabase(onDisk ? path.join(dataDir, 'falsetrace.sqlite') : ':memory:'), drop: async () => {} };
+  const created = await createPostgresDatabase(inject('postgresAdminUrl'));
+  return { db: openPostgres(created.url, { max: 4 }), drop: created.drop };
+}
 
 export const DEMO_PASSWORD = 'demo-probe-2026';
 export const demoEmail = (role: Role) => DEMO_ACCOUNTS.find((a) => a.role === role)!.email;
+
+/**
+ * One database several "instances" open at once (each `open()` is its own connection or pool):
+ * a SQLite file in `dataDir`, or a fresh PostgreSQL database.
+ */
+export async function openSharedTestDatabase(dataDir: string): Promise<{ open(): Db; drop(): Promise<void> }> {
+  if (!ON_POSTGRES) return { open: () => openDatabase(path.join(dataDir, 'falsetrace.sqlite')), drop: async () => {} };
+  const created = await createPostgresDatabase(inject('postgresAdminUrl'));
+  return { open: () => openPostgres(created.url, { max: 4 }), drop: created.drop };
+}
 
 export interface TestContext {
   app: ReturnType<typeof createApp>;
@@ -43,10 +65,10 @@ export interface TestContextOptions {
   captureLimitBytes?: number;
 }
 
-/** A fresh world per suite: in-memory database, migrations, demo users, a real SMTP fake. */
+/** A fresh world per suite: in-memory database (or a fresh PostgreSQL one, see ON_POSTGRES), migrations, demo users, a real SMTP fake. */
 export async function createTestContext(options: TestContextOptions = {}): Promise<TestContext> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-test-'));
-  const db = openDatabase(options.onDisk ? path.join(dataDir, 'falsetrace.sqlite') : ':memory:');
+  const { db, drop } = await openTestDatabase(dataDir, options.onDisk);
   await migrateToLatest(db);
   await seedDemoUsers(db, DEMO_PASSWORD);
   const fake = await startLocalSmtpFake(db);
@@ -83,6 +105,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
       mailer.close();
       await fake.close();
       await db.destroy();
+      await drop();
       rmSync(config.dataDir, { recursive: true, force: true });
       if (config.uploadsDir) rmSync(config.uploadsDir, { recursive: true, force: true });
     },

@@ -7,6 +7,8 @@ import { containsText } from './text-match';
 
 export type CaseRow = Selectable<CasesTable>;
 export type CaseRowWithAuthor = CaseRow & { author_name: string };
+/** The columns a row of the case list needs. */
+export type CaseListRow = Pick<CaseRow, 'id' | 'author_id' | 'title' | 'summary' | 'status' | 'cause' | 'created_at' | 'updated_at'> & { author_name: string };
 
 const withAuthor = (db: Db) =>
   db.selectFrom('cases').innerJoin('users', 'users.id', 'cases.author_id').selectAll('cases').select('users.name as author_name');
@@ -71,6 +73,33 @@ function filtered(db: Db, actor: Actor, branch: Branch, q: CaseListQuery, sortsB
   return base;
 }
 
+/**
+ * What changes whenever a count could: cases added or deleted (count, highest id) and any case
+ * saved, submitted or reviewed (every such write sets updated_at). Each part is read from an
+ * index end or the b-tree's page counts, not row by row.
+ */
+async function casebookStamp(db: Db): Promise<string> {
+  // three statements: SQLite answers each alone from a b-tree end or page counts, but not together
+  const n = await db.selectFrom('cases').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+  const id = await db.selectFrom('cases').select((eb) => eb.fn.max('id').as('id')).executeTakeFirstOrThrow();
+  const at = await db.selectFrom('cases').select((eb) => eb.fn.max('updated_at').as('at')).executeTakeFirstOrThrow();
+  return `${n.n}|${id.id}|${at.at}`;
+}
+
+/** Counts by query, kept while the casebook stamp holds and at most COUNT_TTL_MS (tag renames do not touch cases). */
+const COUNT_TTL_MS = 10_000;
+const countCaches = new WeakMap<Db, Map<string, { stamp: string; at: number; n: number }>>();
+async function cachedCount(db: Db, stamp: string, key: string, count: () => Promise<number>): Promise<number> {
+  let cache = countCaches.get(db);
+  if (!cache) countCaches.set(db, (cache = new Map()));
+  const hit = cache.get(key);
+  if (hit && hit.stamp === stamp && Date.now() - hit.at < COUNT_TTL_MS) return hit.n;
+  const n = await count();
+  if (cache.size >= 500) cache.delete(cache.keys().next().value!);
+  cache.set(key, { stamp, at: Date.now(), n });
+  return n;
+}
+
 type Key = string | null;
 /** SQLite's order: NULL first, then text by code unit (BINARY collation). */
 const compareKeys = (a: Key, b: Key) => (a === b ? 0 : a === null ? -1 : b === null ? 1 : a < b ? -1 : 1);
@@ -80,7 +109,7 @@ const compareKeys = (a: Key, b: Key) => (a === b ? 0 : a === null ? -1 : b === n
  * to COUNT_CAP matches past the page, else that many and `totalCapped`). Each visibility branch
  * sorts and cuts ids on its indexes alone (a deferred join); the wide rows of the page are read last.
  */
-export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise<{ rows: CaseRowWithAuthor[]; total: number; totalCapped: boolean }> {
+export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise<{ rows: CaseListRow[]; total: number; totalCapped: boolean }> {
   const sortName = q.sort.replace(/^-/, '') as keyof typeof SORT_COLUMNS;
   const column = SORT_COLUMNS[sortName];
   const dir = q.sort.startsWith('-') ? 'desc' : 'asc';
@@ -90,12 +119,15 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise
   let total = 0;
   let totalCapped = false;
   const keyed: { id: number; key: Key }[] = [];
+  const stamp = await casebookStamp(db);
   for (const branch of branches) {
-    const counted = await db
-      .selectFrom(filtered(db, actor, branch, q, false).select(sql<number>`1`.as('one')).limit(cap).as('m'))
-      .select((eb) => eb.fn.countAll<number>().as('n'))
-      .executeTakeFirstOrThrow();
-    const n = Number(counted.n);
+    const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap]), async () => {
+      const counted = await db
+        .selectFrom(filtered(db, actor, branch, q, false).select(sql<number>`1`.as('one')).limit(cap).as('m'))
+        .select((eb) => eb.fn.countAll<number>().as('n'))
+        .executeTakeFirstOrThrow();
+      return Number(counted.n);
+    });
     total += n;
     if (n >= cap) totalCapped = true;
     if (n === 0) continue;
@@ -114,9 +146,15 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise
   if (branches.length > 1) keyed.sort((a, b) => sign * (compareKeys(a.key, b.key) || a.id - b.id));
   const page = branches.length > 1 ? keyed.slice(offset, offset + q.pageSize) : keyed;
   if (page.length === 0) return { rows: [], total, totalCapped };
-  const wide = await withAuthor(db).where('cases.id', 'in', page.map((p) => p.id)).execute();
-  const byId = new Map(wide.map((r) => [r.id, r]));
-  const rows = page.map((p) => byId.get(p.id)).filter((r): r is CaseRowWithAuthor => r !== undefined);
+  // only what a list row shows: narratives, setups and diagnosis JSON stay on disk
+  const narrow = await db
+    .selectFrom('cases')
+    .innerJoin('users', 'users.id', 'cases.author_id')
+    .select(['cases.id', 'cases.author_id', 'cases.title', 'cases.summary', 'cases.status', 'cases.cause', 'cases.created_at', 'cases.updated_at', 'users.name as author_name'])
+    .where('cases.id', 'in', page.map((p) => p.id))
+    .execute();
+  const byId = new Map(narrow.map((r) => [r.id, r]));
+  const rows = page.map((p) => byId.get(p.id)).filter((r): r is CaseListRow => r !== undefined);
   return { rows, total, totalCapped };
 }
 

@@ -6,16 +6,16 @@ import '@fontsource/ibm-plex-mono/400.css';
 import './styles.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import { RouterProvider } from 'react-router-dom';
+import { BrowserRouter } from 'react-router-dom';
 import { AppProviders } from './app/providers';
-import { createRouter } from './app/router';
-
-const router = createRouter();
+import { AppRoutes } from './app/router';
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
     <AppProviders>
-      <RouterProvider router={router} />
+      <BrowserRouter>
+        <AppRoutes />
+      </BrowserRouter>
     </AppProviders>
   </StrictMode>,
 );

@@ -15,7 +15,8 @@ export function reviewRoutes(deps: AppDeps) {
   r.use(requireRole('moderator'));
   r.get('/queue', async (req, res) => {
     const q = parseInput(queueQuery, req.query, 'The queue filter');
-    res.json({ queue: await reviewQueue(deps, req.user!, { cause: q.cause, attention: q.attention === '1' || q.attention === 'true' }) });
+    const { entries, waiting } = await reviewQueue(deps, req.user!, { cause: q.cause, attention: q.attention === '1' || q.attention === 'true' });
+    res.json({ queue: entries, waiting });
   });
   r.get('/count', async (_req, res) => {
     res.json({ waiting: await waitingCount(deps) });

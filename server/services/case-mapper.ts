@@ -3,7 +3,7 @@ import type { Actor } from '../../shared/auth/roles';
 import type { Attachment, Case, CaseSetup, CaseSummary, StatedCause } from '../../shared/schemas/case';
 import type { DiagnosisResult } from '../../shared/schemas/diagnosis';
 import type { AttachmentRow } from '../db/repositories/attachments';
-import type { CaseRowWithAuthor } from '../db/repositories/cases';
+import type { CaseListRow, CaseRowWithAuthor } from '../db/repositories/cases';
 
 const parseJson = <T>(text: string | null, fallback: T): T => {
   if (!text) return fallback;
@@ -31,7 +31,7 @@ export function toAttachment(row: AttachmentRow): Attachment {
   };
 }
 
-export function toCaseSummary(row: CaseRowWithAuthor, tags: string[]): CaseSummary {
+export function toCaseSummary(row: CaseListRow, tags: string[]): CaseSummary {
   return {
     id: row.id,
     title: row.title,

@@ -195,10 +195,10 @@ export async function deleteCase({ db, search }: AppDeps, actor: Actor, id: numb
   return files.flatMap((f) => [f.storage_name, ...(f.thumbnail_name ? [f.thumbnail_name] : [])]);
 }
 
-export async function listCasesFor({ db }: AppDeps, actor: Actor, query: CaseListQuery): Promise<{ cases: CaseSummary[]; total: number }> {
-  const { rows, total } = await listCases(db, actor, query);
+export async function listCasesFor({ db }: AppDeps, actor: Actor, query: CaseListQuery): Promise<{ cases: CaseSummary[]; total: number; totalCapped?: true }> {
+  const { rows, total, totalCapped } = await listCases(db, actor, query);
   const tags = await tagsOfCases(db, rows.map((r) => r.id));
-  return { cases: rows.map((r) => toCaseSummary(r, tags.get(r.id) ?? [])), total };
+  return { cases: rows.map((r) => toCaseSummary(r, tags.get(r.id) ?? [])), total, ...(totalCapped && { totalCapped: true as const }) };
 }
 
 export const authorsFor = ({ db }: AppDeps, actor: Actor) => listCaseAuthors(db, actor);

@@ -1,3 +1,4 @@
+import { sql, type SqlBool } from 'kysely';
 import { canModerate, type Actor } from '../../shared/auth/roles';
 import { CAUSE_LABELS, CAUSES } from '../../shared/schemas/diagnosis';
 import type { Lesson, LessonBook } from '../../shared/schemas/lessons';
@@ -7,41 +8,64 @@ import { recordAudit } from '../db/repositories/audit-log';
 import { containsText } from '../db/repositories/text-match';
 import { visibleReferencesOfEach } from './case-references';
 
-/** Verified lessons grouped by cause (causes in the engine's order, then the rest), plus the pinned checklist. */
+/** Each cause's group shows this many of its most recently verified lessons; `total` says how many it has. */
+export const LESSONS_PER_GROUP = 50;
+
+/** Literals, not parameters, so SQLite can prove the partial index `cases_lessons` applies. */
+const HAS_LESSON = sql<SqlBool>`${sql.ref('cases.status')} = 'verified' and ${sql.ref('cases.lesson_summary')} is not null and ${sql.ref('cases.lesson_summary')} <> ''`;
+
+type LessonRow = { id: number; title: string; cause: string | null; lesson_summary: string | null; lesson_detail: string | null; verified_at: string | null; position: number | null };
+const toLesson = (r: LessonRow): Lesson => ({
+  caseId: r.id,
+  title: r.title,
+  cause: r.cause,
+  lessonSummary: r.lesson_summary!,
+  lessonDetail: r.lesson_detail,
+  verifiedAt: r.verified_at,
+  pinned: r.position !== null,
+  pinPosition: r.position,
+  references: [],
+});
+
+/**
+ * Verified lessons grouped by cause (causes in the engine's order, then the rest), each group
+ * its latest LESSONS_PER_GROUP with the group's total, plus the whole pinned checklist. The
+ * conditions match the partial index of migration 0012 term for term, so SQLite uses it.
+ */
 export async function listLessons({ db }: AppDeps, q?: string, reader?: Actor): Promise<LessonBook> {
-  let query = db
-    .selectFrom('cases')
-    .leftJoin('pinned_lessons', 'pinned_lessons.case_id', 'cases.id')
-    .select(['cases.id', 'cases.title', 'cases.cause', 'cases.lesson_summary', 'cases.lesson_detail', 'cases.verified_at', 'pinned_lessons.position'])
-    .where('cases.status', '=', 'verified')
-    .where('cases.lesson_summary', 'is not', null)
-    .where('cases.lesson_summary', '!=', '');
-  if (q) {
-    query = query.where((eb) => eb.or([containsText('cases.lesson_summary', q), containsText('cases.lesson_detail', q), containsText('cases.title', q)]));
-  }
-  const rows = await query.orderBy('cases.verified_at', 'desc').execute();
-  const refs = reader ? await visibleReferencesOfEach(db, reader, rows.map((r) => [r.lesson_detail])) : [];
-  const lessons: Lesson[] = rows.map((r, i) => ({
-    caseId: r.id,
-    title: r.title,
-    cause: r.cause,
-    lessonSummary: r.lesson_summary!,
-    lessonDetail: r.lesson_detail,
-    verifiedAt: r.verified_at,
-    pinned: r.position !== null,
-    pinPosition: r.position,
-    references: refs[i] ?? [],
-  }));
-  const order = [...CAUSES, 'other'] as string[];
-  const causes = [...new Set(lessons.map((l) => l.cause ?? 'other'))].sort((a, b) => (order.indexOf(a) + 1 || 99) - (order.indexOf(b) + 1 || 99));
-  return {
-    groups: causes.map((cause) => ({
-      cause,
-      label: CAUSE_LABELS[cause as keyof typeof CAUSE_LABELS] ?? 'Other causes',
-      lessons: lessons.filter((l) => (l.cause ?? 'other') === cause),
-    })),
-    checklist: lessons.filter((l) => l.pinned).sort((a, b) => a.pinPosition! - b.pinPosition!),
+  const lessons = () => {
+    let query = db.selectFrom('cases').leftJoin('pinned_lessons', 'pinned_lessons.case_id', 'cases.id').where(HAS_LESSON);
+    if (q) query = query.where((eb) => eb.or([containsText('cases.lesson_summary', q), containsText('cases.lesson_detail', q), containsText('cases.title', q)]));
+    return query;
   };
+  const columns = ['cases.id', 'cases.title', 'cases.cause', 'cases.lesson_summary', 'cases.lesson_detail', 'cases.verified_at', 'pinned_lessons.position'] as const;
+  // the stored cause is a stated cause (an engine cause or "other") or the engine's, or none:
+  // one count and one page per value, each a seek in the partial index
+  const values: (string | null)[] = [...CAUSES, 'other', null];
+  const ofCause = (value: string | null) => lessons().where('cases.cause', value === null ? 'is' : '=', value);
+  const groups = [];
+  for (const cause of [...CAUSES, 'other']) {
+    const parts = cause === 'other' ? values.slice(-2) : [cause];
+    let total = 0;
+    const rows: LessonRow[] = [];
+    for (const value of parts) {
+      total += Number((await ofCause(value).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+      rows.push(...(await ofCause(value).select(columns).orderBy('cases.verified_at', 'desc').orderBy('cases.id', 'desc').limit(LESSONS_PER_GROUP).execute()));
+    }
+    if (total === 0) continue;
+    rows.sort((a, b) => (b.verified_at ?? '').localeCompare(a.verified_at ?? '') || b.id - a.id);
+    groups.push({ cause, label: CAUSE_LABELS[cause as keyof typeof CAUSE_LABELS] ?? 'Other causes', lessons: rows.slice(0, LESSONS_PER_GROUP).map(toLesson), total });
+  }
+  const pinnedIds = (await db.selectFrom('pinned_lessons').select('case_id').execute()).map((p) => p.case_id);
+  const pinned = pinnedIds.length ? await lessons().where('cases.id', 'in', pinnedIds).select(columns).orderBy('pinned_lessons.position').execute() : [];
+  const checklist = pinned.map(toLesson);
+  if (reader) {
+    // the `#id`s in each shown lesson, only those the reader may open
+    const shown = [...groups.flatMap((g) => g.lessons), ...checklist];
+    const refs = await visibleReferencesOfEach(db, reader, shown.map((l) => [l.lessonDetail]));
+    shown.forEach((l, i) => (l.references = refs[i] ?? []));
+  }
+  return { groups, checklist };
 }
 
 export async function pinLesson({ db }: AppDeps, actor: Actor, caseId: number, pinned: boolean) {

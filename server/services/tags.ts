@@ -1,5 +1,5 @@
-import { canSeeCase } from '../../shared/auth/case-policy';
 import { canModerate, type Actor } from '../../shared/auth/roles';
+import { CASE_STATUSES } from '../../shared/schemas/case';
 import type { TagInfo } from '../../shared/schemas/tags';
 import { recordAudit } from '../db/repositories/audit-log';
 import type { Db } from '../db/database';
@@ -14,30 +14,38 @@ async function ensureTagRow(db: Db, tag: string) {
 /**
  * Every tag the actor may know of, with how many cases they may open carry it. A tag that only
  * cases hidden from the actor use is left out (its name alone can tell of a draft); a curated tag
- * no case uses yet is listed.
+ * no case uses yet is listed. Counted in SQL per visibility branch of the case policy
+ * (`canSeeCase`: moderators every case; others verified cases and their own), never by
+ * shipping every tag use to the server.
  */
 export async function listTags({ db }: AppDeps, actor: Actor): Promise<TagInfo[]> {
-  const uses = await db
-    .selectFrom('case_tags')
-    .innerJoin('cases', 'cases.id', 'case_tags.case_id')
-    .select(['case_tags.tag', 'case_tags.case_id', 'cases.author_id', 'cases.status'])
-    .distinct()
-    .execute();
   const visible = new Map<string, number>();
-  const used = new Set<string>();
-  for (const u of uses) {
-    used.add(u.tag);
-    if (canSeeCase(actor, { authorId: u.author_id, status: u.status })) visible.set(u.tag, (visible.get(u.tag) ?? 0) + 1);
+  const add = (rows: { tag: string; n: number | string | bigint }[]) => {
+    for (const r of rows) visible.set(r.tag, (visible.get(r.tag) ?? 0) + Number(r.n));
+  };
+  if (canModerate(actor)) {
+    add(await db.selectFrom('case_tags').select(['tag', (eb) => eb.fn.countAll<number>().as('n')]).groupBy('tag').execute());
+  } else {
+    const uses = () => db.selectFrom('cases').innerJoin('case_tags', 'case_tags.case_id', 'cases.id').select(['case_tags.tag', (eb) => eb.fn.countAll<number>().as('n')]).groupBy('case_tags.tag');
+    add(await uses().where('cases.status', '=', 'verified').execute());
+    add(await uses().where('cases.author_id', '=', actor.id).where('cases.status', 'in', CASE_STATUSES.filter((x) => x !== 'verified')).execute());
   }
   const meta = await db.selectFrom('tags').selectAll().execute();
   const syn = await db.selectFrom('tag_synonyms').selectAll().execute();
-  const names = new Set([...visible.keys(), ...meta.map((m) => m.tag).filter((t) => !used.has(t))]);
+  // curated tags are few: ask of each whether any case uses it, rather than listing every use
+  const unused = meta.length
+    ? new Set((await db.selectFrom('tags').select('tags.tag').where((eb) => eb.not(eb.exists(eb.selectFrom('case_tags').select('case_tags.case_id').whereRef('case_tags.tag', '=', 'tags.tag')))).execute()).map((r) => r.tag))
+    : new Set<string>();
+  const metaOf = new Map(meta.map((m) => [m.tag, m]));
+  const synonymsOf = new Map<string, string[]>();
+  for (const s of syn) synonymsOf.set(s.tag, [...(synonymsOf.get(s.tag) ?? []), s.synonym]);
+  const names = new Set([...visible.keys(), ...unused]);
   return [...names].sort().map((tag) => {
-    const m = meta.find((x) => x.tag === tag);
+    const m = metaOf.get(tag);
     return {
       tag,
       count: visible.get(tag) ?? 0,
-      synonyms: syn.filter((s) => s.tag === tag).map((s) => s.synonym).sort(),
+      synonyms: (synonymsOf.get(tag) ?? []).sort(),
       retired: m?.retired === 1,
       description: m?.description ?? null,
     };

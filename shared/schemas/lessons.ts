@@ -18,7 +18,10 @@ export interface Lesson {
 export interface LessonGroup {
   cause: string;
   label: string;
+  /** The group's latest lessons (at most 50 of `total`). */
   lessons: Lesson[];
+  /** How many verified lessons the group has. */
+  total: number;
 }
 
 /** Verified lessons grouped by cause, and the pinned bench checklist in its order. */

@@ -1,15 +1,10 @@
 import { lazy, Suspense, type ComponentType } from 'react';
-import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { useRoutes, type RouteObject } from 'react-router-dom';
 import type { Role } from '../../shared/auth/roles';
 import { Loading } from '../components/ui/Panel';
-import { AcceptInvitationPage } from '../features/auth/components/AcceptInvitationPage';
-import { ProfilePage } from '../features/auth/components/ProfilePage';
 import { RequireAuth } from '../features/auth/components/RequireAuth';
-import { ResetConfirmPage } from '../features/auth/components/ResetConfirmPage';
-import { ResetRequestPage } from '../features/auth/components/ResetRequestPage';
 import { SignInPage } from '../features/auth/components/SignInPage';
 import { AppShell } from './AppShell';
-import { BenchRoute } from './routes/bench';
 import { NotFoundRoute } from './routes/not-built';
 
 const RELOADED = 'ft.reloaded-for-new-build';
@@ -28,8 +23,14 @@ async function loadScreen<M>(load: () => Promise<M>): Promise<M> {
   }
 }
 
-// the first screens (sign-in, Bench) come with the app; every other screen is fetched when first opened
+// only sign-in comes with the app (issue 15: the sign-in route loads no code it does not use);
+// every other screen, the Bench included, is fetched when first opened
 const screen = <M,>(load: () => Promise<M>, pick: (m: M) => ComponentType) => lazy(() => loadScreen(load).then((m) => ({ default: pick(m) })));
+const BenchRoute = screen(() => import('./routes/bench'), (m) => m.BenchRoute);
+const ProfilePage = screen(() => import('../features/auth/components/ProfilePage'), (m) => m.ProfilePage);
+const ResetRequestPage = screen(() => import('../features/auth/components/ResetRequestPage'), (m) => m.ResetRequestPage);
+const ResetConfirmPage = screen(() => import('../features/auth/components/ResetConfirmPage'), (m) => m.ResetConfirmPage);
+const AcceptInvitationPage = screen(() => import('../features/auth/components/AcceptInvitationPage'), (m) => m.AcceptInvitationPage);
 const cases = () => import('./routes/cases');
 const CasesRoute = screen(cases, (m) => m.CasesRoute);
 const CaseRoute = screen(cases, (m) => m.CaseRoute);
@@ -45,6 +46,8 @@ const ChecklistPrintPage = screen(() => import('../features/lessons/components/C
 const ReviewDeskPage = screen(() => import('../features/review/components/ReviewDeskPage'), (m) => m.ReviewDeskPage);
 const TagCurationPage = screen(() => import('../features/review/components/TagCurationPage'), (m) => m.TagCurationPage);
 
+const open = (element: React.ReactNode) => <Suspense fallback={<Loading />}>{element}</Suspense>;
+
 const guarded = (element: React.ReactNode, role?: Role) => (
   <RequireAuth role={role}>
     <Suspense fallback={<Loading />}>{element}</Suspense>
@@ -58,9 +61,9 @@ export const routes: RouteObject[] = [
     element: <AppShell />,
     children: [
       { path: '/sign-in', element: <SignInPage /> },
-      { path: '/reset-password', element: <ResetRequestPage /> },
-      { path: '/reset-password/:token', element: <ResetConfirmPage /> },
-      { path: '/accept-invitation/:token', element: <AcceptInvitationPage /> },
+      { path: '/reset-password', element: open(<ResetRequestPage />) },
+      { path: '/reset-password/:token', element: open(<ResetConfirmPage />) },
+      { path: '/accept-invitation/:token', element: open(<AcceptInvitationPage />) },
       { path: '/', element: guarded(<BenchRoute />) },
       { path: '/profile', element: guarded(<ProfilePage />) },
       { path: '/cases', element: guarded(<CasesRoute />) },
@@ -80,4 +83,10 @@ export const routes: RouteObject[] = [
   },
 ];
 
-export const createRouter = () => createBrowserRouter(routes);
+/**
+ * The routes in declarative mode (BrowserRouter + useRoutes): the app uses no loaders, actions
+ * or blockers, and leaving the data router out keeps its code off the sign-in page.
+ */
+export function AppRoutes() {
+  return useRoutes(routes);
+}

@@ -1,12 +1,14 @@
-import type { Insertable, Selectable, Updateable } from 'kysely';
+import { sql, type Insertable, type Selectable, type Updateable } from 'kysely';
 import type { Actor } from '../../../shared/auth/roles';
 import { canModerate } from '../../../shared/auth/roles';
-import type { CaseListQuery } from '../../../shared/schemas/case';
+import { CASE_STATUSES, type CaseListQuery } from '../../../shared/schemas/case';
 import type { CasesTable, Db } from '../database';
 import { containsText } from './text-match';
 
 export type CaseRow = Selectable<CasesTable>;
 export type CaseRowWithAuthor = CaseRow & { author_name: string };
+/** The columns a row of the case list needs. */
+export type CaseListRow = Pick<CaseRow, 'id' | 'author_id' | 'title' | 'summary' | 'status' | 'cause' | 'created_at' | 'updated_at'> & { author_name: string };
 
 const withAuthor = (db: Db) =>
   db.selectFrom('cases').innerJoin('users', 'users.id', 'cases.author_id').selectAll('cases').select('users.name as author_name');
@@ -31,13 +33,33 @@ const SORT_COLUMNS = {
   author: 'users.name',
 } as const;
 
-/** One page of the cases the actor may see, filtered and sorted as asked, with the total. */
-export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise<{ rows: CaseRowWithAuthor[]; total: number }> {
-  let base = db.selectFrom('cases').innerJoin('users', 'users.id', 'cases.author_id');
-  if (!canModerate(actor)) base = base.where((eb) => eb.or([eb('cases.status', '=', 'verified'), eb('cases.author_id', '=', actor.id)]));
-  if (q.status) base = base.where('cases.status', '=', q.status);
+/** Past this many matches (beyond the page asked for) the list says "at least" instead of counting every case. */
+export const COUNT_CAP = 10_000;
+
+type Branch = 'all' | 'verified' | 'own';
+const NOT_VERIFIED = CASE_STATUSES.filter((s) => s !== 'verified');
+
+/**
+ * The visibility rule (shared/auth/case-policy: moderators see every case; others the verified
+ * ones and their own) as one or two disjoint branches, each of which an index reads in order:
+ * `status = 'verified' OR author_id = ?` would make SQLite read every case to sort them.
+ */
+function branchesFor(actor: Actor, q: CaseListQuery): Branch[] {
+  if (canModerate(actor)) return ['all'];
+  const out: Branch[] = [];
+  if (!q.status || q.status === 'verified') out.push('verified');
+  if ((!q.status || q.status !== 'verified') && (!q.author || q.author === actor.id)) out.push('own');
+  return out;
+}
+
+function filtered(db: Db, actor: Actor, branch: Branch, q: CaseListQuery, sortsByAuthor: boolean) {
+  let base = sortsByAuthor ? db.selectFrom('cases').innerJoin('users', 'users.id', 'cases.author_id') : db.selectFrom('cases');
+  if (branch === 'verified') base = base.where('cases.status', '=', 'verified');
+  // listed, not `!= 'verified'`, so the (author_id, status, …) index can seek each one
+  if (branch === 'own') base = base.where('cases.author_id', '=', actor.id).where('cases.status', 'in', NOT_VERIFIED);
+  if (q.status && branch !== 'verified') base = base.where('cases.status', '=', q.status);
   if (q.cause) base = base.where('cases.cause', '=', q.cause);
-  if (q.author) base = base.where('cases.author_id', '=', q.author);
+  if (q.author && branch !== 'own') base = base.where('cases.author_id', '=', q.author);
   if (q.from) base = base.where('cases.updated_at', '>=', q.from);
   if (q.to) base = base.where('cases.updated_at', '<', `${q.to}T99`);
   if (q.tag) {
@@ -48,28 +70,108 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise
     const text = q.q;
     base = base.where((eb) => eb.or([containsText('cases.title', text), containsText('cases.summary', text)]));
   }
-  const { n } = await base.select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
-  const desc = q.sort.startsWith('-');
-  const column = SORT_COLUMNS[q.sort.replace(/^-/, '') as keyof typeof SORT_COLUMNS];
-  // a deferred join: sort and cut the page on ids alone, then read the wide rows of that page only
-  // (narratives and diagnosis JSON of every visible case would otherwise be sorted to return 20)
-  const page = await base
-    .select('cases.id')
-    .orderBy(column, desc ? 'desc' : 'asc')
-    .orderBy('cases.id', 'desc')
-    .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize)
-    .execute();
-  if (page.length === 0) return { rows: [], total: Number(n) };
-  const wide = await withAuthor(db).where('cases.id', 'in', page.map((p) => p.id)).execute();
-  const byId = new Map(wide.map((r) => [r.id, r]));
-  const rows = page.map((p) => byId.get(p.id)).filter((r): r is CaseRowWithAuthor => r !== undefined);
-  return { rows, total: Number(n) };
+  return base;
 }
 
-/** Distinct authors of the cases the actor may see, for the author filter. */
+/**
+ * What changes whenever a count could: cases added or deleted (count, highest id) and any case
+ * saved, submitted or reviewed (every such write sets updated_at). Each part is read from an
+ * index end or the b-tree's page counts, not row by row.
+ */
+async function casebookStamp(db: Db): Promise<string> {
+  // three statements: SQLite answers each alone from a b-tree end or page counts, but not together
+  const n = await db.selectFrom('cases').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+  const id = await db.selectFrom('cases').select((eb) => eb.fn.max('id').as('id')).executeTakeFirstOrThrow();
+  const at = await db.selectFrom('cases').select((eb) => eb.fn.max('updated_at').as('at')).executeTakeFirstOrThrow();
+  return `${n.n}|${id.id}|${at.at}`;
+}
+
+/** Counts by query, kept while the casebook stamp holds and at most COUNT_TTL_MS (tag renames do not touch cases). */
+const COUNT_TTL_MS = 10_000;
+const countCaches = new WeakMap<Db, Map<string, { stamp: string; at: number; n: number }>>();
+async function cachedCount(db: Db, stamp: string, key: string, count: () => Promise<number>): Promise<number> {
+  let cache = countCaches.get(db);
+  if (!cache) countCaches.set(db, (cache = new Map()));
+  const hit = cache.get(key);
+  if (hit && hit.stamp === stamp && Date.now() - hit.at < COUNT_TTL_MS) return hit.n;
+  const n = await count();
+  if (cache.size >= 500) cache.delete(cache.keys().next().value!);
+  cache.set(key, { stamp, at: Date.now(), n });
+  return n;
+}
+
+type Key = string | null;
+/** SQLite's order: NULL first, then text by code unit (BINARY collation). */
+const compareKeys = (a: Key, b: Key) => (a === b ? 0 : a === null ? -1 : b === null ? 1 : a < b ? -1 : 1);
+
+/**
+ * One page of the cases the actor may see, filtered and sorted as asked, with the total (exact up
+ * to COUNT_CAP matches past the page, else that many and `totalCapped`). Each visibility branch
+ * sorts and cuts ids on its indexes alone (a deferred join); the wide rows of the page are read last.
+ */
+export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise<{ rows: CaseListRow[]; total: number; totalCapped: boolean }> {
+  const sortName = q.sort.replace(/^-/, '') as keyof typeof SORT_COLUMNS;
+  const column = SORT_COLUMNS[sortName];
+  const dir = q.sort.startsWith('-') ? 'desc' : 'asc';
+  const offset = (q.page - 1) * q.pageSize;
+  const cap = offset + q.pageSize + COUNT_CAP;
+  const branches = branchesFor(actor, q);
+  let total = 0;
+  let totalCapped = false;
+  const keyed: { id: number; key: Key }[] = [];
+  const stamp = await casebookStamp(db);
+  for (const branch of branches) {
+    const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap]), async () => {
+      const counted = await db
+        .selectFrom(filtered(db, actor, branch, q, false).select(sql<number>`1`.as('one')).limit(cap).as('m'))
+        .select((eb) => eb.fn.countAll<number>().as('n'))
+        .executeTakeFirstOrThrow();
+      return Number(counted.n);
+    });
+    total += n;
+    if (n >= cap) totalCapped = true;
+    if (n === 0) continue;
+    // ties broken by id in the same direction, so one index gives the whole order
+    const rows = await filtered(db, actor, branch, q, sortName === 'author')
+      .select(['cases.id', sql<Key>`${sql.ref(column)}`.as('key')])
+      .orderBy(sql.ref(column), dir)
+      .orderBy('cases.id', dir)
+      // one branch cuts its page in SQL; two are merged here, so each brings everything up to the page's end
+      .limit(branches.length > 1 ? offset + q.pageSize : q.pageSize)
+      .offset(branches.length > 1 ? 0 : offset)
+      .execute();
+    keyed.push(...rows);
+  }
+  const sign = dir === 'desc' ? -1 : 1;
+  if (branches.length > 1) keyed.sort((a, b) => sign * (compareKeys(a.key, b.key) || a.id - b.id));
+  const page = branches.length > 1 ? keyed.slice(offset, offset + q.pageSize) : keyed;
+  if (page.length === 0) return { rows: [], total, totalCapped };
+  // only what a list row shows: narratives, setups and diagnosis JSON stay on disk
+  const narrow = await db
+    .selectFrom('cases')
+    .innerJoin('users', 'users.id', 'cases.author_id')
+    .select(['cases.id', 'cases.author_id', 'cases.title', 'cases.summary', 'cases.status', 'cases.cause', 'cases.created_at', 'cases.updated_at', 'users.name as author_name'])
+    .where('cases.id', 'in', page.map((p) => p.id))
+    .execute();
+  const byId = new Map(narrow.map((r) => [r.id, r]));
+  const rows = page.map((p) => byId.get(p.id)).filter((r): r is CaseListRow => r !== undefined);
+  return { rows, total, totalCapped };
+}
+
+/**
+ * Distinct authors of the cases the actor may see, for the author filter: one index seek per
+ * person (there are far fewer people than cases) instead of reading every case.
+ */
 export async function listCaseAuthors(db: Db, actor: Actor) {
-  let q = db.selectFrom('cases').innerJoin('users', 'users.id', 'cases.author_id').select(['users.id', 'users.name']).distinct();
-  if (!canModerate(actor)) q = q.where((eb) => eb.or([eb('cases.status', '=', 'verified'), eb('cases.author_id', '=', actor.id)]));
-  return q.orderBy('users.name').execute();
+  const moderates = canModerate(actor);
+  return db
+    .selectFrom('users')
+    .select(['users.id', 'users.name'])
+    .where((eb) => {
+      const wrote = eb.selectFrom('cases').select('cases.id').whereRef('cases.author_id', '=', 'users.id');
+      if (moderates) return eb.exists(wrote);
+      return eb.or([eb.exists(wrote.where('cases.status', '=', 'verified')), eb.and([eb('users.id', '=', actor.id), eb.exists(wrote)])]);
+    })
+    .orderBy('users.name')
+    .execute();
 }

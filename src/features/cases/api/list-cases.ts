@@ -9,6 +9,8 @@ export type CaseListFilters = Partial<Record<keyof CaseListQuery, string>>;
 export interface CaseList {
   cases: CaseSummary[];
   total: number;
+  /** The list stopped counting at `total`: there are at least that many. */
+  totalCapped?: boolean;
   page: number;
   pageSize: number;
 }

@@ -10,7 +10,7 @@ export function CaseMiniList({ filters, empty, moreLabel, editLinks }: { filters
   const q = useCases({ pageSize: '5', ...filters });
   if (q.isPending) return <Loading what="Loading" />;
   if (q.isError) return <p className="text-sm text-caution">{q.error.message}</p>;
-  const { cases, total } = q.data;
+  const { cases, total, totalCapped } = q.data;
   const { pageSize: _size, page: _page, ...tableFilters } = filters;
   const more = `/cases?${new URLSearchParams(tableFilters as Record<string, string>).toString()}`;
   if (cases.length === 0) return <p className="text-sm text-muted">{empty}</p>;
@@ -31,7 +31,7 @@ export function CaseMiniList({ filters, empty, moreLabel, editLinks }: { filters
       </ul>
       {total > cases.length && (
         <Link to={more} className="mt-2 inline-block text-sm underline underline-offset-2">
-          {moreLabel} ({total})
+          {moreLabel} ({total}{totalCapped ? '+' : ''})
         </Link>
       )}
     </div>

@@ -61,7 +61,7 @@ export function CasesPage() {
         <Panel>
           <div className="mb-3 flex flex-wrap items-end justify-between gap-3">
             <p role="status" className="text-sm text-muted">
-              {data ? (data.total === 0 ? 'No cases' : `${first}–${last} of ${data.total} case${data.total === 1 ? '' : 's'}`) : ' '}
+              {data ? (data.total === 0 ? 'No cases' : `${first}–${last} of ${data.total.toLocaleString('en')}${data.totalCapped ? '+' : ''} case${data.total === 1 ? '' : 's'}`) : ' '}
               {query.isFetching && data ? ' · updating…' : ''}
             </p>
             <CopyLinkButton label="Copy link to this view" />

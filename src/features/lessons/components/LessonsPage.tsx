@@ -28,7 +28,7 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
   // the checklist is the whole pinned list, whatever the search
   const all = useLessons('');
   const groups = lessons.data?.groups ?? [];
-  const count = groups.reduce((n, g) => n + g.lessons.length, 0);
+  const count = groups.reduce((n, g) => n + (g.total ?? g.lessons.length), 0);
 
   return (
     <>
@@ -68,7 +68,7 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
               key={g.cause}
               title={
                 <>
-                  {g.label} <span className="font-mono text-sm font-normal text-muted">({g.lessons.length})</span>
+                  {g.label} <span className="font-mono text-sm font-normal text-muted">({g.total ?? g.lessons.length})</span>
                 </>
               }
             >
@@ -77,6 +77,7 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
                   <LessonItem key={l.caseId} lesson={l} canPin={canPin} onError={setError} />
                 ))}
               </ul>
+              {g.total > g.lessons.length && <p className="mt-2 text-sm text-muted">The latest {g.lessons.length} of {g.total}; search to find the others.</p>}
             </Panel>
           ))}
         </div>

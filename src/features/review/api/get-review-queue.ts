@@ -22,7 +22,7 @@ export function getReviewQueue(filters: QueueFilters, signal?: AbortSignal) {
   if (filters.cause) params.set('cause', filters.cause);
   if (filters.attention) params.set('attention', '1');
   const qs = params.toString();
-  return api<{ queue: QueueEntry[] }>(`/api/review/queue${qs ? `?${qs}` : ''}`, { signal });
+  return api<{ queue: QueueEntry[]; waiting: number }>(`/api/review/queue${qs ? `?${qs}` : ''}`, { signal });
 }
 
 export const reviewQueueQueryOptions = (filters: QueueFilters) =>

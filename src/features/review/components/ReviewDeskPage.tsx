@@ -66,6 +66,7 @@ export function ReviewDeskPage() {
             {queue.data && (
               <>
                 <span className="font-mono text-ink">{entries.length}</span> {entries.length === 1 ? 'case' : 'cases'} {filtered ? 'match' : 'waiting'}
+                {queue.data.waiting > entries.length && !attention && <> (the oldest of <span className="font-mono text-ink">{queue.data.waiting}</span>)</>}
               </>
             )}
           </p>

@@ -4,6 +4,10 @@
  * connections, each as a ratio to GET /api/health measured in the same run (so the figures
  * speak of the app, not of the machine). The server runs in its own process.
  *
+ * Where Debian's PostgreSQL server is installed, the same runs follow against a server with
+ * DATABASE_URL on a throwaway cluster (tests/helpers/postgres.ts), printed beside SQLite's.
+ * BENCH_DATABASES=sqlite (or postgres) runs only one of them.
+ *
  * Targets (issue 15): at c=16 the list ≥ 0.3× and search ≥ 0.15× health's req/s, p99 < 150 ms
  * for both; no timeouts at c=64.
  */
@@ -13,10 +17,11 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
-import { openDatabase } from '../server/db/database';
+import { openDatabase, openPostgres, type Db } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrate';
 import { DEMO_ACCOUNTS } from '../server/seed/demo-users';
 import { seedBenchCasebook } from '../server/seed/bench/generate-cases';
+import { createPostgresDatabase, findPostgresBin, POSTGRES_MISSING, startPostgresCluster, type PostgresCluster } from '../tests/helpers/postgres';
 
 const COUNT = Number(process.env.BENCH_CASES ?? 10_000);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
@@ -31,79 +36,6 @@ const freePort = () =>
     });
   });
 
-const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-bench-http-'));
-console.log(`http benchmark: ${COUNT} generated cases in ${dataDir}, ${SECONDS} s per run, node ${process.version}`);
-let t = Date.now();
-const db = openDatabase(path.join(dataDir, 'falsetrace.sqlite'));
-await migrateToLatest(db);
-await seedBenchCasebook(db, { count: COUNT, password: PASSWORD });
-const someCase = (await db.selectFrom('cases').select('id').where('status', '=', 'verified').orderBy('id', 'desc').limit(1).offset(Math.floor(COUNT / 3)).executeTakeFirstOrThrow()).id;
-await db.destroy();
-console.log(`seeded in ${((Date.now() - t) / 1000).toFixed(1)} s`);
-
-const port = await freePort();
-const base = `http://127.0.0.1:${port}`;
-const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/index.ts')], {
-  cwd: root,
-  env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), SEED_DEMO: '0', DEMO_PASSWORD: PASSWORD, LOG_LEVEL: 'warn' },
-  stdio: ['ignore', 'ignore', 'inherit'],
-});
-const stop = () => {
-  if (server.exitCode === null) server.kill('SIGTERM');
-};
-process.on('exit', stop);
-
-async function waitFor(url: string, init: RequestInit, what: string) {
-  const until = Date.now() + 10 * 60_000;
-  for (;;) {
-    try {
-      const res = await fetch(url, init);
-      if (res.ok) return res;
-    } catch {
-      // not listening yet
-    }
-    if (Date.now() > until || server.exitCode !== null) throw new Error(`the server never answered ${what}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
-
-t = Date.now();
-await waitFor(`${base}/api/health`, {}, '/api/health');
-console.log(`server up in ${((Date.now() - t) / 1000).toFixed(1)} s`);
-
-// sign in as the demo engineer (sees verified cases and their own: the common case)
-const jar = new Map<string, string>();
-const keep = (res: Response) => {
-  for (const c of res.headers.getSetCookie()) {
-    const [pair] = c.split(';');
-    const at = pair.indexOf('=');
-    jar.set(pair.slice(0, at), pair.slice(at + 1));
-  }
-};
-const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-const csrfRes = await fetch(`${base}/api/auth/csrf`);
-keep(csrfRes);
-const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-const email = DEMO_ACCOUNTS.find((a) => a.role === 'engineer')!.email;
-const login = await fetch(`${base}/api/auth/login`, {
-  method: 'POST',
-  headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookie() },
-  body: JSON.stringify({ email, password: PASSWORD }),
-});
-if (!login.ok) throw new Error(`sign-in failed: ${login.status} ${await login.text()}`);
-keep(login);
-const headers = { cookie: cookie(), 'accept-encoding': 'gzip' };
-
-t = Date.now();
-await waitFor(`${base}/api/search?q=ringing+ground+lead`, { headers }, 'a search (index still building?)');
-console.log(`search answering ${((Date.now() - t) / 1000).toFixed(1)} s after sign-in`);
-
-const targets = [
-  ['health', '/api/health'],
-  ['list', '/api/cases?page=1'],
-  ['search', '/api/search?q=ringing+ground+lead'],
-  ['case page', `/api/cases/${someCase}`],
-] as const;
 
 interface Run {
   rps: number;
@@ -113,41 +45,150 @@ interface Run {
   errors: number;
   non2xx: number;
 }
-async function run(urlPath: string, connections: number): Promise<Run> {
-  const r = await autocannon({ url: `${base}${urlPath}`, connections, duration: SECONDS, headers, timeout: 10 });
-  return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, timeouts: r.timeouts, errors: r.errors, non2xx: r.non2xx };
-}
+type Results = Map<string, Run>;
+const TARGET_NAMES = ['health', 'list', 'search', 'case page'] as const;
 
-const results = new Map<string, Run>();
-for (const c of [16, 64]) {
-  for (const [name, urlPath] of targets) {
-    // a short warm-up, so the first run does not pay for cold caches
-    await autocannon({ url: `${base}${urlPath}`, connections: 4, amount: 50, headers });
-    results.set(`${name}@${c}`, await run(urlPath, c));
+/** Seeds a fresh casebook, starts the server on it with `env`, and measures every target at c=16 and c=64. */
+async function benchOne(label: string, open: (dataDir: string) => Db, env: Record<string, string>): Promise<Results> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-bench-http-'));
+  try {
+    console.log(`\n[${label}] ${COUNT} generated cases, ${SECONDS} s per run`);
+    let t = Date.now();
+    const db = open(dataDir);
+    await migrateToLatest(db);
+    await seedBenchCasebook(db, { count: COUNT, password: PASSWORD });
+    const someCase = (await db.selectFrom('cases').select('id').where('status', '=', 'verified').orderBy('id', 'desc').limit(1).offset(Math.floor(COUNT / 3)).executeTakeFirstOrThrow()).id;
+    await db.destroy();
+    console.log(`[${label}] seeded in ${((Date.now() - t) / 1000).toFixed(1)} s`);
+
+    const port = await freePort();
+    const base = `http://127.0.0.1:${port}`;
+    const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/index.ts')], {
+      cwd: root,
+      env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), SEED_DEMO: '0', DEMO_PASSWORD: PASSWORD, LOG_LEVEL: 'warn', ...env },
+      stdio: ['ignore', 'ignore', 'inherit'],
+    });
+    const stopped = new Promise((r) => server.once('exit', r));
+    const stop = () => {
+      if (server.exitCode === null) server.kill('SIGTERM');
+    };
+    process.on('exit', stop);
+    try {
+      const waitFor = async (url: string, init: RequestInit, what: string) => {
+        const until = Date.now() + 10 * 60_000;
+        for (;;) {
+          try {
+            const res = await fetch(url, init);
+            if (res.ok) return res;
+          } catch {
+            // not listening yet
+          }
+          if (Date.now() > until || server.exitCode !== null) throw new Error(`the server never answered ${what}`);
+          await new Promise((r) => setTimeout(r, 250));
+        }
+      };
+      t = Date.now();
+      await waitFor(`${base}/api/health`, {}, '/api/health');
+      console.log(`[${label}] server up in ${((Date.now() - t) / 1000).toFixed(1)} s`);
+
+      // sign in as the demo engineer (sees verified cases and their own: the common case)
+      const jar = new Map<string, string>();
+      const keep = (res: Response) => {
+        for (const c of res.headers.getSetCookie()) {
+          const [pair] = c.split(';');
+          const at = pair.indexOf('=');
+          jar.set(pair.slice(0, at), pair.slice(at + 1));
+        }
+      };
+      const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+      const csrfRes = await fetch(`${base}/api/auth/csrf`);
+      keep(csrfRes);
+      const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+      const email = DEMO_ACCOUNTS.find((a) => a.role === 'engineer')!.email;
+      const login = await fetch(`${base}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookie() },
+        body: JSON.stringify({ email, password: PASSWORD }),
+      });
+      if (!login.ok) throw new Error(`sign-in failed: ${login.status} ${await login.text()}`);
+      keep(login);
+      const headers = { cookie: cookie(), 'accept-encoding': 'gzip' };
+
+      t = Date.now();
+      await waitFor(`${base}/api/search?q=ringing+ground+lead`, { headers }, 'a search (index still building?)');
+      console.log(`[${label}] search answering ${((Date.now() - t) / 1000).toFixed(1)} s after sign-in`);
+
+      const targets: Record<(typeof TARGET_NAMES)[number], string> = {
+        health: '/api/health',
+        list: '/api/cases?page=1',
+        search: '/api/search?q=ringing+ground+lead',
+        'case page': `/api/cases/${someCase}`,
+      };
+      const results: Results = new Map();
+      for (const c of [16, 64]) {
+        for (const name of TARGET_NAMES) {
+          const url = `${base}${targets[name]}`;
+          // a short warm-up, so the first run does not pay for cold caches
+          await autocannon({ url, connections: 4, amount: 50, headers });
+          const r = await autocannon({ url, connections: c, duration: SECONDS, headers, timeout: 10 });
+          results.set(`${name}@${c}`, { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, timeouts: r.timeouts, errors: r.errors, non2xx: r.non2xx });
+        }
+      }
+      return results;
+    } finally {
+      stop();
+      await stopped;
+    }
+  } finally {
+    rmSync(dataDir, { recursive: true, force: true });
   }
 }
-stop();
 
-console.log('');
-console.log('                 c    req/s   ×health   p50 ms   p99 ms   timeouts  errors  non-2xx');
-for (const c of [16, 64]) {
-  const health = results.get(`health@${c}`)!;
-  for (const [name] of targets) {
-    const r = results.get(`${name}@${c}`)!;
-    console.log(
-      `${name.padEnd(14)} ${String(c).padStart(3)} ${r.rps.toFixed(0).padStart(8)} ${(r.rps / health.rps).toFixed(2).padStart(9)} ${String(r.p50).padStart(8)} ${String(r.p99).padStart(8)} ${String(r.timeouts).padStart(10)} ${String(r.errors).padStart(7)} ${String(r.non2xx).padStart(8)}`,
-    );
+const wanted = (process.env.BENCH_DATABASES ?? 'sqlite,postgres').split(',').map((s) => s.trim());
+console.log(`http benchmark: ${COUNT} generated cases, ${SECONDS} s per run, node ${process.version}`);
+const runs: [string, Results][] = [];
+if (wanted.includes('sqlite')) runs.push(['SQLite', await benchOne('SQLite', (dataDir) => openDatabase(path.join(dataDir, 'falsetrace.sqlite')), {})]);
+if (wanted.includes('postgres')) {
+  if (!findPostgresBin()) console.log(`\n[PostgreSQL] left out: ${POSTGRES_MISSING}`);
+  else {
+    let cluster: PostgresCluster | undefined;
+    try {
+      cluster = await startPostgresCluster();
+      process.on('exit', () => cluster?.stop());
+      const { url, drop } = await createPostgresDatabase(cluster.adminUrl);
+      // the server's pool is its default size (10), as a deployment would start with
+      runs.push(['PostgreSQL', await benchOne('PostgreSQL', () => openPostgres(url, { max: 4 }), { DATABASE_URL: url })]);
+      await drop();
+    } finally {
+      cluster?.stop();
+    }
   }
 }
-const at16 = (n: string) => results.get(`${n}@16`)!;
-const ratio = (n: string) => at16(n).rps / at16('health').rps;
-const checks: [string, boolean][] = [
-  [`list ≥ 0.3× health at c=16 (${ratio('list').toFixed(2)})`, ratio('list') >= 0.3],
-  [`search ≥ 0.15× health at c=16 (${ratio('search').toFixed(2)})`, ratio('search') >= 0.15],
-  [`list p99 < 150 ms at c=16 (${at16('list').p99} ms)`, at16('list').p99 < 150],
-  [`search p99 < 150 ms at c=16 (${at16('search').p99} ms)`, at16('search').p99 < 150],
-  [`no timeouts at c=64 (${targets.map(([n]) => results.get(`${n}@64`)!.timeouts).join('/')})`, targets.every(([n]) => results.get(`${n}@64`)!.timeouts === 0)],
-];
+
+// one block per database, side by side: the ratios to health are what compare across them
+const cell = (r: Run, health: Run) =>
+  `${r.rps.toFixed(0).padStart(7)} ${(r.rps / health.rps).toFixed(2).padStart(6)} ${String(r.p50).padStart(5)} ${String(r.p99).padStart(5)} ${String(r.timeouts + r.errors + r.non2xx).padStart(4)}`;
 console.log('');
-for (const [what, ok] of checks) console.log(`${ok ? 'met    ' : 'NOT MET'}  ${what}`);
-rmSync(dataDir, { recursive: true, force: true });
+console.log(`${' '.repeat(19)}${runs.map(([label]) => `| ${label.padEnd(31)}`).join('')}`);
+console.log(`target           c ${runs.map(() => '|   req/s ×hlth   p50   p99  bad ').join('')}`);
+for (const c of [16, 64]) {
+  for (const name of TARGET_NAMES) {
+    const cells = runs.map(([, res]) => `| ${cell(res.get(`${name}@${c}`)!, res.get(`health@${c}`)!)} `);
+    console.log(`${name.padEnd(14)} ${String(c).padStart(3)} ${cells.join('')}`);
+  }
+}
+console.log('(p50/p99 in ms; bad = timeouts + errors + non-2xx answers)');
+
+for (const [label, results] of runs) {
+  const at16 = (n: string) => results.get(`${n}@16`)!;
+  const ratio = (n: string) => at16(n).rps / at16('health').rps;
+  const checks: [string, boolean][] = [
+    [`list ≥ 0.3× health at c=16 (${ratio('list').toFixed(2)})`, ratio('list') >= 0.3],
+    [`search ≥ 0.15× health at c=16 (${ratio('search').toFixed(2)})`, ratio('search') >= 0.15],
+    [`list p99 < 150 ms at c=16 (${at16('list').p99} ms)`, at16('list').p99 < 150],
+    [`search p99 < 150 ms at c=16 (${at16('search').p99} ms)`, at16('search').p99 < 150],
+    [`no timeouts at c=64 (${TARGET_NAMES.map((n) => results.get(`${n}@64`)!.timeouts).join('/')})`, TARGET_NAMES.every((n) => results.get(`${n}@64`)!.timeouts === 0)],
+  ];
+  console.log(`\n${label}:`);
+  for (const [what, ok] of checks) console.log(`${ok ? 'met    ' : 'NOT MET'}  ${what}`);
+}

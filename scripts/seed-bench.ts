@@ -1,11 +1,13 @@
 import { existsSync, readdirSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { loadConfig } from '../server/config';
-import { openDatabase, sqliteOf } from '../server/db/database';
+import { openAppDatabase, sqliteOf } from '../server/db/database';
+import { countUsers } from '../server/db/repositories/users';
 import { migrateToLatest } from '../server/db/migrate';
 import { seedBenchCasebook } from '../server/seed/bench/generate-cases';
 
 // DATA_DIR=/tmp/big npm run seed:bench -- 100000 [--force] [--seed=N]
+// DATABASE_URL=postgres://… npm run seed:bench -- 100000   (an empty PostgreSQL database)
 const args = process.argv.slice(2);
 const force = args.includes('--force');
 const seedArg = args.find((a) => a.startsWith('--seed='));
@@ -22,8 +24,9 @@ if (!Number.isSafeInteger(count) || count < 1 || count > 2_000_000) {
   process.exit(2);
 }
 
+const onPostgres = Boolean(process.env.DATABASE_URL?.trim());
 const dataDir = path.resolve(process.env.DATA_DIR ?? './data');
-const present = existsSync(dataDir) ? readdirSync(dataDir) : [];
+const present = existsSync(dataDir) && !onPostgres ? readdirSync(dataDir) : [];
 if (present.length > 0) {
   if (!force) {
     console.error(`${dataDir} is not empty (${present.slice(0, 5).join(', ')}${present.length > 5 ? ', …' : ''}).`);
@@ -38,10 +41,16 @@ if (present.length > 0) {
 }
 
 const config = loadConfig();
-const db = openDatabase(path.join(config.dataDir, 'falsetrace.sqlite'));
+const db = openAppDatabase(config);
 await migrateToLatest(db);
+if (onPostgres && (await countUsers(db)) > 0) {
+  await db.destroy();
+  // dropping tables in somebody's PostgreSQL database is not ours to do
+  console.error('seed:bench only fills an empty database, and this one has accounts. Create a new one (createdb) and point DATABASE_URL at it.');
+  process.exit(1);
+}
 // a throwaway file being filled: no fsync per transaction
-sqliteOf(db).pragma('synchronous = OFF');
+if (!onPostgres) sqliteOf(db).pragma('synchronous = OFF');
 const started = Date.now();
 let reported = 0;
 const seeded = await seedBenchCasebook(db, {
@@ -55,8 +64,8 @@ const seeded = await seedBenchCasebook(db, {
     }
   },
 });
-sqliteOf(db).pragma('synchronous = NORMAL');
+if (!onPostgres) sqliteOf(db).pragma('synchronous = NORMAL');
 await db.destroy();
 const states = Object.entries(seeded.byStatus).map(([k, n]) => `${n} ${k.replace('_', ' ')}`).join(', ');
-console.log(`seeded ${config.dataDir}: ${seeded.people} people, ${seeded.cases} cases (${states}), ${seeded.tags} tag uses, ${seeded.comments} comments in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+console.log(`seeded ${onPostgres ? 'the PostgreSQL database' : config.dataDir}: ${seeded.people} people, ${seeded.cases} cases (${states}), ${seeded.tags} tag uses, ${seeded.comments} comments in ${((Date.now() - started) / 1000).toFixed(1)} s`);
 console.log(`demo accounts sign in with the demo password; the search index is built on the first start.`);

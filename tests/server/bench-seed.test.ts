@@ -1,19 +1,30 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { openDatabase, type Db } from '../../server/db/database';
 import { migrateToLatest } from '../../server/db/migrate';
 import { seedBenchCasebook, type BenchSeedResult } from '../../server/seed/bench/generate-cases';
 import { recomputeDiagnosis } from '../../server/services/case-diagnosis';
 import { caseSetupSchema } from '../../shared/schemas/case';
+import { openTestDatabase } from './helpers/test-context';
 
 describe('seed:bench generator', () => {
   let db: Db;
+  let drop: () => Promise<void>;
   let seeded: BenchSeedResult;
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-bench-seed-'));
   beforeAll(async () => {
-    db = openDatabase(':memory:');
+    // SQLite in memory, or a fresh PostgreSQL database in the api-pg project
+    ({ db, drop } = await openTestDatabase(dataDir));
     await migrateToLatest(db);
     seeded = await seedBenchCasebook(db, { count: 600, password: 'pw-for-the-bench', extraPeople: 12 });
   });
-  afterAll(() => db.destroy());
+  afterAll(async () => {
+    await db.destroy();
+    await drop();
+    rmSync(dataDir, { recursive: true, force: true });
+  });
 
   it('writes every state, several authors, tags and comments', async () => {
     expect(seeded.cases).toBe(600);
@@ -39,6 +50,14 @@ describe('seed:bench generator', () => {
       expect(row.diagnosis).toBe(d.diagnosis ? JSON.stringify(d.diagnosis) : null);
       expect([row.engine_cause, row.cause, row.disagrees]).toEqual([d.engineCause, d.cause, d.disagrees ? 1 : 0]);
     }
+  });
+
+  it('leaves the case ids to carry on after the generated ones', async () => {
+    const at = new Date().toISOString();
+    const author = (await db.selectFrom('users').select('id').limit(1).executeTakeFirstOrThrow()).id;
+    const next = await db.insertInto('cases').values({ author_id: author, title: 'Written after the seed', summary: 's', status: 'draft', created_at: at, updated_at: at }).returning('id').executeTakeFirstOrThrow();
+    expect(next.id).toBeGreaterThan(600);
+    await db.deleteFrom('cases').where('id', '=', next.id).execute();
   });
 
   it('is deterministic for a seed', async () => {

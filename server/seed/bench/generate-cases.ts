@@ -1,8 +1,9 @@
-import type { Insertable } from 'kysely';
+import { sql, type Insertable } from 'kysely';
 import type { CaseCreateInput, CaseSetup, CaseStatus, StatedCause } from '../../../shared/schemas/case';
 import type { Cause } from '../../../shared/schemas/diagnosis';
 import { hashPassword } from '../../auth/password';
 import type { AuditLogTable, CasesTable, CommentsTable, CaseRevisionsTable, CaseTagsTable, Db, WatchesTable } from '../../db/database';
+import { isPostgres } from '../../db/dialect';
 import { insertMany } from '../../db/repositories/bulk-insert';
 import { recomputeDiagnosis, type StoredDiagnosis } from '../../services/case-diagnosis';
 import { DEMO_CASES } from '../demo/seed-casebook';
@@ -158,6 +159,10 @@ export async function seedBenchCasebook(db: Db, options: BenchSeedOptions): Prom
     result.tags += tags.length;
     options.onProgress?.(result.cases);
   }
+  // Case ids are written explicitly (duplicates point at earlier ones). SQLite's AUTOINCREMENT
+  // carries on after the highest id by itself; a PostgreSQL identity column does not move on
+  // explicit ids, so the next case created would collide with case 1 unless it is set here.
+  if (isPostgres(db)) await sql`select setval(pg_get_serial_sequence('cases', 'id'), (select max(id) from cases))`.execute(db);
   await pinLessons(db, moderators[0]);
   return result;
 }

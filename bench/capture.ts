@@ -11,6 +11,8 @@
  *  - numpy: bench/capture_numpy.py (Debian's python3-numpy): the CSV read by numpy.loadtxt and by
  *           np.fromstring (the faster is the baseline), levels by histogram, 10/50/90 % crossings
  *           with hysteresis, rise/fall time and period: less work than the app does.
+ * The app's child runs with the heap limits the server gives its capture worker thread
+ * (capture-pool.ts: a 2 MB semi-space, i.e. a 6 MB young generation, and the old-space cap).
  * Figures: wall time from opening the file to the result, inside each process (start-up and
  * imports excluded on both sides), median of the runs; the app's peak resident set size
  * (getrusage maxRSS of its child process, a high-water mark no sampler can miss).
@@ -24,6 +26,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { performance } from 'node:perf_hooks';
 import { analyzeCaptureFile } from '../server/captures/analyze-file';
+import { CAPTURE_WORKER_HEAP_MB, CAPTURE_WORKER_YOUNG_MB } from '../server/captures/capture-pool';
 import { gaussian, mulberry32, secondOrderStep, squareWaveform } from '../shared/capture/synthetic';
 
 const SIZES = [1_000_000, 10_000_000];
@@ -99,7 +102,9 @@ async function child(file: string): Promise<void> {
 
 function runApp(file: string): Report {
   const script = fileURLToPath(import.meta.url);
-  const run = spawnSync(process.execPath, [...process.execArgv, script, 'child', file], { encoding: 'utf8', maxBuffer: 1 << 24 });
+  // the capture worker's resourceLimits, as V8 flags: V8 makes the young generation three semi-spaces
+  const limits = [`--max-semi-space-size=${CAPTURE_WORKER_YOUNG_MB / 3}`, `--max-old-space-size=${CAPTURE_WORKER_HEAP_MB}`];
+  const run = spawnSync(process.execPath, [...limits, ...process.execArgv, script, 'child', file], { encoding: 'utf8', maxBuffer: 1 << 24 });
   if (run.status !== 0) throw new Error(`app run failed: ${run.stderr}`);
   return JSON.parse(run.stdout.trim().split('\n').pop()!) as Report;
 }

@@ -22,6 +22,8 @@ await build({
   outdir: path.join(out, 'migrations'),
   outExtension: { '.js': '.js' },
 });
+// the capture worker, likewise
+await build({ ...common, entryPoints: [path.join(root, 'server/captures/capture-worker.ts')], bundle: true, outfile: path.join(out, 'capture-worker.mjs') });
 // the image and zip workers are plain JavaScript already; their pools find them beside the bundle
 copyFileSync(path.join(root, 'server/images/reencode-worker.mjs'), path.join(out, 'reencode-worker.mjs'));
 copyFileSync(path.join(root, 'server/casebook/zip-worker.mjs'), path.join(out, 'zip-worker.mjs'));

@@ -5,6 +5,7 @@ import { createApp } from './app';
 import { logger } from './logger';
 import { claimDataDir } from './backup/server-lock';
 import { sweepUploads } from './backup/upload-sweep';
+import { captureWorkers } from './captures/capture-pool';
 import { zipWorkers } from './casebook/zip-pool';
 import { imageWorkers } from './images/image-pool';
 import type { Config } from './config';
@@ -99,6 +100,7 @@ export async function startServer(config: Config) {
     await search.close();
     await imageWorkers.close();
     await zipWorkers.close();
+    await captureWorkers.close();
     mailer.close();
     await fake?.close();
     await db.destroy();

@@ -61,3 +61,23 @@ export async function savePlotStore(store: OpenStore, target: string): Promise<v
     await rm(scratch, { recursive: true, force: true });
   }
 }
+
+/**
+ * Builds the plot store of a capture file stored before plot stores were written at upload:
+ * parses it into a scratch store beside it and keeps the compact samples in `dir`.
+ */
+export async function buildPlotStore(file: string, dir: string): Promise<{ ok: true } | { ok: false; message: string }> {
+  const scratch = scratchDirFor(file, 'samples');
+  try {
+    const parsed = await readCaptureToStore(file, scratch);
+    if (!parsed.ok) return parsed;
+    try {
+      await savePlotStore(parsed.store, dir);
+    } finally {
+      parsed.store.close();
+    }
+    return { ok: true };
+  } finally {
+    await rm(scratch, { recursive: true, force: true });
+  }
+}

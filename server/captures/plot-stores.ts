@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
-import { rm } from 'node:fs/promises';
 import path from 'node:path';
-import { plotStoreDirFor, readCaptureToStore, savePlotStore, scratchDirFor } from './capture-store';
+import { captureWorkers } from './capture-pool';
+import { plotStoreDirFor } from './capture-store';
 import { openStore, type OpenStore } from './sample-store';
 
 type Built = { ok: true } | { ok: false; message: string };
@@ -11,27 +11,16 @@ type Built = { ok: true } | { ok: false; message: string };
  * (written at upload; for a capture stored before that, built from its CSV on first use), so
  * zooming and panning a plot reads the binary samples instead of re-parsing the CSV, and
  * memory does not grow with the captures. Two requests for a store still being built share
- * one build.
+ * one build, which runs on the capture worker.
  */
 export function createPlotStores() {
   const building = new Map<string, Promise<Built>>();
   let builds = 0;
 
-  const build = async (file: string, dir: string): Promise<Built> => {
+  // on the capture worker: a first view of a large capture does not stall other requests
+  const build = (file: string, dir: string): Promise<Built> => {
     builds++;
-    const scratch = scratchDirFor(file, 'samples');
-    try {
-      const parsed = await readCaptureToStore(file, scratch);
-      if (!parsed.ok) return parsed;
-      try {
-        await savePlotStore(parsed.store, dir);
-      } finally {
-        parsed.store.close();
-      }
-      return { ok: true };
-    } finally {
-      await rm(scratch, { recursive: true, force: true });
-    }
+    return captureWorkers.buildPlotStore(file, dir);
   };
 
   return {

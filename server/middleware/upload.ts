@@ -3,6 +3,7 @@ import type { RequestHandler } from 'express';
 import { AppError } from '../errors';
 import { DEFAULT_CAPTURE_LIMIT_BYTES, type Config } from '../config';
 import { storagePaths } from '../storage';
+import { imageLimitedStorage, markNamedImages } from './image-limited-storage';
 
 /** The capture limit in words: "2 GB", "1.5 MB". */
 export function sizeInWords(bytes: number): string {
@@ -12,13 +13,15 @@ export function sizeInWords(bytes: number): string {
 
 /**
  * One multipart field `file`, streamed to DATA_DIR/uploads/incoming (never held in memory),
- * up to the capture limit (`CAPTURE_LIMIT_BYTES`); screenshots are held to their own, smaller
- * limit once their content is known.
+ * up to the capture limit (`CAPTURE_LIMIT_BYTES`). A picture (by name, declared type or first
+ * bytes) is held to the screenshot limit as it arrives, so it never fills the disk up to the
+ * capture limit before being refused.
  */
 export function singleUpload(config: Config): RequestHandler {
   const limitBytes = config.captureLimitBytes ?? DEFAULT_CAPTURE_LIMIT_BYTES;
   const upload = multer({
-    dest: storagePaths(config).incomingDir,
+    storage: imageLimitedStorage(storagePaths(config).incomingDir),
+    fileFilter: markNamedImages,
     // browsers send the file name as UTF-8 bytes; busboy would read them as Latin-1
     defParamCharset: 'utf8',
     limits: { fileSize: limitBytes, files: 1, fields: 10 },

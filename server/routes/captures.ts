@@ -1,6 +1,7 @@
 import { rm } from 'node:fs/promises';
 import { Router } from 'express';
-import { analyzeCaptureFile, channelField } from '../captures/analyze-file';
+import { channelField } from '../captures/analyze-file';
+import { captureWorkers } from '../captures/capture-pool';
 import type { AppDeps } from '../deps';
 import { AppError } from '../errors';
 import { requireAuth } from '../middleware/require-auth';
@@ -17,7 +18,7 @@ export function captureRoutes(deps: AppDeps) {
     try {
       const field = channelField((req.body as Record<string, unknown> | undefined)?.channel);
       if ('error' in field) throw new AppError('invalid_input', field.error, [{ path: 'channel', message: field.error }]);
-      const result = await analyzeCaptureFile(req.file!.path, field);
+      const result = await captureWorkers.analyze(req.file!.path, field);
       if (!result.ok) throw new AppError('invalid_input', `The capture cannot be read: ${result.message}`);
       res.json(result.analysis);
     } finally {

@@ -3,7 +3,7 @@ import { canEditCase } from '../../shared/auth/case-policy';
 import type { Actor } from '../../shared/auth/roles';
 import type { Attachment } from '../../shared/schemas/case';
 import path from 'node:path';
-import { analyzeCaptureFile } from '../captures/analyze-file';
+import { captureWorkers } from '../captures/capture-pool';
 import { plotStoreDirFor } from '../captures/capture-store';
 import { deleteAttachmentRow, findAttachment, insertAttachment } from '../db/repositories/attachments';
 import { updateCaseRow } from '../db/repositories/cases';
@@ -86,7 +86,7 @@ export async function addAttachment(deps: AppDeps, actor: Actor, caseId: number,
       // the compact samples the plots read are written in the same pass as the analysis
       const plotDir = plotStoreDirFor(storage.fileFor(name));
       written.push(path.basename(plotDir));
-      const result = await analyzeCaptureFile(file.path, {}, { plotDir });
+      const result = await captureWorkers.analyze(file.path, {}, { plotDir });
       if (!result.ok) throw new AppError('unsupported_type', `Not an accepted screenshot (PNG, JPEG, GIF, BMP) or CSV capture: ${result.message}`);
       await storage.moveIn(file.path, name);
       written.push(name);

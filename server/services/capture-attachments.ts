@@ -2,7 +2,7 @@ import { canEditCase } from '../../shared/auth/case-policy';
 import type { Actor } from '../../shared/auth/roles';
 import type { Attachment } from '../../shared/schemas/case';
 import type { CaptureAttachmentPatch } from '../../shared/schemas/capture-attachment';
-import { analyzeCaptureFile } from '../captures/analyze-file';
+import { captureWorkers } from '../captures/capture-pool';
 import { findAttachment } from '../db/repositories/attachments';
 import { updateCaseRow } from '../db/repositories/cases';
 import type { AppDeps } from '../deps';
@@ -24,7 +24,7 @@ export async function updateCaptureAttachment(deps: AppDeps, actor: Actor, attac
   if (att.kind !== 'capture') throw new AppError('invalid_input', 'This attachment is a screenshot, not a waveform capture');
   const changes: { analysis?: string; capture_channel?: number; capture_role?: 'before' | 'after' | null } = {};
   if (patch.channel !== undefined) {
-    const result = await analyzeCaptureFile(storagePaths(deps.config).fileFor(att.storage_name), { channel: patch.channel });
+    const result = await captureWorkers.analyze(storagePaths(deps.config).fileFor(att.storage_name), { channel: patch.channel });
     if (!result.ok) throw new AppError('invalid_input', `Channel ${patch.channel} cannot be analysed: ${result.message}`, [{ path: 'channel', message: result.message }]);
     changes.analysis = JSON.stringify(result.analysis);
     changes.capture_channel = patch.channel;

@@ -97,6 +97,23 @@ export class CompactEngine {
     return count;
   }
 
+  /** Live cases holding the term in any of `fields` (field numbers in DOC_FIELDS' order). */
+  casesWithTerm(term: string, fields: number[]): number[] {
+    const t = this.termIds.get(term);
+    if (t === undefined) return [];
+    const list = this.lists[t];
+    const out: number[] = [];
+    let last = -1;
+    for (let i = 0; i < this.used[t]; i++) {
+      const slot = list[i] >>> SLOT_SHIFT;
+      const id = this.ids[slot];
+      if (slot === last || id < 0 || !fields.includes((list[i] >>> FIELD_SHIFT) & 7)) continue;
+      last = slot;
+      out.push(id);
+    }
+    return out;
+  }
+
   completions(prefix: string, limit: number): { term: string; postings: number }[] {
     const out: { term: string; postings: number }[] = [];
     for (const [term, t] of this.dict.atPrefix(prefix)) if (term !== prefix && this.used[t] > 0) out.push({ term, postings: this.used[t] });

@@ -77,7 +77,7 @@ export class CaseIndex {
     return group.terms.reduce((sum, t) => sum + this.engine.postings(t.term), 0);
   }
 
-  /** Σ weight × BM25+ over a group's terms, for the cases `allow` admits (the filter applied inside scoring). */
+  /** Σ weight × BM25F over a group's terms, for the cases `allow` admits (the filter applied inside scoring). */
   scoreGroup(group: TermGroup, allow: (id: number) => boolean): Map<number, number> {
     const out = new Map<number, number>();
     for (const t of group.terms) this.engine.scoreTerm(t.term, t.weight, allow, out);

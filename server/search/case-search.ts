@@ -51,6 +51,8 @@ export interface CaseSearch {
   followNow(): Promise<void>;
   search(actor: Actor, query: SearchQuery): Promise<SearchResponse>;
   similar(actor: Actor, id: number): Promise<SimilarResponse>;
+  /** Ids whose title or summary may hold `q` as whole words, at most `limit`; undefined until ready or when the index cannot say. */
+  listCandidates(q: string, limit: number): Promise<number[] | undefined>;
   saveSnapshot(): Promise<void>;
   close(): Promise<void>;
 }
@@ -213,6 +215,7 @@ export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): P
       const rows = await page(await core.similar(actor, { id: source.id, title: source.title, summary: source.summary }));
       return { similar: rows.map(({ ranked: r, row }) => ({ id: row.id, title: row.title, summary: row.summary, cause: row.cause, score: round(r.score) })) };
     },
+    listCandidates: async (q, limit) => (ready && !failure ? core.listCandidates(q, limit) : undefined),
     saveSnapshot: () => core.save(),
     async close() {
       closed = true;

@@ -2,9 +2,24 @@ import SearchableMap from 'minisearch/SearchableMap';
 import { indexTerms } from '../../shared/search/text-terms';
 import { DOC_FIELDS, FIELD_BOOST, type CaseDoc } from './case-document';
 
-/** BM25+ parameters, minisearch's defaults. source: Lv & Zhai, "Lower-bounding term frequency normalization", CIKM 2011 (BM25+); minisearch 7 defaults k=1.2, b=0.7, d=0.5 */
+/**
+ * BM25F with a BM25+ floor. Each field's term frequency is multiplied by the field's boost and
+ * the products summed BEFORE saturation, and one length normalisation applies to the whole
+ * case, its length being the boost-weighted sum of its field lengths (the case read as if each
+ * field were written out `boost` times):
+ *   tf' = Σ_f boost_f · tf_f,  len = Σ_f boost_f · len_f,
+ *   score = idf · (δ + tf'·(k1 + 1) / (tf' + k1·(1 − b + b·len/avglen))),
+ *   idf = ln(1 + (N − df + 0.5) / (df + 0.5)), df counting cases holding the term in any field.
+ * So a word repeated across the title, summary and story saturates once, as in one document,
+ * instead of each short field earning a near-full score of its own (which favoured cases whose
+ * matches sat in short fields over cases that matched everywhere).
+ * source: Robertson, Zaragoza & Taylor, "Simple BM25 extension to multiple weighted fields", CIKM 2004;
+ * Robertson & Zaragoza, "The Probabilistic Relevance Framework: BM25 and Beyond", FnTIR 3(4), 2009, 3.4 (BM25F);
+ * δ: Lv & Zhai, "Lower-bounding term frequency normalization", CIKM 2011 (BM25+).
+ * k1 = 1.2, b = 0.75: the values Robertson & Zaragoza give as usual (and SQLite FTS5's bm25()); δ = 0.5 is minisearch 7's default.
+ */
 const K = 1.2;
-const B = 0.7;
+const B = 0.75;
 const D = 0.5;
 const BOOSTS = DOC_FIELDS.map((f) => FIELD_BOOST[f]);
 const FIELDS = DOC_FIELDS.length;
@@ -28,8 +43,8 @@ export interface CompactHeader {
  * numbered slots, field lengths are Uint16Arrays. minisearch keeps a Map per term and field
  * (about 70 bytes a posting, 1.7 GB at 100k cases); this keeps 4 bytes a posting plus slack,
  * and the snapshot is the arrays themselves, so a restart maps them back without parsing.
- * Scoring is minisearch's BM25+ over the same fields and boosts (its dictionary, a radix tree,
- * is reused for prefix and fuzzy lookups). A changed case takes a new slot; the old one is
+ * Scoring is BM25F over the fields and their boosts (minisearch's dictionary, a radix tree, is
+ * reused for prefix and fuzzy lookups). A changed case takes a new slot; the old one is
  * marked dead and skipped, and `vacuum` drops dead postings once they are a tenth of the lot.
  */
 export class CompactEngine {
@@ -82,6 +97,23 @@ export class CompactEngine {
     return count;
   }
 
+  /** Live cases holding the term in any of `fields` (field numbers in DOC_FIELDS' order). */
+  casesWithTerm(term: string, fields: number[]): number[] {
+    const t = this.termIds.get(term);
+    if (t === undefined) return [];
+    const list = this.lists[t];
+    const out: number[] = [];
+    let last = -1;
+    for (let i = 0; i < this.used[t]; i++) {
+      const slot = list[i] >>> SLOT_SHIFT;
+      const id = this.ids[slot];
+      if (slot === last || id < 0 || !fields.includes((list[i] >>> FIELD_SHIFT) & 7)) continue;
+      last = slot;
+      out.push(id);
+    }
+    return out;
+  }
+
   completions(prefix: string, limit: number): { term: string; postings: number }[] {
     const out: { term: string; postings: number }[] = [];
     for (const [term, t] of this.dict.atPrefix(prefix)) if (term !== prefix && this.used[t] > 0) out.push({ term, postings: this.used[t] });
@@ -111,16 +143,15 @@ export class CompactEngine {
     DOC_FIELDS.forEach((field, f) => {
       const terms = indexTerms(doc[field]);
       const shift = 6 * f;
-      let unique = 0;
       for (const term of terms) {
         const packed = freqs.get(term) ?? 0;
         const n = (packed >>> shift) & 63;
-        if (n === 0) unique++;
         if (n < TF_MASK) freqs.set(term, packed + (1 << shift));
       }
-      // minisearch's field length: the distinct terms of the field
-      this.fieldLength[f][slot] = Math.min(unique, 65535);
-      this.totalLength[f] += unique;
+      // the field's length in index terms (stop words left out), for BM25F's length normalisation
+      const length = Math.min(terms.length, 65535);
+      this.fieldLength[f][slot] = length;
+      this.totalLength[f] += length;
     });
     for (const [term, packed] of freqs) {
       let t = this.termIds.get(term);
@@ -151,8 +182,8 @@ export class CompactEngine {
   }
 
   /**
-   * Adds Σ weight × BM25+ over the fields to `out` for each live case `allow` admits. Document
-   * frequency is counted per field over live cases, as minisearch does after its vacuum.
+   * Adds weight × BM25F (see the top of this file) to `out` for each live case `allow` admits.
+   * A case's postings of one term are adjacent (one per field), so each case is summed in one run.
    */
   scoreTerm(term: string, weight: number, allow: (id: number) => boolean, out: Map<number, number>) {
     const t = this.termIds.get(term);
@@ -160,29 +191,27 @@ export class CompactEngine {
     const list = this.lists[t];
     const n = this.used[t];
     const ids = this.ids;
-    const df = new Float64Array(FIELDS);
-    for (let i = 0; i < n; i++) if (ids[list[i] >>> SLOT_SHIFT] >= 0) df[(list[i] >>> FIELD_SHIFT) & 7]++;
-    const factor = new Float64Array(FIELDS);
-    const avg = new Float64Array(FIELDS);
-    for (let f = 0; f < FIELDS; f++) {
-      factor[f] = weight * BOOSTS[f] * Math.log(1 + (this.documentCount - df[f] + 0.5) / (df[f] + 0.5));
-      avg[f] = this.totalLength[f] / this.documentCount || 1;
+    let df = 0;
+    for (let i = 0, last = -1; i < n; i++) {
+      const slot = list[i] >>> SLOT_SHIFT;
+      if (slot !== last && ids[slot] >= 0) df++;
+      last = slot;
     }
-    let lastSlot = -1;
-    let lastOk = false;
-    for (let i = 0; i < n; i++) {
-      const e = list[i];
-      const slot = e >>> SLOT_SHIFT;
+    if (df === 0) return;
+    const idf = weight * Math.log(1 + (this.documentCount - df + 0.5) / (df + 0.5));
+    let total = 0;
+    for (let f = 0; f < FIELDS; f++) total += BOOSTS[f] * this.totalLength[f];
+    const avg = total / this.documentCount || 1;
+    const lengths = this.fieldLength;
+    for (let i = 0; i < n; ) {
+      const slot = list[i] >>> SLOT_SHIFT;
+      let tf = 0;
+      for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) tf += BOOSTS[(list[i] >>> FIELD_SHIFT) & 7] * (list[i] & TF_MASK);
       const id = ids[slot];
-      if (id < 0) continue;
-      if (slot !== lastSlot) {
-        lastSlot = slot;
-        lastOk = allow(id);
-      }
-      if (!lastOk) continue;
-      const f = (e >>> FIELD_SHIFT) & 7;
-      const tf = e & TF_MASK;
-      const score = factor[f] * (D + (tf * (K + 1)) / (tf + K * (1 - B + (B * this.fieldLength[f][slot]) / avg[f])));
+      if (id < 0 || !allow(id)) continue;
+      let length = 0;
+      for (let f = 0; f < FIELDS; f++) length += BOOSTS[f] * lengths[f][slot];
+      const score = idf * (D + (tf * (K + 1)) / (tf + K * (1 - B + (B * length) / avg)));
       out.set(id, (out.get(id) ?? 0) + score);
     }
   }

@@ -3,7 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { SearchCore, type CoreOptions } from './search-core';
 
-const METHODS = ['size', 'restore', 'begin', 'add', 'finish', 'upsert', 'remove', 'rank', 'highlights', 'similar', 'save', 'close'] as const;
+const METHODS = ['size', 'restore', 'begin', 'add', 'finish', 'upsert', 'remove', 'rank', 'highlights', 'similar', 'listCandidates', 'save', 'close'] as const;
 type Method = (typeof METHODS)[number];
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Fn = (...args: any[]) => any;

@@ -3,7 +3,7 @@ import type { Actor } from '../../shared/auth/roles';
 import type { Case, CaseCreateInput, CaseListQuery, CasePatchInput, CaseSetup, CaseSummary } from '../../shared/schemas/case';
 import { listAttachments } from '../db/repositories/attachments';
 import { replaceCaseTags, tagsOfCases } from '../db/repositories/case-tags';
-import { deleteCaseRow, findCaseById, insertCase, listCaseAuthors, listCases, updateCaseRow, type CaseRowWithAuthor } from '../db/repositories/cases';
+import { deleteCaseRow, findCaseById, insertCase, listCaseAuthors, listCases, TEXT_CANDIDATE_LIMIT, updateCaseRow, type CaseRowWithAuthor } from '../db/repositories/cases';
 import { insertRevision } from '../db/repositories/revisions';
 import type { Db } from '../db/database';
 import type { AppDeps } from '../deps';
@@ -195,8 +195,10 @@ export async function deleteCase({ db, search }: AppDeps, actor: Actor, id: numb
   return files.flatMap((f) => [f.storage_name, ...(f.thumbnail_name ? [f.thumbnail_name] : [])]);
 }
 
-export async function listCasesFor({ db }: AppDeps, actor: Actor, query: CaseListQuery): Promise<{ cases: CaseSummary[]; total: number; totalCapped?: true }> {
-  const { rows, total, totalCapped } = await listCases(db, actor, query);
+export async function listCasesFor({ db, search }: AppDeps, actor: Actor, query: CaseListQuery): Promise<{ cases: CaseSummary[]; total: number; totalCapped?: true }> {
+  // the text filter reads only the cases the search index names; every case when the index is not ready or cannot say
+  const candidates = query.q && search ? await search.listCandidates(query.q, TEXT_CANDIDATE_LIMIT).catch(() => undefined) : undefined;
+  const { rows, total, totalCapped } = await listCases(db, actor, query, candidates);
   const tags = await tagsOfCases(db, rows.map((r) => r.id));
   return { cases: rows.map((r) => toCaseSummary(r, tags.get(r.id) ?? [])), total, ...(totalCapped && { totalCapped: true as const }) };
 }

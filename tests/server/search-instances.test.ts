@@ -63,12 +63,16 @@ describe('search across app instances and off the request thread', () => {
     const w = await openCaseSearch(ctx.db, { worker: true, background: true, readyWaitMs: 0, followMs: 0 });
     try {
       expect(w.isReady()).toBe(false);
+      // the case list scans while the index loads
+      expect(await w.listCandidates('bilbyprobe', 100)).toBeUndefined();
       await expect(w.search(moderator, query('bilbyprobe '))).rejects.toMatchObject({ status: 503, message: expect.stringMatching(/still loading/) });
       await w.ready;
       expect(w.isReady()).toBe(true);
       const r = await w.search(moderator, query('bilbyprobe '));
       expect(r.results.map((x) => x.title)).toEqual(['Bilbyprobe overshoot']);
       expect(r.results[0].highlights[0]).toMatchObject({ field: 'title', ranges: [[0, 10]] });
+      const listed = await w.listCandidates('bilbyprobe', 100);
+      expect(listed).toHaveLength(1);
     } finally {
       await w.close();
     }

@@ -52,7 +52,13 @@ function branchesFor(actor: Actor, q: CaseListQuery): Branch[] {
   return out;
 }
 
-function filtered(db: Db, actor: Actor, branch: Branch, q: CaseListQuery, sortsByAuthor: boolean) {
+/**
+ * The cases the search index says may match the text filter (see server/search/list-filter.ts):
+ * the substring test then reads only these rows. Past this many the id list costs more than the scan.
+ */
+export const TEXT_CANDIDATE_LIMIT = 5000;
+
+function filtered(db: Db, actor: Actor, branch: Branch, q: CaseListQuery, sortsByAuthor: boolean, candidates?: number[]) {
   let base = sortsByAuthor ? db.selectFrom('cases').innerJoin('users', 'users.id', 'cases.author_id') : db.selectFrom('cases');
   if (branch === 'verified') base = base.where('cases.status', '=', 'verified');
   // listed, not `!= 'verified'`, so the (author_id, status, …) index can seek each one
@@ -68,6 +74,7 @@ function filtered(db: Db, actor: Actor, branch: Branch, q: CaseListQuery, sortsB
   }
   if (q.q) {
     const text = q.q;
+    if (candidates) base = base.where('cases.id', 'in', candidates.length ? candidates : [-1]);
     base = base.where((eb) => eb.or([containsText('cases.title', text), containsText('cases.summary', text)]));
   }
   return base;
@@ -108,8 +115,9 @@ const compareKeys = (a: Key, b: Key) => (a === b ? 0 : a === null ? -1 : b === n
  * One page of the cases the actor may see, filtered and sorted as asked, with the total (exact up
  * to COUNT_CAP matches past the page, else that many and `totalCapped`). Each visibility branch
  * sorts and cuts ids on its indexes alone (a deferred join); the wide rows of the page are read last.
+ * `candidates`, when given, narrows the text filter to those ids (the substring test still decides).
  */
-export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise<{ rows: CaseListRow[]; total: number; totalCapped: boolean }> {
+export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidates?: number[]): Promise<{ rows: CaseListRow[]; total: number; totalCapped: boolean }> {
   const sortName = q.sort.replace(/^-/, '') as keyof typeof SORT_COLUMNS;
   const column = SORT_COLUMNS[sortName];
   const dir = q.sort.startsWith('-') ? 'desc' : 'asc';
@@ -121,9 +129,9 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise
   const keyed: { id: number; key: Key }[] = [];
   const stamp = await casebookStamp(db);
   for (const branch of branches) {
-    const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap]), async () => {
+    const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap, candidates ? 'index' : 'scan']), async () => {
       const counted = await db
-        .selectFrom(filtered(db, actor, branch, q, false).select(sql<number>`1`.as('one')).limit(cap).as('m'))
+        .selectFrom(filtered(db, actor, branch, q, false, candidates).select(sql<number>`1`.as('one')).limit(cap).as('m'))
         .select((eb) => eb.fn.countAll<number>().as('n'))
         .executeTakeFirstOrThrow();
       return Number(counted.n);
@@ -132,7 +140,7 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery): Promise
     if (n >= cap) totalCapped = true;
     if (n === 0) continue;
     // ties broken by id in the same direction, so one index gives the whole order
-    const rows = await filtered(db, actor, branch, q, sortName === 'author')
+    const rows = await filtered(db, actor, branch, q, sortName === 'author', candidates)
       .select(['cases.id', sql<Key>`${sql.ref(column)}`.as('key')])
       .orderBy(sql.ref(column), dir)
       .orderBy('cases.id', dir)

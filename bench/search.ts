@@ -13,14 +13,11 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { caseDocument } from '../server/search/case-document';
 import { CaseIndex } from '../server/search/case-index';
-import { rankCases } from '../server/search/rank';
 import { indexStamp, snapshotPath, writeSnapshot } from '../server/search/snapshot';
 import { appPage } from './search-app-page';
-import { generateCorpus } from './search-corpus';
 import { buildFts5 } from './search-fts5';
-import { JUDGED_QUERIES, judgedRows, ndcgAt } from './search-judged';
+import { judgedCorpus, judgeQueries, meanOf } from './search-judged-run';
 import { queryMix } from './search-queries';
 
 const mb = (x: number) => `${x.toFixed(0)} MB`;
@@ -42,12 +39,7 @@ console.log(`search benchmark: ${SIZES.join(' and ')} generated cases, 200 queri
 
 const ratios: string[] = [];
 for (const count of SIZES) {
-  const corpus = generateCorpus(count);
-  const judged = judgedRows(count);
-  const rows = [...corpus.rows, ...judged.rows];
-  const tags = new Map([...corpus.tags, ...judged.tags]);
-  const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], new Map()));
-  const titleOf = new Map(rows.map((r) => [r.id, r.title]));
+  const { judgedCount, rows, entries, titleOf } = judgedCorpus(count);
 
   const index = new CaseIndex();
   const [, msIndex] = time(() => index.addAll(entries));
@@ -92,18 +84,12 @@ for (const count of SIZES) {
   const ftsMs = times.fts.map(median);
 
   // relevance on the judged set, as a moderator (every case visible to both)
-  const as = { role: 'moderator' as const, id: 999 };
-  let ndcgApp = 0;
-  let ndcgFts = 0;
-  for (const j of JUDGED_QUERIES) {
-    const mine = rankCases(index, as, { q: j.q, page: 1, pageSize: 5 }, new Map()).page.map((r) => titleOf.get(r.id)!);
-    const theirs = fts.search({ q: j.q, as, kind: 'judged' }).ids.slice(0, 5).map((id) => titleOf.get(id)!);
-    ndcgApp += ndcgAt(5, mine, j.relevant) / JUDGED_QUERIES.length;
-    ndcgFts += ndcgAt(5, theirs, j.relevant) / JUDGED_QUERIES.length;
-  }
+  const judgedQueries = judgeQueries(index, fts, titleOf);
+  const ndcgApp = meanOf(judgedQueries.map((j) => j.ndcgApp));
+  const ndcgFts = meanOf(judgedQueries.map((j) => j.ndcgFts5));
 
   console.log('');
-  console.log(`${count} cases (+${judged.rows.length} judged)     app              fts5`);
+  console.log(`${count} cases (+${judgedCount} judged)     app              fts5`);
   console.log(`index time                 ${ms(msIndex).padEnd(16)} ${ms(msFts)}`);
   console.log(`start-up to ready          ${ms(app.msReady).padEnd(16)} ${ms(lite.msReady)}   (fresh process, from disk; app snapshot ${mb(statSync(snapshotPath(dir)).size / 1e6)}, written in ${ms(msWrite)}; fts5 file ${mb(statSync(ftsFile).size / 1e6)})`);
   console.log(`RSS for the index          ${mb(app.rssIndexMB).padEnd(16)} ${mb(lite.rssIndexMB)}   (resident memory added by loading, fresh process)`);
@@ -111,7 +97,7 @@ for (const count of SIZES) {
   console.log(`first page after start     ${ms(app.msFirst).padEnd(16)} ${ms(lite.msFirst)}`);
   console.log(`full page p50              ${ms(quantile(appMs, 0.5)).padEnd(16)} ${ms(quantile(ftsMs, 0.5))}`);
   console.log(`full page p95              ${ms(quantile(appMs, 0.95)).padEnd(16)} ${ms(quantile(ftsMs, 0.95))}`);
-  console.log(`nDCG@5, judged set         ${ndcgApp.toFixed(3).padEnd(16)} ${ndcgFts.toFixed(3)}   (${JUDGED_QUERIES.length} queries; fts5: plain BM25)`);
+  console.log(`nDCG@5, judged set         ${ndcgApp.toFixed(3).padEnd(16)} ${ndcgFts.toFixed(3)}   (${judgedQueries.length} queries; fts5: plain BM25)`);
   const kinds = [...new Set(mix.map((q) => q.kind))];
   console.log('by kind of query, page p50 / p95:');
   for (const k of kinds) {

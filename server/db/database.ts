@@ -276,9 +276,50 @@ export function openDatabase(file: string): Db {
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
-  const db = new Kysely<Database>({ dialect: new SqliteDialect({ database: sqlite }) });
+  const preparer = withStatementCache(sqlite);
+  const db = new Kysely<Database>({ dialect: new SqliteDialect({ database: preparer }) });
   connections.set(db, sqlite);
+  preparers.set(db, preparer);
   return db;
+}
+
+const preparers = new WeakMap<Db, { prepare(sql: string): SQLite.Statement }>();
+
+/** What Kysely prepares every statement of a `openDatabase` instance through, cached or not (tests count the statements a request runs). */
+export function statementPreparerOf(db: Db): { prepare(sql: string): SQLite.Statement } {
+  const preparer = preparers.get(db);
+  if (!preparer) throw new Error('This database was not opened with openDatabase');
+  return preparer;
+}
+
+/** Prepared statements kept per SQL text; the app's queries are a few hundred shapes. */
+const STATEMENTS_KEPT = 500;
+
+/**
+ * The connection as Kysely's SQLite driver sees it, with prepared statements reused: the driver
+ * prepares every query afresh, and compiling the SQL cost a request more than running it. A
+ * statement still being iterated (a streamed query) is never handed out twice.
+ */
+function withStatementCache(sqlite: SQLite.Database) {
+  const kept = new Map<string, SQLite.Statement>();
+  return {
+    close: () => sqlite.close(),
+    prepare(sql: string): SQLite.Statement {
+      const found = kept.get(sql);
+      if (found && !found.busy) {
+        // Map order is insertion order: move it to the back, so the front is the least recently used
+        kept.delete(sql);
+        kept.set(sql, found);
+        return found;
+      }
+      const statement = sqlite.prepare(sql);
+      if (!found) {
+        if (kept.size >= STATEMENTS_KEPT) kept.delete(kept.keys().next().value!);
+        kept.set(sql, statement);
+      }
+      return statement;
+    },
+  };
 }
 
 /** The better-sqlite3 connection under a Kysely instance from `openDatabase` (for the online backup API). */

@@ -21,8 +21,19 @@ export interface TermGroup {
 export type IndexTuning = Record<string, never>;
 
 /** The cases' compact inverted index and the facts that filter and facet them. */
+/** A case's cause, status and tags as small numbers (`CaseIndex.facetName` reads them back): facets count into arrays. */
+export interface FacetCodes {
+  cause: number;
+  status: number;
+  tags: Int32Array;
+}
+
 export class CaseIndex {
   readonly facts = new Map<number, CaseFacts>();
+  /** Per case, its facet values as codes; kept with `facts`. */
+  readonly facetCodes = new Map<number, FacetCodes>();
+  private readonly codeOf = new Map<string, number>();
+  private readonly names: string[] = [];
   /** Cases by stated and by engine cause: symptom fitting reads only the inferred causes' cases. */
   private readonly byCause = new Map<string, Set<number>>();
 
@@ -51,6 +62,7 @@ export class CaseIndex {
   setFacts(id: number, facts: CaseFacts) {
     this.deleteFacts(id);
     this.facts.set(id, facts);
+    this.facetCodes.set(id, { cause: facts.cause ? this.code(facts.cause) : -1, status: this.code(facts.status), tags: Int32Array.from(facts.tags, (t) => this.code(t)) });
     for (const c of new Set([facts.cause, facts.engineCause])) {
       if (!c) continue;
       let set = this.byCause.get(c);
@@ -63,8 +75,34 @@ export class CaseIndex {
     const old = this.facts.get(id);
     if (!old) return;
     this.facts.delete(id);
+    this.facetCodes.delete(id);
     if (old.cause) this.byCause.get(old.cause)?.delete(id);
     if (old.engineCause) this.byCause.get(old.engineCause)?.delete(id);
+  }
+
+  /** The code of a facet value (a cause, status or tag), given out on first sight; codes are never reused. */
+  code(name: string): number {
+    let code = this.codeOf.get(name);
+    if (code === undefined) {
+      code = this.names.length;
+      this.names.push(name);
+      this.codeOf.set(name, code);
+    }
+    return code;
+  }
+
+  /** The code of a facet value already seen, else −1. */
+  knownCode(name: string): number {
+    return this.codeOf.get(name) ?? -1;
+  }
+
+  facetName(code: number): string {
+    return this.names[code];
+  }
+
+  /** How many facet values have codes: the size of a count array. */
+  get codeCount(): number {
+    return this.names.length;
   }
 
   /** Cases filed under `cause` or diagnosed as it by the engine. */
@@ -75,6 +113,11 @@ export class CaseIndex {
   /** What scoring a group costs: the postings to walk. */
   groupCost(group: TermGroup): number {
     return group.terms.reduce((sum, t) => sum + this.engine.postings(t.term), 0);
+  }
+
+  /** `scoreGroup` by slot (see `CompactEngine.scoreTermSlots`). */
+  scoreGroupSlots(group: TermGroup, admit: (slot: number) => boolean, acc: Float64Array, touched: number[]) {
+    for (const t of group.terms) this.engine.scoreTermSlots(t.term, t.weight, admit, acc, touched);
   }
 
   /** Σ weight × BM25F over a group's terms, for the cases `allow` admits (the filter applied inside scoring). */

@@ -63,6 +63,10 @@ export class CompactEngine {
   private slots = 0;
   private dead = 0;
   documentCount = 0;
+  /** Bumped by every change: a cached document frequency is good while its stamp equals it. */
+  private version = 1;
+  private dfCache = new Int32Array(0);
+  private dfStamp = new Uint32Array(0);
 
   has(id: number) {
     return this.slotOf.has(id);
@@ -134,6 +138,7 @@ export class CompactEngine {
     if (this.slotOf.has(doc.id)) this.discard(doc.id);
     if (this.slots >= MAX_SLOTS) this.vacuum(true);
     const slot = this.slots++;
+    this.version++;
     this.grow(slot + 1);
     this.ids[slot] = doc.id;
     this.slotOf.set(doc.id, slot);
@@ -174,6 +179,7 @@ export class CompactEngine {
     const slot = this.slotOf.get(id);
     if (slot === undefined) return;
     this.slotOf.delete(id);
+    this.version++;
     this.ids[slot] = -1;
     for (let f = 0; f < FIELDS; f++) this.totalLength[f] -= this.fieldLength[f][slot];
     this.documentCount--;
@@ -191,12 +197,7 @@ export class CompactEngine {
     const list = this.lists[t];
     const n = this.used[t];
     const ids = this.ids;
-    let df = 0;
-    for (let i = 0, last = -1; i < n; i++) {
-      const slot = list[i] >>> SLOT_SHIFT;
-      if (slot !== last && ids[slot] >= 0) df++;
-      last = slot;
-    }
+    const df = this.liveCases(t);
     if (df === 0) return;
     const idf = weight * Math.log(1 + (this.documentCount - df + 0.5) / (df + 0.5));
     let total = 0;
@@ -216,8 +217,79 @@ export class CompactEngine {
     }
   }
 
+  /** Slots in use (live and dead): the size of a per-slot array. */
+  get slotCount(): number {
+    return this.slots;
+  }
+
+  /** The case in a slot, −1 when the slot is dead. */
+  idAt(slot: number): number {
+    return this.ids[slot];
+  }
+
+  /** The slot of a live case, or −1. */
+  slotOfCase(id: number): number {
+    return this.slotOf.get(id) ?? -1;
+  }
+
+  /**
+   * `scoreTerm` over slots instead of case ids, for the hot path of a query: adds weight × BM25F
+   * into `acc[slot]` for each live slot `admit` returns true for, and appends each slot seen for
+   * the first time (its `acc` still 0; scores are always positive) to `touched`. No maps: a
+   * common word's thousands of postings cost an array add each.
+   */
+  scoreTermSlots(term: string, weight: number, admit: (slot: number) => boolean, acc: Float64Array, touched: number[]) {
+    const t = this.termIds.get(term);
+    if (t === undefined || this.documentCount === 0) return;
+    const list = this.lists[t];
+    const n = this.used[t];
+    const ids = this.ids;
+    const df = this.liveCases(t);
+    if (df === 0) return;
+    const idf = weight * Math.log(1 + (this.documentCount - df + 0.5) / (df + 0.5));
+    let total = 0;
+    for (let f = 0; f < FIELDS; f++) total += BOOSTS[f] * this.totalLength[f];
+    const avg = total / this.documentCount || 1;
+    const lengths = this.fieldLength;
+    for (let i = 0; i < n; ) {
+      const slot = list[i] >>> SLOT_SHIFT;
+      let tf = 0;
+      for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) tf += BOOSTS[(list[i] >>> FIELD_SHIFT) & 7] * (list[i] & TF_MASK);
+      if (ids[slot] < 0 || !admit(slot)) continue;
+      let length = 0;
+      for (let f = 0; f < FIELDS; f++) length += BOOSTS[f] * lengths[f][slot];
+      const score = idf * (D + (tf * (K + 1)) / (tf + K * (1 - B + (B * length) / avg)));
+      if (acc[slot] === 0) touched.push(slot);
+      acc[slot] += score;
+    }
+  }
+
+  /** Live cases holding term `t`, counted once per change to the index. */
+  private liveCases(t: number): number {
+    if (this.dfCache.length <= t) {
+      const size = Math.max(1024, this.terms.length * 2);
+      this.dfCache = Int32Array.from({ length: size }, (_, k) => this.dfCache[k] ?? 0);
+      const stamps = new Uint32Array(size);
+      stamps.set(this.dfStamp);
+      this.dfStamp = stamps;
+    }
+    if (this.dfStamp[t] === this.version) return this.dfCache[t];
+    const list = this.lists[t];
+    const n = this.used[t];
+    let df = 0;
+    for (let i = 0, last = -1; i < n; i++) {
+      const slot = list[i] >>> SLOT_SHIFT;
+      if (slot !== last && this.ids[slot] >= 0) df++;
+      last = slot;
+    }
+    this.dfCache[t] = df;
+    this.dfStamp[t] = this.version;
+    return df;
+  }
+
   /** Drops dead postings; with `renumber`, also gives the live cases slots from 0 again. */
   vacuum(renumber: boolean) {
+    this.version++;
     const map = new Int32Array(this.slots).fill(-1);
     let next = 0;
     for (let s = 0; s < this.slots; s++) if (this.ids[s] >= 0) map[s] = renumber ? next++ : s;

@@ -10,29 +10,39 @@ export interface Facets {
 /** Tags shown in the facet: the most used among the matches. */
 const MAX_TAGS = 30;
 
-const bump = (m: Map<string, number>, k: string) => m.set(k, (m.get(k) ?? 0) + 1);
-const sorted = (m: Map<string, number>, limit = Infinity) => Object.fromEntries([...m].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0])).slice(0, limit));
+const sorted = (entries: [string, number][], limit = Infinity) => Object.fromEntries(entries.sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0])).slice(0, limit));
 
 /**
  * Facet counts over candidate cases, and the candidates that pass every filter. Each facet
  * counts the candidates that pass the other two filters, so choosing a cause does not hide
- * the other causes' counts.
+ * the other causes' counts. Counted by code into arrays (one array per facet), not by name.
  */
 export function countFacets(index: CaseIndex, candidates: Iterable<number>, q: Pick<SearchQuery, 'cause' | 'tag' | 'status'>): { facets: Facets; passing: number[] } {
-  const cause = new Map<string, number>();
-  const tags = new Map<string, number>();
-  const status = new Map<string, number>();
+  const size = index.codeCount;
+  const cause = new Int32Array(size);
+  const tags = new Int32Array(size);
+  const status = new Int32Array(size);
+  // a filter on a value no case has passes nothing; −2 never matches a code
+  const want = (name: string | undefined) => (name ? index.knownCode(name) : -1);
+  const causeCode = q.cause ? (want(q.cause) < 0 ? -2 : want(q.cause)) : -1;
+  const tagCode = q.tag ? (want(q.tag) < 0 ? -2 : want(q.tag)) : -1;
+  const statusCode = q.status ? (want(q.status) < 0 ? -2 : want(q.status)) : -1;
   const passing: number[] = [];
   for (const id of candidates) {
-    const f = index.facts.get(id);
+    const f = index.facetCodes.get(id);
     if (!f) continue;
-    const okCause = !q.cause || f.cause === q.cause;
-    const okTag = !q.tag || f.tags.includes(q.tag);
-    const okStatus = !q.status || f.status === q.status;
-    if (okTag && okStatus && f.cause) bump(cause, f.cause);
-    if (okCause && okStatus) for (const t of f.tags) bump(tags, t);
-    if (okCause && okTag) bump(status, f.status);
+    const okCause = causeCode === -1 || f.cause === causeCode;
+    const okTag = tagCode === -1 || f.tags.includes(tagCode);
+    const okStatus = statusCode === -1 || f.status === statusCode;
+    if (okTag && okStatus && f.cause >= 0) cause[f.cause]++;
+    if (okCause && okStatus) for (let k = 0; k < f.tags.length; k++) tags[f.tags[k]]++;
+    if (okCause && okTag) status[f.status]++;
     if (okCause && okTag && okStatus) passing.push(id);
   }
-  return { facets: { cause: sorted(cause), tags: sorted(tags, MAX_TAGS), status: sorted(status) }, passing };
+  const named = (counts: Int32Array) => {
+    const out: [string, number][] = [];
+    for (let code = 0; code < counts.length; code++) if (counts[code] > 0) out.push([index.facetName(code), counts[code]]);
+    return out;
+  };
+  return { facets: { cause: sorted(named(cause)), tags: sorted(named(tags), MAX_TAGS), status: sorted(named(status)) }, passing };
 }

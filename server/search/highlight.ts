@@ -6,16 +6,20 @@ import type { HighlightField, SearchHighlight } from '../../shared/schemas/searc
 /** Longest snippet cut from a long field, in characters (our choice: two lines of a result card). */
 const SNIPPET = 180;
 
-/** Below this length a field is tokenised whole; above it only around the places a query term may be. */
-const WHOLE = 600;
-/** Characters tokenised either side of a place a term may start (covers a two-word phrase). */
-const AROUND = 48;
+/** Characters tokenised either side of a place a term may start: the word before and after it, for a two-word phrase or a number and its unit. */
+const AROUND = 24;
+/**
+ * At most this many characters of a long field are tokenised, window by window from its start:
+ * a card shows one snippet of SNIPPET characters, so the densest run among the first few
+ * places a common word occurs is as good a snippet as the densest in a field of pages.
+ */
+const TOKENISED = 4 * SNIPPET;
 
 const keyCache = new WeakMap<ReadonlySet<string>, string[]>();
 
 /**
  * Lower-case strings one of which every written form of the terms contains: a stem's first
- * four letters ("ringing" and "rings" start "ring"), its irregular forms ("rang"), a quantity's
+ * four letters ("ringing" and "rings" start "ring"; not a final i, "copy" stems to "copi"), its irregular forms ("rang"), a quantity's
  * digits, a phrase's words ("ten times" for 10x, "spring tip" for the ground spring).
  */
 function keysOf(terms: ReadonlySet<string>): string[] {
@@ -31,7 +35,8 @@ function keysOf(terms: ReadonlySet<string>): string[] {
       if (term === '1000x') out.add('thousand');
       continue;
     }
-    out.add(term.slice(0, 4));
+    // a stemmer changes only a word's end; a final y becomes i ("copy" → "copi"), so that letter is left out
+    out.add(term.slice(0, Math.min(4, term.endsWith('i') ? term.length - 1 : term.length)));
     for (const form of irregularFormsOf(term)) out.add(form);
     for (const p of PHRASES) if (p.term === term) for (const w of p.words) out.add(w.slice(0, 4));
   }
@@ -41,7 +46,7 @@ function keysOf(terms: ReadonlySet<string>): string[] {
 }
 
 /** Windows of `text` worth tokenising: around every place a key occurs, merged, on spaces. */
-function windows(text: string, keys: string[]): [number, number][] {
+function windows(text: string, keys: string[], budget: number): [number, number][] {
   const lower = text.toLowerCase();
   const spans: [number, number][] = [];
   for (const k of keys) {
@@ -54,22 +59,30 @@ function windows(text: string, keys: string[]): [number, number][] {
     if (last && s[0] <= last[1]) last[1] = Math.max(last[1], s[1]);
     else merged.push([s[0], s[1]]);
   }
-  // start and end on a space so no word is cut in two
-  return merged.map(([s, e]) => {
+  // start and end on a space so no word is cut in two; stop once `budget` characters are covered
+  const out: [number, number][] = [];
+  let covered = 0;
+  for (const [s, e] of merged) {
+    if (covered >= budget) break;
     const start = s === 0 ? 0 : text.indexOf(' ', s) + 1 || s;
-    const space = text.indexOf(' ', e);
-    return [start, space < 0 ? text.length : space];
-  });
+    const space = text.indexOf(' ', Math.min(e, start + budget - covered));
+    const end = space < 0 ? text.length : space;
+    if (end <= start) continue;
+    out.push([start, end]);
+    covered += end - start;
+  }
+  return out;
 }
 
-/** [start, end) of each word in `text` whose index term is one the query stood for, overlaps merged. */
-export function matchRanges(text: string, terms: ReadonlySet<string>): [number, number][] {
+/**
+ * [start, end) of each word in `text` whose index term is one the query stood for, overlaps
+ * merged. Only the text around the places a term may be written is tokenised, and of a field
+ * cut to a snippet (`snippetField`) only the first few such places.
+ */
+export function matchRanges(text: string, terms: ReadonlySet<string>, snippetField = true): [number, number][] {
   const found: { term: string; start: number; end: number }[] = [];
-  if (text.length <= WHOLE) found.push(...termsWithOffsets(text, 'index'));
-  else {
-    for (const [s, e] of windows(text, keysOf(terms))) {
-      for (const t of termsWithOffsets(text.slice(s, e), 'index')) found.push({ term: t.term, start: t.start + s, end: t.end + s });
-    }
+  for (const [s, e] of windows(text, keysOf(terms), snippetField ? TOKENISED : Number.POSITIVE_INFINITY)) {
+    for (const t of termsWithOffsets(text.slice(s, e), 'index')) found.push({ term: t.term, start: t.start + s, end: t.end + s });
   }
   const hits = found
     .filter((t) => terms.has(t.term))
@@ -135,8 +148,14 @@ export function highlightsFor(fields: { field: HighlightField; text: string | nu
   let snippets = 0;
   for (const { field, text: raw } of fields) {
     if (!raw || terms.size === 0) continue;
+    // the snippets are taken: a longer field would be read for nothing
+    if (field !== 'title' && field !== 'summary' && snippets >= maxSnippets) continue;
+    const keys = keysOf(terms);
+    const lowered = raw.toLowerCase();
+    // no place a term may be written: no markdown to strip, nothing to tokenise
+    if (!keys.some((k) => lowered.includes(k))) continue;
     const text = field === 'title' ? raw : plainText(raw);
-    const ranges = matchRanges(text, terms);
+    const ranges = matchRanges(text, terms, field !== 'title' && field !== 'summary');
     if (ranges.length === 0) continue;
     if (field === 'title' || field === 'summary') out.push({ field, text, ranges });
     else if (snippets < maxSnippets) {

@@ -10,6 +10,11 @@ import { visibleReferencesOfEach } from './case-references';
 
 /** Each cause's group shows this many of its most recently verified lessons; `total` says how many it has. */
 export const LESSONS_PER_GROUP = 50;
+/**
+ * A group's count stops here (`totalCapped`): past it the page says "1,000+", and a count never
+ * walks more than this many index entries, however large the casebook.
+ */
+export const LESSON_COUNT_CAP = 1000;
 
 /** Literals, not parameters, so SQLite can prove the partial index `cases_lessons` applies. */
 const HAS_LESSON = sql<SqlBool>`${sql.ref('cases.status')} = 'verified' and ${sql.ref('cases.lesson_summary')} is not null and ${sql.ref('cases.lesson_summary')} <> ''`;
@@ -47,14 +52,18 @@ export async function listLessons({ db }: AppDeps, q?: string, reader?: Actor): 
   for (const cause of [...CAUSES, 'other']) {
     const parts = cause === 'other' ? values.slice(-2) : [cause];
     let total = 0;
+    let totalCapped = false;
     const rows: LessonRow[] = [];
     for (const value of parts) {
-      total += Number((await ofCause(value).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+      const counted = ofCause(value).select(sql<number>`1`.as('one')).limit(LESSON_COUNT_CAP + 1).as('m');
+      const n = Number((await db.selectFrom(counted).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+      if (n > LESSON_COUNT_CAP) totalCapped = true;
+      total += Math.min(n, LESSON_COUNT_CAP);
       rows.push(...(await ofCause(value).select(columns).orderBy('cases.verified_at', 'desc').orderBy('cases.id', 'desc').limit(LESSONS_PER_GROUP).execute()));
     }
     if (total === 0) continue;
     rows.sort((a, b) => (b.verified_at ?? '').localeCompare(a.verified_at ?? '') || b.id - a.id);
-    groups.push({ cause, label: CAUSE_LABELS[cause as keyof typeof CAUSE_LABELS] ?? 'Other causes', lessons: rows.slice(0, LESSONS_PER_GROUP).map(toLesson), total });
+    groups.push({ cause, label: CAUSE_LABELS[cause as keyof typeof CAUSE_LABELS] ?? 'Other causes', lessons: rows.slice(0, LESSONS_PER_GROUP).map(toLesson), total, ...(totalCapped && { totalCapped: true as const }) });
   }
   const pinnedIds = (await db.selectFrom('pinned_lessons').select('case_id').execute()).map((p) => p.case_id);
   const pinned = pinnedIds.length ? await lessons().where('cases.id', 'in', pinnedIds).select(columns).orderBy('pinned_lessons.position').execute() : [];

@@ -20,8 +20,9 @@ export interface LessonGroup {
   label: string;
   /** The group's latest lessons (at most 50 of `total`). */
   lessons: Lesson[];
-  /** How many verified lessons the group has. */
+  /** How many verified lessons the group has; with `totalCapped`, at least this many (the count stops at 1,000). */
   total: number;
+  totalCapped?: true;
 }
 
 /** Verified lessons grouped by cause, and the pinned bench checklist in its order. */

@@ -23,11 +23,24 @@ const TOKEN = /×?[\p{L}\p{N}]+(?:['’.\-+/][\p{L}\p{N}]+)*%?|%/gu;
 const ASCII = /^[\x00-\x7f]*$/;
 const normalize = (raw: string) => (ASCII.test(raw) ? raw : raw.normalize('NFKC')).toLowerCase().replace(/['’]s$/, '');
 
+/**
+ * `normalize` without its work for the usual token: plain lower-case ASCII letters and digits
+ * come back as they are (no regex, no new string); anything else takes the full path.
+ */
+function normalizeFast(raw: string): string {
+  for (let i = 0; i < raw.length; i++) {
+    const c = raw.charCodeAt(i);
+    if (!((c >= 97 && c <= 122) || (c >= 48 && c <= 57) || c === 46)) return normalize(raw);
+  }
+  return raw;
+}
+
 function rawTokens(text: string): Token[] {
   const out: Token[] = [];
-  for (const m of text.matchAll(TOKEN)) {
+  TOKEN.lastIndex = 0;
+  for (let m = TOKEN.exec(text); m !== null; m = TOKEN.exec(text)) {
     const start = m.index;
-    const norm = normalize(m[0]);
+    const norm = normalizeFast(m[0]);
     const parts = norm.includes('-') || norm.includes('/') ? norm.split(/[-/]/) : undefined;
     if (parts && parts.every((p) => p !== '')) {
       // "ground-lead", "10x-at-1x", "1x/10x": the parts are the words

@@ -11,12 +11,34 @@ describe('highlights of long fields', () => {
 
   it('should mark the same words as tokenising the whole field, irregular forms, quantities and phrases included', () => {
     expect(text.length).toBeGreaterThan(600);
-    for (const terms of [new Set(['ring']), new Set(['edge', '120mhz']), new Set(['groundspring', '10x']), new Set(['weather'])]) {
+    for (const terms of [new Set(['ring']), new Set(['edge', '120mhz']), new Set(['groundspring', '10x'])]) {
       expect(matchRanges(text, terms)).toEqual(everywhere(text, terms));
     }
   });
 
+  it('should read a word that occurs all through a long field only as far as a few snippets need, from the start', () => {
+    const terms = new Set(['weather']);
+    const all = everywhere(text, terms);
+    const found = matchRanges(text, terms);
+    expect(all.length).toBe(24);
+    expect(found.length).toBeGreaterThanOrEqual(4);
+    expect(found.length).toBeLessThan(all.length);
+    expect(found).toEqual(all.slice(0, found.length));
+  });
+
   it('should find nothing when no term occurs', () => {
     expect(matchRanges(text, new Set(['piezo']))).toEqual([]);
+  });
+});
+
+describe('highlights of short fields', () => {
+  // a short field is now also read only around the places a term may be written
+  it('should mark a word whose stem changed its last letter, and the same words as tokenising it whole', () => {
+    const title = 'Copies of the tidy scope setup differed; the copy on the bench was dying';
+    for (const terms of [new Set(['copi']), new Set(['tidi', 'dy']), new Set(['scope', 'setup'])]) {
+      const found = matchRanges(title, terms, false);
+      expect(found.length).toBeGreaterThan(0);
+      expect(found).toEqual(everywhere(title, terms));
+    }
   });
 });

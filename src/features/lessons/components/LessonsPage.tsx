@@ -29,6 +29,7 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
   const all = useLessons('');
   const groups = lessons.data?.groups ?? [];
   const count = groups.reduce((n, g) => n + (g.total ?? g.lessons.length), 0);
+  const shownCount = `${count.toLocaleString('en')}${groups.some((g) => g.totalCapped) ? '+' : ''}`;
 
   return (
     <>
@@ -49,7 +50,7 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
               className="w-full rounded-md border border-rule bg-sheet px-3 py-2 text-ink placeholder:text-muted/70 focus:border-ink focus:outline-none focus:ring-2 focus:ring-agree/60"
             />
             <p className="text-xs text-muted" aria-live="polite">
-              {lessons.data && (q ? `${count} lesson${count === 1 ? '' : 's'} match “${q}”.` : `${count} verified lesson${count === 1 ? '' : 's'}.`)}
+              {lessons.data && (q ? `${shownCount} lesson${count === 1 ? '' : 's'} match “${q}”.` : `${shownCount} verified lesson${count === 1 ? '' : 's'}.`)}
             </p>
           </form>
           {error && <Alert tone="caution">{error}</Alert>}
@@ -68,7 +69,7 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
               key={g.cause}
               title={
                 <>
-                  {g.label} <span className="font-mono text-sm font-normal text-muted">({g.total ?? g.lessons.length})</span>
+                  {g.label} <span className="font-mono text-sm font-normal text-muted">({(g.total ?? g.lessons.length).toLocaleString('en')}{g.totalCapped ? '+' : ''})</span>
                 </>
               }
             >
@@ -77,7 +78,7 @@ export function LessonsPage({ canPin }: { canPin: boolean }) {
                   <LessonItem key={l.caseId} lesson={l} canPin={canPin} onError={setError} />
                 ))}
               </ul>
-              {g.total > g.lessons.length && <p className="mt-2 text-sm text-muted">The latest {g.lessons.length} of {g.total}; search to find the others.</p>}
+              {g.total > g.lessons.length && <p className="mt-2 text-sm text-muted">The latest {g.lessons.length} of {g.total.toLocaleString('en')}{g.totalCapped ? '+' : ''}; search to find the others.</p>}
             </Panel>
           ))}
         </div>

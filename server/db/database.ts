@@ -208,6 +208,13 @@ export interface TagsTable {
   created_at: string;
 }
 
+/** Kept by triggers (migration 0015): cases carrying each tag, all and verified. */
+export interface TagCountsTable {
+  tag: string;
+  all_cases: number;
+  verified_cases: number;
+}
+
 export interface TagSynonymsTable {
   synonym: string;
   tag: string;
@@ -253,6 +260,7 @@ export interface Database {
   digest_items: DigestItemsTable;
   lesson_deliveries: LessonDeliveriesTable;
   tags: TagsTable;
+  tag_counts: TagCountsTable;
   tag_synonyms: TagSynonymsTable;
   pinned_lessons: PinnedLessonsTable;
   cases: CasesTable;

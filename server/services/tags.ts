@@ -14,27 +14,45 @@ async function ensureTagRow(db: Db, tag: string) {
 /**
  * Every tag the actor may know of, with how many cases they may open carry it. A tag that only
  * cases hidden from the actor use is left out (its name alone can tell of a draft); a curated tag
- * no case uses yet is listed. Counted in SQL per visibility branch of the case policy
- * (`canSeeCase`: moderators every case; others verified cases and their own), never by
- * shipping every tag use to the server.
+ * no case uses yet is listed. Counted per visibility branch of the case policy (`canSeeCase`:
+ * moderators every case; others verified cases and their own): the counts of all and of verified
+ * cases come from `tag_counts`, kept by triggers, and only an author's own unverified cases are
+ * counted here, never every tag use of every case.
  */
 export async function listTags({ db }: AppDeps, actor: Actor): Promise<TagInfo[]> {
   const visible = new Map<string, number>();
   const add = (rows: { tag: string; n: number | string | bigint }[]) => {
-    for (const r of rows) visible.set(r.tag, (visible.get(r.tag) ?? 0) + Number(r.n));
+    for (const r of rows) if (Number(r.n) > 0) visible.set(r.tag, (visible.get(r.tag) ?? 0) + Number(r.n));
   };
   if (canModerate(actor)) {
-    add(await db.selectFrom('case_tags').select(['tag', (eb) => eb.fn.countAll<number>().as('n')]).groupBy('tag').execute());
+    add(await db.selectFrom('tag_counts').select(['tag', 'all_cases as n']).where('all_cases', '>', 0).execute());
   } else {
-    const uses = () => db.selectFrom('cases').innerJoin('case_tags', 'case_tags.case_id', 'cases.id').select(['case_tags.tag', (eb) => eb.fn.countAll<number>().as('n')]).groupBy('case_tags.tag');
-    add(await uses().where('cases.status', '=', 'verified').execute());
-    add(await uses().where('cases.author_id', '=', actor.id).where('cases.status', 'in', CASE_STATUSES.filter((x) => x !== 'verified')).execute());
+    add(await db.selectFrom('tag_counts').select(['tag', 'verified_cases as n']).where('verified_cases', '>', 0).execute());
+    add(
+      await db
+        .selectFrom('cases')
+        .innerJoin('case_tags', 'case_tags.case_id', 'cases.id')
+        .select(['case_tags.tag', (eb) => eb.fn.countAll<number>().as('n')])
+        .where('cases.author_id', '=', actor.id)
+        .where('cases.status', 'in', CASE_STATUSES.filter((x) => x !== 'verified'))
+        .groupBy('case_tags.tag')
+        .execute(),
+    );
   }
   const meta = await db.selectFrom('tags').selectAll().execute();
   const syn = await db.selectFrom('tag_synonyms').selectAll().execute();
-  // curated tags are few: ask of each whether any case uses it, rather than listing every use
+  // curated tags no case uses (no counter, or a counter at zero)
   const unused = meta.length
-    ? new Set((await db.selectFrom('tags').select('tags.tag').where((eb) => eb.not(eb.exists(eb.selectFrom('case_tags').select('case_tags.case_id').whereRef('case_tags.tag', '=', 'tags.tag')))).execute()).map((r) => r.tag))
+    ? new Set(
+        (
+          await db
+            .selectFrom('tags')
+            .leftJoin('tag_counts', 'tag_counts.tag', 'tags.tag')
+            .select('tags.tag')
+            .where((eb) => eb.or([eb('tag_counts.all_cases', 'is', null), eb('tag_counts.all_cases', '=', 0)]))
+            .execute()
+        ).map((r) => r.tag),
+      )
     : new Set<string>();
   const metaOf = new Map(meta.map((m) => [m.tag, m]));
   const synonymsOf = new Map<string, string[]>();

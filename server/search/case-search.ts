@@ -9,6 +9,7 @@ import type { CaseIndex, IndexTuning } from './case-index';
 import { latestChangeId, recordCaseChange } from './change-log';
 import { ChangeFollower } from './change-follower';
 import { localCore, workerCore, type CoreClient } from './core-client';
+import type { TextFilterFields } from './list-filter';
 import type { Ranked } from './rank';
 import type { SynonymStats } from './search-core';
 
@@ -51,8 +52,8 @@ export interface CaseSearch {
   followNow(): Promise<void>;
   search(actor: Actor, query: SearchQuery): Promise<SearchResponse>;
   similar(actor: Actor, id: number): Promise<SimilarResponse>;
-  /** Ids whose title or summary may hold `q` as whole words, at most `limit`; undefined until ready or when the index cannot say. */
-  listCandidates(q: string, limit: number): Promise<number[] | undefined>;
+  /** Ids whose title or summary (or, for 'lessons', title or lesson) may hold `q` as whole words, at most `limit`; undefined until ready or when the index cannot say. */
+  listCandidates(q: string, limit: number, fields?: TextFilterFields): Promise<number[] | undefined>;
   saveSnapshot(): Promise<void>;
   close(): Promise<void>;
 }
@@ -215,7 +216,7 @@ export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): P
       const rows = await page(await core.similar(actor, { id: source.id, title: source.title, summary: source.summary }));
       return { similar: rows.map(({ ranked: r, row }) => ({ id: row.id, title: row.title, summary: row.summary, cause: row.cause, score: round(r.score) })) };
     },
-    listCandidates: async (q, limit) => (ready && !failure ? core.listCandidates(q, limit) : undefined),
+    listCandidates: async (q, limit, fields) => (ready && !failure ? core.listCandidates(q, limit, fields) : undefined),
     saveSnapshot: () => core.save(),
     async close() {
       closed = true;

@@ -4,8 +4,15 @@ import { indexTerms } from '../../shared/search/text-terms';
 import { DOC_FIELDS } from './case-document';
 import type { CaseIndex } from './case-index';
 
-/** The fields the case list's text filter reads (`containsText` on title and summary). */
-const LIST_FIELDS = [DOC_FIELDS.indexOf('title'), DOC_FIELDS.indexOf('summary')];
+/**
+ * The index fields holding what a text filter reads: the case list's (`containsText` on title
+ * and summary) and the Lessons page's (title, lesson summary and detail: all in `remedy`).
+ */
+const FIELDS_READ = {
+  list: [DOC_FIELDS.indexOf('title'), DOC_FIELDS.indexOf('summary')],
+  lessons: [DOC_FIELDS.indexOf('title'), DOC_FIELDS.indexOf('remedy')],
+} as const;
+export type TextFilterFields = keyof typeof FIELDS_READ;
 /** Shorter words would expand to much of the dictionary; the scan answers them. */
 const MIN_WORD = 3;
 const UNITS = Object.keys(UNIT_SPELLINGS);
@@ -27,8 +34,9 @@ function termsStartedBy(index: CaseIndex, word: string): Set<string> {
 }
 
 /**
- * The cases whose title or summary may contain `q` where its words start words of the text:
- * each word of `q` starts a word of the title or summary, as the index reads them. For such
+ * The cases whose title or summary (`fields` 'list'; 'lessons': title or lesson) may contain
+ * `q` where its words start words of the text: each word of `q` starts a word there, as the
+ * index reads them. For such
  * queries this is a superset of the substring match (the same analysis made both sides'
  * terms), so the list runs its substring test on these ids only instead of on every case;
  * text inside a word ("lead" in "misleading") is what it gives up.
@@ -37,14 +45,14 @@ function termsStartedBy(index: CaseIndex, word: string): Set<string> {
  * its neighbour ("50 ohm" → one term "50ω"); more than `limit` cases, as an id list that long
  * costs no less than the scan.
  */
-export function listTextCandidates(index: CaseIndex, q: string, limit: number): number[] | undefined {
+export function listTextCandidates(index: CaseIndex, q: string, limit: number, fields: TextFilterFields = 'list'): number[] | undefined {
   const words = [...new Set(q.normalize('NFKC').toLowerCase().match(/[\p{L}\p{N}]+/gu) ?? [])].filter((w) => !STOPWORDS.has(w));
   if (words.length === 0) return undefined;
   if (words.some((w) => w.length < MIN_WORD || /\d/.test(w) || UNITS.some((u) => u.startsWith(w)))) return undefined;
   let ids: Set<number> | undefined;
   for (const word of words) {
     const holding = new Set<number>();
-    for (const term of termsStartedBy(index, word)) for (const id of index.engine.casesWithTerm(term, LIST_FIELDS)) if (!ids || ids.has(id)) holding.add(id);
+    for (const term of termsStartedBy(index, word)) for (const id of index.engine.casesWithTerm(term, [...FIELDS_READ[fields]])) if (!ids || ids.has(id)) holding.add(id);
     ids = holding;
     if (ids.size === 0) break;
   }

@@ -4,7 +4,7 @@ import type { CaseDoc, CaseFacts } from './case-document';
 import { CaseIndex, type IndexTuning } from './case-index';
 import type { Facets } from './facets';
 import { highlightsFor } from './highlight';
-import { listTextCandidates } from './list-filter';
+import { listTextCandidates, type TextFilterFields } from './list-filter';
 import { rankCases, visibilityOf, type Ranked } from './rank';
 import { similarCases, type SimilarSource } from './similar';
 import { indexStamp, readSnapshot, writeSnapshot } from './snapshot';
@@ -129,8 +129,8 @@ export class SearchCore {
   }
 
   /** The case list's text filter narrowed by the index (see list-filter.ts); undefined while loading or when it cannot say. */
-  listCandidates(q: string, limit: number): number[] | undefined {
-    return this.index ? listTextCandidates(this.index, q, limit) : undefined;
+  listCandidates(q: string, limit: number, fields: TextFilterFields = 'list'): number[] | undefined {
+    return this.index ? listTextCandidates(this.index, q, limit, fields) : undefined;
   }
 
   /** Writes the snapshot now if anything changed since the last one. */

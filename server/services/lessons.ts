@@ -5,6 +5,7 @@ import type { Lesson, LessonBook } from '../../shared/schemas/lessons';
 import type { AppDeps } from '../deps';
 import { AppError, forbidden, invalid, notFound } from '../errors';
 import { recordAudit } from '../db/repositories/audit-log';
+import { TEXT_CANDIDATE_LIMIT } from '../db/repositories/cases';
 import { containsText } from '../db/repositories/text-match';
 import { visibleReferencesOfEach } from './case-references';
 
@@ -37,10 +38,15 @@ const toLesson = (r: LessonRow): Lesson => ({
  * its latest LESSONS_PER_GROUP with the group's total, plus the whole pinned checklist. The
  * conditions match the partial index of migration 0012 term for term, so SQLite uses it.
  */
-export async function listLessons({ db }: AppDeps, q?: string, reader?: Actor): Promise<LessonBook> {
+export async function listLessons({ db, search }: AppDeps, q?: string, reader?: Actor): Promise<LessonBook> {
+  // as the case list: the substring test reads only the cases the search index names, when it can name them
+  const candidates = q && search ? await search.listCandidates(q, TEXT_CANDIDATE_LIMIT, 'lessons').catch(() => undefined) : undefined;
   const lessons = () => {
     let query = db.selectFrom('cases').leftJoin('pinned_lessons', 'pinned_lessons.case_id', 'cases.id').where(HAS_LESSON);
-    if (q) query = query.where((eb) => eb.or([containsText('cases.lesson_summary', q), containsText('cases.lesson_detail', q), containsText('cases.title', q)]));
+    if (q) {
+      if (candidates) query = query.where('cases.id', 'in', candidates.length ? candidates : [-1]);
+      query = query.where((eb) => eb.or([containsText('cases.lesson_summary', q), containsText('cases.lesson_detail', q), containsText('cases.title', q)]));
+    }
     return query;
   };
   const columns = ['cases.id', 'cases.title', 'cases.cause', 'cases.lesson_summary', 'cases.lesson_detail', 'cases.verified_at', 'pinned_lessons.position'] as const;

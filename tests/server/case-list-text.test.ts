@@ -4,6 +4,7 @@ import { caseListQuerySchema } from '../../shared/schemas/case';
 import { listCases } from '../../server/db/repositories/cases';
 import { seedDemoCasebook } from '../../server/seed/demo/seed-casebook';
 import { listCasesFor } from '../../server/services/cases';
+import { listLessons } from '../../server/services/lessons';
 import { createTestContext, type TestContext } from './helpers/test-context';
 
 // The case list's text filter `q` reads the ids the search index names instead of scanning
@@ -57,5 +58,27 @@ describe('case list text filter through the search index', () => {
 
   it('should fall back to the scan for numbers, unit words and function words, which the index folds or drops', async () => {
     for (const q of ['50', 'ohm', 'MHz', 'mh', 'the', 'ab']) expect(await ctx.search.listCandidates(q, 5000), q).toBeUndefined();
+  });
+
+  it('should give the Lessons page the same lessons and counts through the index as by the substring scan', async () => {
+    const lessons = await ctx.db.selectFrom('cases').select(['title', 'lesson_summary', 'lesson_detail']).where('status', '=', 'verified').execute();
+    const texts = lessons.flatMap((l) => [l.title, l.lesson_summary ?? '', l.lesson_detail ?? ''].map((t) => t.toLowerCase()));
+    const startsWordsOnly = (q: string) =>
+      texts.every((t) => {
+        for (let at = t.indexOf(q); at >= 0; at = t.indexOf(q, at + 1)) if (at > 0 && /[\p{L}\p{N}]/u.test(t[at - 1])) return false;
+        return true;
+      });
+    const distinct = [...new Set(texts.flatMap((t) => t.match(/\p{L}+/gu) ?? []))].sort();
+    const queries = [...distinct.filter((_, i) => i % 4 === 0), 'probe', 'ground', 'spring tip'].filter(startsWordsOnly);
+    expect(queries.length).toBeGreaterThan(20);
+    let served = 0;
+    const summary = (book: Awaited<ReturnType<typeof listLessons>>) => book.groups.map((g) => [g.cause, g.total, g.lessons.map((l) => l.caseId)]);
+    for (const q of queries) {
+      if ((await ctx.search.listCandidates(q, 5000, 'lessons')) !== undefined) served++;
+      const scanned = await listLessons({ ...ctx, search: undefined }, q);
+      const indexed = await listLessons(ctx, q);
+      expect(summary(indexed), q).toEqual(summary(scanned));
+    }
+    expect(served).toBeGreaterThan(queries.length / 2);
   });
 });

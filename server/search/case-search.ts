@@ -50,6 +50,8 @@ export interface CaseSearch {
   rebuild(): Promise<void>;
   /** Applies the other instances' changes now instead of at the next poll (tests). */
   followNow(): Promise<void>;
+  /** Stops the worker thread as a crash would (tests of the restart); nothing in process. */
+  killWorker(): Promise<void>;
   search(actor: Actor, query: SearchQuery): Promise<SearchResponse>;
   similar(actor: Actor, id: number): Promise<SimilarResponse>;
   /** Ids whose title or summary (or, for 'lessons', title or lesson) may hold `q` as whole words, at most `limit`; undefined until ready or when the index cannot say. */
@@ -101,19 +103,28 @@ async function buildInto(db: Db, core: CoreClient) {
 export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): Promise<CaseSearch> {
   const { dataDir, tuning, snapshotDelayMs, worker = false, background = false, followMs = 500, readyWaitMs = 5000 } = options;
   let failure: Error | undefined;
-  const core = worker
-    ? workerCore({ dataDir, tuning, snapshotDelayMs }, (err) => {
-        failure = err;
-        ready = false;
-        console.error('[falsetrace] search worker failed; search answers 503 until restart:', err.message);
-      })
-    : localCore({ dataDir, tuning, snapshotDelayMs });
-
   let ready = false;
   let origin: CaseSearch['origin'] = 'loading';
   /** Changes this instance logged and already applied: the follower skips them. */
   const applied = new Set<number>();
   let closed = false;
+  /** Worker restarts in a row without a load that finished, for the back-off. */
+  let restarts = 0;
+
+  const openCore = (): CoreClient =>
+    worker
+      ? workerCore({ dataDir, tuning, snapshotDelayMs }, (err) => {
+          ready = false;
+          if (closed) return;
+          void follower.stop();
+          // a worker that dies (out of memory, a crash) is started again and reloads from the snapshot;
+          // one that keeps dying is retried ever more slowly, and searches answer 503 meanwhile
+          const delayMs = Math.min(60_000, 500 * 2 ** Math.min(restarts++, 7));
+          console.error(`[falsetrace] search worker failed (${err.message}); starting a new one in ${delayMs} ms`);
+          setTimeout(() => void restart(), delayMs).unref();
+        })
+      : localCore({ dataDir, tuning, snapshotDelayMs });
+  let core = openCore();
 
   async function syncOne(id: number) {
     const [rows, tags, bySynonym] = await Promise.all([searchSourceRows(db, [id]), searchTags(db, [id]), synonymsByTag(db)]);
@@ -121,29 +132,50 @@ export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): P
     else await core.upsert(caseDocument(rows[0], tags.get(id) ?? [], bySynonym));
   }
 
-  const follower = new ChangeFollower(db, {
-    applied,
-    syncCase: syncOne,
-    rebuild: () => buildInto(db, core),
-  });
+  const newFollower = () =>
+    new ChangeFollower(db, {
+      applied,
+      syncCase: syncOne,
+      rebuild: () => buildInto(db, core),
+    });
+  let follower = newFollower();
 
-  const load = (async () => {
-    // read before anything else: a change made while the index loads is then applied after it
-    const from = await latestChangeId(db);
-    const [stamp, synonyms] = await Promise.all([searchSourceStamp(db), synonymsByTag(db)]);
-    if (await core.restore(stamp, synonymStats(synonyms))) origin = 'snapshot';
-    else {
-      await buildInto(db, core);
-      origin = 'rebuilt';
-    }
-    if (closed) return;
-    follower.start(from, followMs);
-    ready = true;
-  })();
+  const startLoad = () =>
+    (async () => {
+      // read before anything else: a change made while the index loads is then applied after it
+      const from = await latestChangeId(db);
+      const [stamp, synonyms] = await Promise.all([searchSourceStamp(db), synonymsByTag(db)]);
+      if (await core.restore(stamp, synonymStats(synonyms))) origin = 'snapshot';
+      else {
+        await buildInto(db, core);
+        origin = 'rebuilt';
+      }
+      if (closed) return;
+      follower.start(from, followMs);
+      failure = undefined;
+      restarts = 0;
+      ready = true;
+    })();
+  let load = startLoad();
   load.catch((err) => {
     failure = err as Error;
     console.error('[falsetrace] search index failed to load:', err);
   });
+
+  /** A new worker after the old one died: the index reloaded as at start-up, the change log followed from there. */
+  async function restart() {
+    if (closed) return;
+    await follower.stop();
+    await core.terminate().catch(() => undefined);
+    applied.clear();
+    follower = newFollower();
+    core = openCore();
+    load = startLoad();
+    await load.catch((err) => {
+      failure = err as Error;
+      console.error('[falsetrace] search index failed to load after a restart:', err);
+    });
+  }
 
   async function whenReady() {
     if (ready) return;
@@ -186,6 +218,7 @@ export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): P
     isReady: () => ready && !failure,
     lagSeconds: () => (ready ? follower.lagSeconds() : undefined),
     size: () => core.size(),
+    killWorker: async () => core.kill?.(),
     syncCase: (id) => logged(id, () => syncOne(id)),
     removeCase: (id) => logged(id, () => core.remove(id)),
     rebuild: () => logged(null, () => buildInto(db, core)),

@@ -13,6 +13,8 @@ export type CoreClient = { [K in Method]: SearchCore[K] extends (...a: infer A) 
   /** The core itself when it runs in process (tests read the index directly). */
   readonly local?: SearchCore;
   terminate(): Promise<void>;
+  /** Ends the worker thread without a word, as a crash would (tests); absent in process. */
+  kill?(): Promise<void>;
 };
 
 /** The core in this thread: for tests and tools, where one more thread buys nothing. */
@@ -32,8 +34,8 @@ function workerEntry(): { file: URL; workerData: Record<string, unknown> } {
 
 /**
  * The core on one long-lived worker thread. Calls are answered in order; if the worker dies,
- * every call in flight and every later one fails with `onExit`'s error until the owner opens
- * a new one.
+ * every call in flight and every later one fails with that error, and `onExit` is told, so the
+ * owner can open a new one (case-search.ts does).
  */
 export function workerCore(options: CoreOptions, onExit: (err: Error) => void): CoreClient {
   const { file, workerData } = workerEntry();
@@ -72,6 +74,9 @@ export function workerCore(options: CoreOptions, onExit: (err: Error) => void): 
       if (dead) return;
       await call('close', []).catch(() => undefined);
       dead = new Error('the search worker was closed');
+      await worker.terminate();
+    },
+    async kill() {
       await worker.terminate();
     },
   } as Record<string, unknown>;

@@ -81,16 +81,21 @@ function filtered(db: Db, actor: Actor, branch: Branch, q: CaseListQuery, sortsB
 }
 
 /**
- * What changes whenever a count could: cases added or deleted (count, highest id) and any case
- * saved, submitted or reviewed (every such write sets updated_at). Each part is read from an
- * index end or the b-tree's page counts, not row by row.
+ * What changes whenever a count could: every write that changes a case's status, tags, text or
+ * existence adds a row to the case change log (search follows it, see search/change-log.ts), and
+ * every save sets updated_at; the highest case id covers an insert made without the log. Each
+ * part is read from an index end: no count of every case (on PostgreSQL that is a full scan).
  */
 async function casebookStamp(db: Db): Promise<string> {
-  // three statements: SQLite answers each alone from a b-tree end or page counts, but not together
-  const n = await db.selectFrom('cases').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
-  const id = await db.selectFrom('cases').select((eb) => eb.fn.max('id').as('id')).executeTakeFirstOrThrow();
-  const at = await db.selectFrom('cases').select((eb) => eb.fn.max('updated_at').as('at')).executeTakeFirstOrThrow();
-  return `${n.n}|${id.id}|${at.at}`;
+  // one statement of three scalar subqueries: each is answered from its own index end
+  const row = await db
+    .selectNoFrom((eb) => [
+      eb.selectFrom('case_changes').select((e) => e.fn.max('id').as('c')).as('change'),
+      eb.selectFrom('cases').select((e) => e.fn.max('id').as('i')).as('id'),
+      eb.selectFrom('cases').select((e) => e.fn.max('updated_at').as('u')).as('at'),
+    ])
+    .executeTakeFirstOrThrow();
+  return `${row.change ?? 0}|${row.id}|${row.at}`;
 }
 
 /** Counts by query, kept while the casebook stamp holds and at most COUNT_TTL_MS (tag renames do not touch cases). */

@@ -17,6 +17,7 @@ import {
   linkImportedDuplicate,
   lockCasebookImport,
   localCasesCreatedAt,
+  updateImportedWriteUp,
   usersByEmail,
 } from '../db/repositories/casebook';
 import type { AppDeps } from '../deps';
@@ -25,6 +26,8 @@ import { storagePaths } from '../storage';
 import { recomputeDiagnosis } from './case-diagnosis';
 import { MAX_IMAGE_PIXELS, reencodeImage, sniffImage } from './image-intake';
 import { allCasesChanged } from '../search/change-log';
+import { renumberCaseReferences } from '../../shared/cases/case-references';
+import { recordCommentReferences, recordWriteUpReferences } from './case-references';
 
 type Records = ArchiveRecords;
 type Db = AppDeps['db'];
@@ -240,8 +243,29 @@ async function insertRecords(trx: Db, d: Awaited<ReturnType<typeof decide>>, sto
   for (const { record: v, raw } of d.revisions) {
     await insertImportedRevision(trx, { case_id: caseId(v.caseId)!, number: v.number, author_id: user(v.authorId), snapshot: storedJson(raw.snapshot, v.snapshot), created_at: v.createdAt });
   }
+  // `#123` in the write-ups and comments named the archive's cases: renumbered to the ids here, and the links recorded
+  const unlinked = new Set<number>();
+  const renumber = (text: string | null) => {
+    if (text === null) return null;
+    const r = renumberCaseReferences(text, caseId);
+    r.unmatched.forEach((n) => unlinked.add(n));
+    return r.text;
+  };
+  for (const { record: c } of d.cases) {
+    const id = caseId(c.id)!;
+    const narrative = renumber(c.narrative);
+    const lessonDetail = renumber(c.lessonDetail ?? null);
+    if (narrative !== c.narrative || lessonDetail !== (c.lessonDetail ?? null)) await updateImportedWriteUp(trx, id, narrative ?? '', lessonDetail);
+    await recordWriteUpReferences(trx, id, narrative, lessonDetail);
+  }
   for (const m of d.comments) {
-    await insertImportedComment(trx, { case_id: caseId(m.caseId)!, author_id: user(m.authorId)!, body: m.body, hidden: m.hidden ? 1 : 0, hidden_by: user(m.hiddenBy), created_at: m.createdAt, updated_at: m.updatedAt });
+    const body = renumber(m.body)!;
+    const commentId = await insertImportedComment(trx, { case_id: caseId(m.caseId)!, author_id: user(m.authorId)!, body, hidden: m.hidden ? 1 : 0, hidden_by: user(m.hiddenBy), created_at: m.createdAt, updated_at: m.updatedAt });
+    if (!m.hidden) await recordCommentReferences(trx, caseId(m.caseId)!, commentId, body);
+  }
+  if (unlinked.size) {
+    const list = [...unlinked].sort((a, b) => a - b).map((n) => `#${n}`).join(', ');
+    d.notes.push(`The imported texts named case${unlinked.size === 1 ? '' : 's'} ${list} of the archive, which ${unlinked.size === 1 ? 'is' : 'are'} neither in it nor already here; written as “archive case N”, not as links.`);
   }
   for (const a of d.attachments) {
     const s = stored.get(a.id)!;

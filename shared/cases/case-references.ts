@@ -32,3 +32,24 @@ export function referencedCaseIds(...texts: (string | null | undefined)[]): numb
   }
   return [...ids];
 }
+
+/**
+ * The text with each `#123` that `referencedCaseIds` would read renumbered by `to` (an imported
+ * casebook's ids become this casebook's); one `to` has no number for is written as `archive
+ * case 123`, no longer a link, since here `#123` is another case. Code, link targets and URLs
+ * are left as they are. Also returns the numbers that had no counterpart.
+ */
+export function renumberCaseReferences(text: string, to: (id: number) => number | undefined): { text: string; unmatched: number[] } {
+  const kept: [number, number][] = [];
+  for (const pattern of [FENCED, INLINE_CODE, LINK_TARGET, AUTOLINK]) for (const m of text.matchAll(pattern)) kept.push([m.index, m.index + m[0].length]);
+  const unmatched = new Set<number>();
+  const out = text.replace(CASE_REF_PATTERN, (whole: string, digits: string, at: number) => {
+    if (kept.some(([s, e]) => at >= s && at < e)) return whole;
+    const id = Number(digits);
+    const here = to(id);
+    if (here !== undefined) return `#${here}`;
+    unmatched.add(id);
+    return `archive case ${id}`;
+  });
+  return { text: out, unmatched: [...unmatched] };
+}

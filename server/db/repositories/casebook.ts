@@ -72,6 +72,10 @@ export async function insertImportedCase(db: Db, row: Insertable<CasesTable>): P
   return (await db.insertInto('cases').values(row).returning('id').executeTakeFirstOrThrow()).id;
 }
 
+/** A just-imported case's write-up with its `#123` links renumbered. */
+export const updateImportedWriteUp = (db: Db, caseId: number, narrative: string, lessonDetail: string | null) =>
+  db.updateTable('cases').set({ narrative, lesson_detail: lessonDetail }).where('id', '=', caseId).execute();
+
 export async function insertImportedTags(db: Db, caseId: number, tags: readonly string[], source: 'author' | 'engine') {
   if (tags.length === 0) return;
   await db
@@ -86,7 +90,9 @@ export const linkImportedDuplicate = (db: Db, caseId: number, duplicateOf: numbe
 
 export const insertImportedRevision = (db: Db, row: Insertable<CaseRevisionsTable>) => db.insertInto('case_revisions').values(row).execute();
 
-export const insertImportedComment = (db: Db, row: Insertable<CommentsTable>) => db.insertInto('comments').values(row).execute();
+export async function insertImportedComment(db: Db, row: Insertable<CommentsTable>): Promise<number> {
+  return (await db.insertInto('comments').values(row).returning('id').executeTakeFirstOrThrow()).id;
+}
 
 export const insertImportedAttachment = (db: Db, row: Insertable<AttachmentsTable>) => db.insertInto('attachments').values(row).execute();
 

@@ -1,4 +1,6 @@
 import { Router } from 'express';
+import { caseReferencesQuerySchema } from '../../shared/cases/case-references';
+import { visibleCasesByIds } from '../services/case-references';
 import { z } from 'zod';
 import { caseCreateSchema, caseListQuerySchema, casePatchSchema, commentInputSchema } from '../../shared/schemas/case';
 import { reviewInputSchema } from '../../shared/schemas/review';
@@ -31,6 +33,12 @@ export function caseRoutes(deps: AppDeps) {
 
   r.get('/authors', async (req, res) => {
     res.json({ authors: await authorsFor(deps, req.user!) });
+  });
+
+  // the cases a draft names as #123, those the reader may open: the editor's preview links them
+  r.get('/references', async (req, res) => {
+    const { ids } = parseInput(caseReferencesQuerySchema, req.query, 'The case numbers');
+    res.json({ references: await visibleCasesByIds(deps.db, req.user!, ids) });
   });
 
   r.post('/', async (req, res) => {

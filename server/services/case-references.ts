@@ -17,6 +17,12 @@ export async function visibleReferences(db: Db, actor: Actor, ...texts: (string 
   return visibleTo(actor, ids.flatMap((id) => byId.get(id) ?? []));
 }
 
+/** Of these case ids, the cases the reader may open, with their titles (a draft's preview). */
+export async function visibleCasesByIds(db: Db, actor: Actor, ids: number[]): Promise<CaseReference[]> {
+  const byId = new Map((await caseFactsByIds(db, ids)).map((r) => [r.id, r]));
+  return visibleTo(actor, ids.flatMap((id) => byId.get(id) ?? []));
+}
+
 /** Like `visibleReferences` for many texts at once (a comment thread, a lesson list): one query. */
 export async function visibleReferencesOfEach(db: Db, actor: Actor, texts: (string | null | undefined)[][]): Promise<CaseReference[][]> {
   const idsPer = texts.map((t) => referencedCaseIds(...t));

@@ -13,6 +13,15 @@ export const CASE_REF_PATTERN = /(?<![\w&#/])#([1-9]\d{0,8})(?![\w])/g;
 /** At most this many distinct ids are looked up per text: a list of every case is not a link. */
 export const MAX_REFERENCES_PER_TEXT = 50;
 
+/** `GET /api/cases/references?ids=12,40`: the cases a draft names, for its preview. */
+export const caseReferencesQuerySchema = z.object({
+  ids: z
+    .string({ error: 'ids must be case numbers separated by commas' })
+    .regex(/^\d{1,9}(,\d{1,9})*$/, 'ids must be case numbers separated by commas, like 12,40')
+    .transform((text) => [...new Set(text.split(',').map(Number))])
+    .refine((ids) => ids.length <= MAX_REFERENCES_PER_TEXT, `at most ${MAX_REFERENCES_PER_TEXT} case numbers at a time`),
+});
+
 // fenced blocks, indented code is rare in notes and stays matched (a false link costs little)
 const FENCED = /(^|\n)(`{3,}|~{3,})[^\n]*\n[\s\S]*?(\n\2[^\n]*(?=\n|$)|$)/g;
 const INLINE_CODE = /(`+)[^`]*?\1/g;

@@ -103,6 +103,19 @@ describe.skipIf(skipBrowser)('#id links and saved searches in a real browser', (
     await mod.page.getByRole('link', { name: `#${privateDraft}` }).waitFor();
   });
 
+  it('should link #id in the editor preview as the saved page will, and not a case the writer may not open', async () => {
+    const page = eng.page;
+    await page.goto('/cases/new');
+    await page.getByLabel('Narrative', { exact: true }).fill(`Looks like #${verifiedId}, maybe #${privateDraft} too.`);
+    const preview = page.getByRole('region', { name: 'Narrative preview' });
+    const link = preview.getByRole('link', { name: `#${verifiedId}` });
+    await link.waitFor();
+    expect(await link.getAttribute('href')).toBe(`/cases/${verifiedId}`);
+    await preview.getByText(`#${privateDraft}`).waitFor();
+    expect(await preview.getByRole('link', { name: `#${privateDraft}` }).count()).toBe(0);
+    await screenshot(page, 'cross-link-editor-preview');
+  });
+
   it('should list the saved search on the profile and remove it', async () => {
     const page = eng.page;
     await page.goto('/profile');

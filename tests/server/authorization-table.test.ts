@@ -87,6 +87,7 @@ const ROUTES: Record<string, Entry> = {
   'GET /api/dev/outbox/': { rule: 'admin', call: (c) => c.get('/api/dev/outbox') },
   'GET /api/cases/': { rule: 'engineer', call: (c) => c.get('/api/cases') },
   'GET /api/cases/authors': { rule: 'engineer', call: (c) => c.get('/api/cases/authors') },
+  'GET /api/cases/references': { rule: 'engineer', call: (c) => c.get('/api/cases/references?ids=1,2') },
   'POST /api/cases/': { rule: 'engineer', call: (c) => c.post('/api/cases', {}) },
   'GET /api/cases/:id': { rule: 'see', call: (c, f) => c.get(`/api/cases/${f.caseId}`) },
   'PATCH /api/cases/:id': { rule: 'edit', call: (c, f) => c.patch(`/api/cases/${f.caseId}`, { summary: 'edited in the table', baseUpdatedAt: f.updatedAt }) },

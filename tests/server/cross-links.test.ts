@@ -111,4 +111,15 @@ describe('cross-links between cases follow the visibility policy', () => {
     await engineer.patch(`/api/cases/${privateLinker}`, { narrative: 'No link any more', baseUpdatedAt: updatedAt }).expect(200);
     expect((await engineer.get(`/api/cases/${linking}`).expect(200)).body.case.referredBy).toEqual([]);
   });
+
+  it('should resolve the numbers of a draft for its preview by the same policy, and refuse malformed lists', async () => {
+    const ids = `${secretDraft},${linking},99999`;
+    expect((await engineer.get(`/api/cases/references?ids=${ids}`).expect(200)).body.references).toEqual([{ id: linking, title: 'Verified case that links' }]);
+    expect((await colleague.get(`/api/cases/references?ids=${ids}`).expect(200)).body.references.map((r: { id: number }) => r.id)).toEqual([secretDraft, linking]);
+    expect((await mod.get(`/api/cases/references?ids=${ids}`).expect(200)).body.references.map((r: { id: number }) => r.id)).toEqual([secretDraft, linking]);
+    const bad = await engineer.get('/api/cases/references?ids=12;DROP').expect(400);
+    expect(bad.body.error).toMatch(/case numbers separated by commas/);
+    await engineer.get(`/api/cases/references?ids=${Array.from({ length: 51 }, (_, i) => i + 1).join(',')}`).expect(400);
+  });
 });
+

@@ -6,6 +6,7 @@ export const caseKeys = {
   lists: () => ['cases', 'list'] as const,
   list: (filters: CaseListFilters) => ['cases', 'list', filters] as const,
   authors: () => ['cases', 'authors'] as const,
+  references: (ids: number[]) => ['cases', 'references', ids.join(',')] as const,
   detail: (id: number) => ['cases', 'detail', id] as const,
   comments: (id: number) => ['cases', 'detail', id, 'comments'] as const,
   revisions: (id: number) => ['cases', 'detail', id, 'revisions'] as const,

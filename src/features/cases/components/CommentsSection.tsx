@@ -8,6 +8,7 @@ import { TextAreaField } from '../../../components/ui/TextAreaField';
 import { applyServerError, useZodForm } from '../../../lib/forms';
 import { useAddComment } from '../api/add-comment';
 import { useComments } from '../api/list-comments';
+import { useDraftReferences } from '../api/draft-references';
 import { CommentItem } from './CommentItem';
 
 export function CommentsSection({ caseId, canComment }: { caseId: number; canComment: boolean }) {
@@ -17,6 +18,8 @@ export function CommentsSection({ caseId, canComment }: { caseId: number; canCom
   const [message, setMessage] = useState('');
   const [preview, setPreview] = useState(false);
   const body = form.watch('body');
+  // only while previewing: the numbers are looked up when the preview is shown
+  const references = useDraftReferences(preview ? body : null);
   const onSubmit = form.handleSubmit(async ({ body }) => {
     setMessage('');
     try {
@@ -44,7 +47,7 @@ export function CommentsSection({ caseId, canComment }: { caseId: number; canCom
           {message && <Alert tone="caution">{message}</Alert>}
           {preview ? (
             <div className="min-h-24 rounded-md border border-dashed border-rule bg-paper/60 px-3 py-1 text-sm" aria-label="Comment preview" role="region">
-              {body ? <Markdown>{body}</Markdown> : <p className="py-2 text-muted">Nothing to preview.</p>}
+              {body ? <Markdown references={references}>{body}</Markdown> : <p className="py-2 text-muted">Nothing to preview.</p>}
             </div>
           ) : (
             <TextAreaField label="Add a comment" rows={3} hint="Markdown works here." error={form.formState.errors.body?.message} {...form.register('body')} />

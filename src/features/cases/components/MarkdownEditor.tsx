@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
 import { useController } from 'react-hook-form';
 import { Markdown } from '../../../components/ui/Markdown';
+import { useDraftReferences } from '../api/draft-references';
 import type { CaseFormApi } from '../form/case-form-schema';
 
 /** The narrative: markdown source beside its live preview; on a phone, one or the other. */
@@ -8,6 +9,7 @@ export function MarkdownEditor({ form }: { form: CaseFormApi }) {
   const id = useId();
   const { field, fieldState } = useController({ control: form.control, name: 'narrative' });
   const [view, setView] = useState<'write' | 'preview'>('write');
+  const references = useDraftReferences(field.value);
   const tab = (v: typeof view, label: string) => (
     <button
       type="button"
@@ -46,7 +48,7 @@ export function MarkdownEditor({ form }: { form: CaseFormApi }) {
           role="region"
           className={`${view === 'preview' ? 'block' : 'hidden'} min-h-64 overflow-auto rounded-md border border-dashed border-rule bg-paper/60 px-4 py-2 text-sm md:block`}
         >
-          {field.value ? <Markdown>{field.value}</Markdown> : <p className="py-2 text-muted">The preview appears here as you write.</p>}
+          {field.value ? <Markdown references={references}>{field.value}</Markdown> : <p className="py-2 text-muted">The preview appears here as you write.</p>}
         </div>
       </div>
       {fieldState.error && <p className="text-xs font-semibold text-caution">{fieldState.error.message}</p>}

@@ -206,8 +206,8 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
       deviation: Math.abs(Math.log(1 + recordedK)),
       predicted: setup.hasEdges || moved ? predictedFor(setup, divider) : {},
       explanation: moved
-        ? `A compensated probe keeps $R_1 C_1 = R_2 C_2$.${movedText} Signals much faster than τ ≈ ${eng(levels.timeConstantS, 's')} show that capacitive ratio as an amplitude error with flat tops; slower ones show it at the corners.`
-        : `No compensation state is recorded, so the probe is taken as adjusted: $R_1 C_1 = R_2 C_2$ (${eng(divider.tipResistanceOhm, 'Ω')} · ${eng(divider.tipCapacitanceF, 'F')} = ${eng(divider.inputResistanceOhm, 'Ω')} · ${eng(divider.inputCapacitanceF, 'F')}) and square-wave tops are flat. Out of adjustment, an edge would jump to $C_1/(C_1+C_2)$ and settle to $R_2/(R_1+R_2)$ = ${percent(levels.settle * 100)} with τ ≈ ${eng(levels.timeConstantS, 's')}; signals much faster than τ would show the capacitive ratio as an amplitude error.`,
+        ? `A compensated probe keeps R₁C₁ = R₂C₂.${movedText} Signals much faster than τ ≈ ${eng(levels.timeConstantS, 's')} show that capacitive ratio as an amplitude error with flat tops; slower ones show it at the corners.`
+        : `No compensation state is recorded, so the probe is taken as adjusted: R₁C₁ = R₂C₂ (${eng(divider.tipResistanceOhm, 'Ω')} · ${eng(divider.tipCapacitanceF, 'F')} = ${eng(divider.inputResistanceOhm, 'Ω')} · ${eng(divider.inputCapacitanceF, 'F')}) and square-wave tops are flat. Out of adjustment, an edge would jump to C₁/(C₁ + C₂) and settle to R₂/(R₁ + R₂) = ${percent(levels.settle * 100)} with τ ≈ ${eng(levels.timeConstantS, 's')}; signals much faster than τ would show the capacitive ratio as an amplitude error.`,
       confirm: CONFIRM,
       fix: "Check the probe on this scope's calibrator square wave and turn the trimmer until the top is flat.",
       estimates: { timeConstantS: levels.timeConstantS, balancedTipCapacitanceF: balancedDividerOf(setup).tipCapacitanceF, ...(moved ? { scopeChangeDeltaC2F: deltaC2F, jumpRatio: levels.jump, settleRatio: levels.settle } : {}) },
@@ -233,7 +233,7 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
     hiddenPrior: HIDDEN_TRIMMER_PRIOR * Math.exp(-Math.abs(k) / TYPICAL_TRIMMER_ERROR),
     deviation: Math.abs(Math.log(1 + k)),
     predicted: predictedFor(setup, fitted),
-    explanation: `The trace fits a probe ${over ? 'over' : 'under'}-compensated by ${percent(Math.abs(k) * 100)}: ${seenAs}. The fast divider $C_1/(C_1+C_2)$ passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(fitted.tipCapacitanceF, 'F')} instead of the ${eng(divider.tipCapacitanceF, 'F')} that balances R2·C2.`,
+    explanation: `The trace fits a probe ${over ? 'over' : 'under'}-compensated by ${percent(Math.abs(k) * 100)}: ${seenAs}. The fast divider C₁/(C₁ + C₂) passes ${percent(fittedLevels.jump * 100)} against the resistive ${percent(fittedLevels.settle * 100)}, as if C1 were ${eng(fitted.tipCapacitanceF, 'F')} instead of the ${eng(divider.tipCapacitanceF, 'F')} that balances R2·C2.`,
     confirm: CONFIRM,
     fix: `On the calibrator square wave, turn the compensation trimmer to ${over ? 'reduce' : 'increase'} the high-frequency gain until the corners are square, with no spike and no rounding.`,
     estimates: {

@@ -66,6 +66,8 @@ export class CompactEngine {
   /** Bumped by every change: a cached document frequency is good while its stamp equals it. */
   private version = 1;
   private dfCache = new Int32Array(0);
+  /** `scoreTerm`'s per-slot sums, all zero between calls. */
+  private scratch = new Float64Array(0);
   private dfStamp = new Uint32Array(0);
 
   has(id: number) {
@@ -188,32 +190,18 @@ export class CompactEngine {
   }
 
   /**
-   * Adds weight × BM25F (see the top of this file) to `out` for each live case `allow` admits.
-   * A case's postings of one term are adjacent (one per field), so each case is summed in one run.
+   * Adds weight × BM25F (see the top of this file) to `out` for each live case `allow` admits:
+   * `scoreTermSlots` into a scratch array, then moved to the map by case id.
    */
   scoreTerm(term: string, weight: number, allow: (id: number) => boolean, out: Map<number, number>) {
-    const t = this.termIds.get(term);
-    if (t === undefined || this.documentCount === 0) return;
-    const list = this.lists[t];
-    const n = this.used[t];
-    const ids = this.ids;
-    const df = this.liveCases(t);
-    if (df === 0) return;
-    const idf = weight * Math.log(1 + (this.documentCount - df + 0.5) / (df + 0.5));
-    let total = 0;
-    for (let f = 0; f < FIELDS; f++) total += BOOSTS[f] * this.totalLength[f];
-    const avg = total / this.documentCount || 1;
-    const lengths = this.fieldLength;
-    for (let i = 0; i < n; ) {
-      const slot = list[i] >>> SLOT_SHIFT;
-      let tf = 0;
-      for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) tf += BOOSTS[(list[i] >>> FIELD_SHIFT) & 7] * (list[i] & TF_MASK);
-      const id = ids[slot];
-      if (id < 0 || !allow(id)) continue;
-      let length = 0;
-      for (let f = 0; f < FIELDS; f++) length += BOOSTS[f] * lengths[f][slot];
-      const score = idf * (D + (tf * (K + 1)) / (tf + K * (1 - B + (B * length) / avg)));
-      out.set(id, (out.get(id) ?? 0) + score);
+    if (this.scratch.length < this.slots) this.scratch = new Float64Array(Math.max(this.slots, 2 * this.scratch.length));
+    const acc = this.scratch;
+    const touched: number[] = [];
+    this.scoreTermSlots(term, weight, (slot) => allow(this.ids[slot]), acc, touched);
+    for (const slot of touched) {
+      const id = this.ids[slot];
+      out.set(id, (out.get(id) ?? 0) + acc[slot]);
+      acc[slot] = 0;
     }
   }
 

@@ -2,22 +2,11 @@ import { readdirSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemoCasebook } from '../../server/seed/demo/seed-casebook';
 import { storagePaths } from '../../server/storage';
+import { downloadCasebook } from './helpers/casebook-download';
 import { createTestContext, signedIn, type TestContext } from './helpers/test-context';
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
-async function download(c: Client): Promise<Buffer> {
-  const res = await c.agent
-    .get('/api/admin/casebook/export')
-    .buffer(true)
-    .parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (d: Buffer) => chunks.push(d));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    })
-    .expect(200);
-  return res.body as Buffer;
-}
 
 const upload = (c: Client, zip: Uint8Array, query = '') => c.upload(`/api/admin/casebook/import${query}`, Buffer.from(zip), 'casebook.zip', 'application/zip');
 
@@ -60,7 +49,7 @@ describe('casebook import gives imported records their own ids', () => {
   beforeAll(async () => {
     [source, target] = await Promise.all([createTestContext(), createTestContext()]);
     await seedDemoCasebook(source, source.config.demoPassword);
-    archive = await download(await signedIn(source, 'admin'));
+    archive = await downloadCasebook(await signedIn(source, 'admin'));
     archived = await caseCount(source);
     // the target already holds unrelated cases numbered 1, 2, 3 (the archive's numbers too)
     const eng = await signedIn(target, 'engineer');

@@ -1,20 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { downloadCasebook } from './helpers/casebook-download';
 import { createTestContext, signedIn, type TestContext } from './helpers/test-context';
 
-type Client = Awaited<ReturnType<typeof signedIn>>;
-
-async function download(c: Client): Promise<Buffer> {
-  const res = await c.agent
-    .get('/api/admin/casebook/export')
-    .buffer(true)
-    .parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (d: Buffer) => chunks.push(d));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    })
-    .expect(200);
-  return res.body as Buffer;
-}
 
 describe('casebook import and #id links', () => {
   let source: TestContext;
@@ -35,7 +22,7 @@ describe('casebook import and #id links', () => {
       await eng.post('/api/cases', { title: 'Linked source case B', summary: 'the second', narrative: `Same clip lead as #${a}; see also #987654. In code: \`#${a}\` stays.` }).expect(201)
     ).body.case.id as number;
     await eng.post(`/api/cases/${a}/comments`, { body: `Follow-up in #${b}` }).expect(201);
-    const archive = await download(await signedIn(source, 'admin'));
+    const archive = await downloadCasebook(await signedIn(source, 'admin'));
 
     // the target's own cases take the archive's numbers first
     const own = await signedIn(target, 'engineer');

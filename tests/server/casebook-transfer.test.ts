@@ -4,25 +4,13 @@ import { unzipSync, zipSync } from 'fflate';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemoCasebook } from '../../server/seed/demo/seed-casebook';
 import { storagePaths } from '../../server/storage';
+import { downloadCasebook } from './helpers/casebook-download';
 import { createTestContext, signedIn, type TestContext } from './helpers/test-context';
 
 const sha = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest('hex');
 
 type Client = Awaited<ReturnType<typeof signedIn>>;
 
-async function download(c: Client, query = ''): Promise<Buffer> {
-  const res = await c.agent
-    .get(`/api/admin/casebook/export${query}`)
-    .buffer(true)
-    .parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (d: Buffer) => chunks.push(d));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    })
-    .expect(200)
-    .expect('Content-Type', 'application/zip');
-  return res.body as Buffer;
-}
 
 const upload = (c: Client, zip: Uint8Array, query = '') => c.upload(`/api/admin/casebook/import${query}`, Buffer.from(zip), 'casebook.zip', 'application/zip');
 
@@ -87,7 +75,7 @@ describe('casebook export and import', () => {
   beforeAll(async () => {
     [source, target] = await Promise.all([createTestContext(), createTestContext()]);
     await seedDemoCasebook(source, source.config.demoPassword);
-    archive = await download(await signedIn(source, 'admin'));
+    archive = await downloadCasebook(await signedIn(source, 'admin'));
   }, 180_000);
   afterAll(async () => {
     await source?.close();
@@ -115,7 +103,7 @@ describe('casebook export and import', () => {
   });
 
   it('should export only the cases the filters select', async () => {
-    const zip = await download(await signedIn(source, 'admin'), '?cause=ground-lead&status=verified');
+    const zip = await downloadCasebook(await signedIn(source, 'admin'), '?cause=ground-lead&status=verified');
     const cases = JSON.parse(Buffer.from(unzipSync(zip)['cases.json']).toString()) as { statedCause: string; status: string }[];
     expect(cases.length).toBeGreaterThan(0);
     for (const c of cases) expect([c.statedCause, c.status]).toEqual(['ground-lead', 'verified']);

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { Loading } from '../../../components/ui/Panel';
 import { useCases, type CaseListFilters } from '../api/list-cases';
-import { CauseChip } from './CauseChip';
+import { CauseChip } from '../../../components/ui/CauseChip';
 
 const day = (iso: string) => new Date(iso).toLocaleDateString([], { month: 'short', day: 'numeric' });
 

@@ -11,7 +11,7 @@ import { ApiError } from '../../../lib/api-client';
 import { useCase } from '../api/get-case';
 import { CaptureList } from './CaptureList';
 import { CasePageActions } from './CasePageActions';
-import { CauseChip, causeLabel } from './CauseChip';
+import { CauseChip, causeLabel } from '../../../components/ui/CauseChip';
 import { CommentsSection } from './CommentsSection';
 import { DiagnosisView } from './DiagnosisView';
 import { ExpectedVsObserved } from './ExpectedVsObserved';

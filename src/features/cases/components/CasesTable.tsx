@@ -2,7 +2,7 @@ import { createColumnHelper, rowPaginationFeature, rowSortingFeature, tableFeatu
 import { Link, useNavigate } from 'react-router-dom';
 import { useKeyboardList } from '../../../components/keyboard/use-keyboard-list';
 import type { CaseSummary } from '../../../../shared/schemas/case';
-import { CauseChip } from './CauseChip';
+import { CauseChip } from '../../../components/ui/CauseChip';
 import { StatusBadge } from './StatusBadge';
 
 const features = tableFeatures({ rowSortingFeature, rowPaginationFeature });

@@ -43,8 +43,11 @@ export function zipWriter(out: Writable) {
       if (failed) throw failed;
       hash.update(chunk);
       bytes += chunk.length;
-      entry.push(chunk);
-      await drained();
+      // large given texts go in slices so the deflater's output reaches the disk as it comes
+      for (let i = 0; i < chunk.length; i += 1 << 16) {
+        entry.push(chunk.subarray(i, i + (1 << 16)));
+        await drained();
+      }
     }
     entry.push(new Uint8Array(0), true);
     await drained();
@@ -74,6 +77,8 @@ interface CentralEntry {
   name: string;
   method: number;
   compressedSize: number;
+  /** The size the archive says the entry unpacks to (an archive may understate it). */
+  declaredSize: number;
   localHeaderOffset: number;
 }
 
@@ -94,13 +99,14 @@ async function centralDirectory(fh: FileHandle): Promise<CentralEntry[]> {
   await fh.read(dir, 0, dirSize, dirOffset);
   const entries: CentralEntry[] = [];
   for (let i = 0, p = 0; i < count; i++) {
-    if (dir.readUInt32LE(p) !== 0x02014b50) throw new Error('the zip is damaged (bad central directory entry)');
+    if (p + 46 > dirSize || dir.readUInt32LE(p) !== 0x02014b50) throw new Error('the zip is damaged (bad central directory entry)');
     const nameLength = dir.readUInt16LE(p + 28);
     const extraLength = dir.readUInt16LE(p + 30);
     const commentLength = dir.readUInt16LE(p + 32);
     entries.push({
       method: dir.readUInt16LE(p + 10),
       compressedSize: dir.readUInt32LE(p + 20),
+      declaredSize: dir.readUInt32LE(p + 24),
       localHeaderOffset: dir.readUInt32LE(p + 42),
       name: dir.toString('utf8', p + 46, p + 46 + nameLength),
     });
@@ -109,61 +115,99 @@ async function centralDirectory(fh: FileHandle): Promise<CentralEntry[]> {
   return entries;
 }
 
+const mb = (n: number) => `${Math.round(n / 1024 ** 2)} MB`;
+
+export type UnpackResult = { ok: true; files: WrittenEntry[] } | { ok: false; tooLarge: boolean; message: string };
+
 /**
  * Unpacks a zip file into `destDir` entry by entry, as streams (never the whole archive in
- * memory), returning each written file's size and SHA-256. Reads the central directory, so entry
- * ends never depend on guessing. Refuses unsafe names and more than `maxBytes` in total.
+ * memory), with each written file's size and SHA-256. Reads the central directory, so entry ends
+ * never depend on guessing. First adds up the sizes the archive declares and refuses before
+ * inflating anything when they pass the limits; then stops the moment the real bytes pass
+ * `maxBytes` (a zip may understate its sizes). Refuses unsafe or repeated names and compressions
+ * other than stored and deflate. Never throws for a bad archive: says why instead.
  */
-export async function unzipToDir(archive: string, destDir: string, maxBytes: number): Promise<Map<string, WrittenEntry>> {
-  const written = new Map<string, WrittenEntry>();
+export async function unpackZip(archive: string, destDir: string, limits: { maxBytes: number; maxEntries: number }): Promise<UnpackResult> {
+  const { maxBytes, maxEntries } = limits;
   const fh = await open(archive, 'r');
   try {
     const head = Buffer.alloc(4);
     await fh.read(head, 0, 4, 0);
-    if (head.readUInt32LE(0) !== 0x04034b50) throw new Error('the file is not a zip archive');
+    if (head.readUInt32LE(0) !== 0x04034b50) return { ok: false, tooLarge: false, message: 'the file is not a zip archive' };
+    let entries: CentralEntry[];
+    try {
+      entries = (await centralDirectory(fh)).filter((e) => !e.name.endsWith('/'));
+    } catch (err) {
+      return { ok: false, tooLarge: false, message: (err as Error).message };
+    }
+    const declared = entries.reduce((sum, e) => sum + e.declaredSize, 0);
+    if (entries.length > maxEntries) return { ok: false, tooLarge: true, message: `it holds ${entries.length} files, more than the ${maxEntries} allowed` };
+    if (declared > maxBytes) return { ok: false, tooLarge: true, message: `it unpacks to ${mb(declared)}, more than the ${mb(maxBytes)} allowed` };
+    const files: WrittenEntry[] = [];
+    const seen = new Set<string>();
     let total = 0;
-    for (const entry of await centralDirectory(fh)) {
-      if (entry.name.endsWith('/')) continue;
-      const rel = safeEntryPath(entry.name);
-      if (!rel) throw new Error(`the archive holds an unsafe path "${entry.name}"`);
-      if (entry.method !== 0 && entry.method !== 8) throw new Error(`"${rel}" uses an unknown compression (${entry.method})`);
+    for (const e of entries) {
+      const name = safeEntryPath(e.name);
+      if (!name) return { ok: false, tooLarge: false, message: `it holds an unsafe path "${e.name}"` };
+      if (seen.has(name)) return { ok: false, tooLarge: false, message: `it holds "${name}" twice` };
+      seen.add(name);
+      if (e.method !== 0 && e.method !== 8) return { ok: false, tooLarge: false, message: `"${name}" uses a compression Falsetrace does not read (${e.method})` };
       const local = Buffer.alloc(30);
-      await fh.read(local, 0, 30, entry.localHeaderOffset);
-      if (local.readUInt32LE(0) !== 0x04034b50) throw new Error(`the zip is damaged at "${rel}"`);
-      const dataStart = entry.localHeaderOffset + 30 + local.readUInt16LE(26) + local.readUInt16LE(28);
-      const target = path.join(destDir, rel);
+      await fh.read(local, 0, 30, e.localHeaderOffset);
+      if (local.readUInt32LE(0) !== 0x04034b50) return { ok: false, tooLarge: false, message: `the zip is damaged at "${name}"` };
+      const dataStart = e.localHeaderOffset + 30 + local.readUInt16LE(26) + local.readUInt16LE(28);
+      const target = path.join(destDir, name);
       await mkdir(path.dirname(target), { recursive: true });
       const ws = createWriteStream(target);
       const hash = createHash('sha256');
       let bytes = 0;
       let overflow = false;
+      let broken: Error | undefined;
       const sink = (chunk: Uint8Array) => {
         bytes += chunk.length;
         total += chunk.length;
         if (total > maxBytes) overflow = true;
+        if (overflow) return;
         hash.update(chunk);
         ws.write(chunk);
       };
-      const inflate = entry.method === 8 ? new Inflate((chunk) => sink(chunk)) : undefined;
-      const source = fh.createReadStream({ start: dataStart, end: dataStart + entry.compressedSize - 1, autoClose: false });
-      if (entry.compressedSize > 0) {
+      const inflate = e.method === 8 ? new Inflate((chunk) => sink(chunk)) : undefined;
+      if (e.compressedSize > 0) {
+        // a stream of its own per entry: streams on the one FileHandle each leave a listener on it
+        const source = createReadStream(archive, { start: dataStart, end: dataStart + e.compressedSize - 1, highWaterMark: 1 << 16 });
         for await (const chunk of source as AsyncIterable<Buffer>) {
-          if (inflate) inflate.push(chunk);
-          else sink(chunk);
-          if (overflow) break;
+          try {
+            if (inflate) inflate.push(chunk);
+            else sink(chunk);
+          } catch (err) {
+            broken = err as Error;
+          }
+          if (overflow || broken) break;
           if (ws.writableNeedDrain) await new Promise<void>((r) => ws.once('drain', () => r()));
         }
       }
-      if (inflate && !overflow) inflate.push(new Uint8Array(0), true);
+      try {
+        if (inflate && !overflow && !broken) inflate.push(new Uint8Array(0), true);
+      } catch (err) {
+        broken = err as Error;
+      }
       await new Promise<void>((resolve, reject) => {
         ws.once('error', reject);
         ws.end(() => resolve());
       });
-      if (overflow) throw new Error(`the archive unpacks to more than ${Math.round(maxBytes / 1024 ** 2)} MB`);
-      written.set(rel, { path: rel, bytes, sha256: hash.digest('hex') });
+      if (overflow) return { ok: false, tooLarge: true, message: `it unpacks to more than the ${mb(maxBytes)} allowed (its sizes are understated)` };
+      if (broken) return { ok: false, tooLarge: false, message: `the zip is damaged at "${name}" (${broken.message || 'unreadable'})` };
+      files.push({ path: name, bytes, sha256: hash.digest('hex') });
     }
+    return { ok: true, files };
   } finally {
     await fh.close();
   }
-  return written;
+}
+
+/** `unpackZip` for a backup being restored: the files by path, or an error saying why not. */
+export async function unzipToDir(archive: string, destDir: string, maxBytes: number): Promise<Map<string, WrittenEntry>> {
+  const result = await unpackZip(archive, destDir, { maxBytes, maxEntries: Number.MAX_SAFE_INTEGER });
+  if (!result.ok) throw new Error(`the archive cannot be restored: ${result.message}`);
+  return new Map(result.files.map((f) => [f.path, f]));
 }

@@ -22,7 +22,7 @@ export async function unpackArchive(archive: string, parentDir: string, limits: 
   const discard = () => rm(dir, { recursive: true, force: true });
   try {
     const result = await zipWorkers.unpack(archive, dir, limits);
-    const unpacked: Unpacked = result.ok ? { ok: true, dir, files: new Map(result.files.map((f) => [f.name, f])) } : result;
+    const unpacked: Unpacked = result.ok ? { ok: true, dir, files: new Map(result.files.map((f) => [f.path, f])) } : result;
     return { unpacked, discard };
   } catch (err) {
     await discard();

@@ -1,13 +1,24 @@
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
+import type { UnpackResult } from '../backup/zip-stream';
+import type { ZipEntrySource } from './zip-worker';
 
 /** Heap cap of a zip worker: entries pass through it a chunk at a time, so this is plenty. */
 export const ZIP_WORKER_HEAP_MB = 256;
 
 let pool: Piscina | undefined;
 
+/** Beside the bundle in production; else the TypeScript source, through tsx. */
+function workerEntry(): { filename: string; workerData?: { entry: string } } {
+  const bundled = new URL('./zip-worker.mjs', import.meta.url);
+  if (existsSync(fileURLToPath(bundled))) return { filename: bundled.href };
+  return { filename: new URL('./zip-worker-boot.mjs', import.meta.url).href, workerData: { entry: new URL('./zip-worker.ts', import.meta.url).href } };
+}
+
 function thePool(): Piscina {
   pool ??= new Piscina({
-    filename: new URL('./zip-worker.mjs', import.meta.url).href,
+    ...workerEntry(),
     // one archive at a time: the other core stays with requests, and two exports queue
     maxThreads: 1,
     minThreads: 0,
@@ -18,13 +29,7 @@ function thePool(): Piscina {
   return pool;
 }
 
-export type ZipEntrySource = { name: string; file: string } | { name: string; bytes: Uint8Array };
-export interface UnpackedFile {
-  name: string;
-  bytes: number;
-  sha256: string;
-}
-export type UnpackResult = { ok: true; files: UnpackedFile[] } | { ok: false; tooLarge: boolean; message: string };
+export type { ZipEntrySource, UnpackResult };
 
 /** Packing and unpacking casebook archives, off the request thread. */
 export const zipWorkers = {

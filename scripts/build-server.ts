@@ -1,4 +1,4 @@
-import { copyFileSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
+import { copyFileSync, cpSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { build } from 'esbuild';
@@ -24,7 +24,10 @@ await build({
 });
 // the capture worker, likewise
 await build({ ...common, entryPoints: [path.join(root, 'server/captures/capture-worker.ts')], bundle: true, outfile: path.join(out, 'capture-worker.mjs') });
-// the image and zip workers are plain JavaScript already; their pools find them beside the bundle
+// the zip worker, likewise
+await build({ ...common, entryPoints: [path.join(root, 'server/casebook/zip-worker.ts')], bundle: true, outfile: path.join(out, 'zip-worker.mjs') });
+// the image worker is plain JavaScript already; its pool finds it beside the bundle
 copyFileSync(path.join(root, 'server/images/reencode-worker.mjs'), path.join(out, 'reencode-worker.mjs'));
-copyFileSync(path.join(root, 'server/casebook/zip-worker.mjs'), path.join(out, 'zip-worker.mjs'));
+// the demo's captures, read when an empty casebook is seeded (CAPTURE_DIR, beside the bundle)
+cpSync(path.join(root, 'server/seed/demo/captures'), path.join(out, 'captures'), { recursive: true });
 console.log(`server built into ${path.relative(root, out)}/ (start it with: node dist-server/index.mjs)`);

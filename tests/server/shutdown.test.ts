@@ -1,9 +1,10 @@
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { connect, type Socket } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
+import { CAPTURE_DIR } from '../../server/seed/demo/capture-files';
 import { createPostgresDatabase } from '../helpers/postgres';
 import { ON_POSTGRES } from './helpers/test-context';
 
@@ -63,6 +64,13 @@ describe(`the compiled server under plain node stops cleanly on SIGTERM (${ON_PO
     await dropDatabase();
     rmSync(dataDir, { recursive: true, force: true });
     if (ON_POSTGRES) rmSync(path.join(root, outDir), { recursive: true, force: true });
+  });
+
+  it('should carry beside the bundle every file the workers and the demo seeding read at run time', () => {
+    const built = new Set(readdirSync(path.join(root, outDir)));
+    for (const worker of ['search-worker.mjs', 'capture-worker.mjs', 'zip-worker.mjs', 'reencode-worker.mjs']) expect(built, worker).toContain(worker);
+    // an empty DATA_DIR is seeded with the demo, whose captures are read from CAPTURE_DIR beside the bundle
+    expect(readdirSync(path.join(root, outDir, 'captures')).sort()).toEqual(readdirSync(CAPTURE_DIR).sort());
   });
 
   it('should finish a request in flight, refuse new connections, and exit with 0', async () => {

@@ -1,7 +1,6 @@
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import { AppError } from '../errors';
+import { workerEntry } from '../worker-entry';
 import type { CaptureAnalysis } from './analyze-file';
 import type { CaptureTask } from './capture-worker';
 
@@ -22,16 +21,9 @@ export const CAPTURE_QUEUE = 8;
 
 let pool: Piscina | undefined;
 
-/** Beside the bundle in production; else the TypeScript source, through tsx. */
-function workerEntry(): { filename: string; workerData?: { entry: string } } {
-  const bundled = new URL('./capture-worker.mjs', import.meta.url);
-  if (existsSync(fileURLToPath(bundled))) return { filename: bundled.href };
-  return { filename: new URL('./capture-worker-boot.mjs', import.meta.url).href, workerData: { entry: new URL('./capture-worker.ts', import.meta.url).href } };
-}
-
 function thePool(): Piscina {
   pool ??= new Piscina({
-    ...workerEntry(),
+    ...workerEntry('capture-worker', new URL('./capture-worker.ts', import.meta.url)),
     // one capture at a time: on 2 cores the other one stays with requests
     maxThreads: 1,
     minThreads: 0,

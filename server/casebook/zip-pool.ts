@@ -1,7 +1,6 @@
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import type { UnpackResult } from '../backup/zip-stream';
+import { workerEntry } from '../worker-entry';
 import type { ZipEntrySource } from './zip-worker';
 
 /** Heap cap of a zip worker: entries pass through it a chunk at a time, so this is plenty. */
@@ -9,16 +8,9 @@ export const ZIP_WORKER_HEAP_MB = 256;
 
 let pool: Piscina | undefined;
 
-/** Beside the bundle in production; else the TypeScript source, through tsx. */
-function workerEntry(): { filename: string; workerData?: { entry: string } } {
-  const bundled = new URL('./zip-worker.mjs', import.meta.url);
-  if (existsSync(fileURLToPath(bundled))) return { filename: bundled.href };
-  return { filename: new URL('./zip-worker-boot.mjs', import.meta.url).href, workerData: { entry: new URL('./zip-worker.ts', import.meta.url).href } };
-}
-
 function thePool(): Piscina {
   pool ??= new Piscina({
-    ...workerEntry(),
+    ...workerEntry('zip-worker', new URL('./zip-worker.ts', import.meta.url)),
     // one archive at a time: the other core stays with requests, and two exports queue
     maxThreads: 1,
     minThreads: 0,

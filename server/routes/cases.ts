@@ -1,7 +1,6 @@
 import { Router } from 'express';
-import { caseReferencesQuerySchema } from '../../shared/cases/case-references';
-import { visibleCasesByIds } from '../services/case-references';
 import { z } from 'zod';
+import { caseReferencesQuerySchema } from '../../shared/cases/case-references';
 import { caseCreateSchema, caseListQuerySchema, casePatchSchema, commentInputSchema } from '../../shared/schemas/case';
 import { reviewInputSchema } from '../../shared/schemas/review';
 import type { AppDeps } from '../deps';
@@ -11,6 +10,7 @@ import { singleUpload } from '../middleware/upload';
 import { parseInput } from '../middleware/validate';
 import { addAttachment, removeAttachment } from '../services/attachments';
 import { authorsFor, createCase, deleteCase, listCasesFor, loadCase, submitCase, updateCase } from '../services/cases';
+import { visibleCasesByIds } from '../services/case-references';
 import { addComment, commentsOf } from '../services/comments';
 import { diffRevisions, revisionsOf } from '../services/revisions';
 import { historyOf } from '../services/history';

@@ -20,7 +20,6 @@ export interface TermGroup {
  */
 export type IndexTuning = Record<string, never>;
 
-/** The cases' compact inverted index and the facts that filter and facet them. */
 /** A case's cause, status and tags as small numbers (`CaseIndex.facetName` reads them back): facets count into arrays. */
 export interface FacetCodes {
   cause: number;
@@ -28,6 +27,7 @@ export interface FacetCodes {
   tags: Int32Array;
 }
 
+/** The cases' compact inverted index and the facts that filter and facet them. */
 export class CaseIndex {
   readonly facts = new Map<number, CaseFacts>();
   /** Per case, its facet values as codes; kept with `facts`. */

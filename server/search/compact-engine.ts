@@ -66,9 +66,9 @@ export class CompactEngine {
   /** Bumped by every change: a cached document frequency is good while its stamp equals it. */
   private version = 1;
   private dfCache = new Int32Array(0);
+  private dfStamp = new Uint32Array(0);
   /** `scoreTerm`'s per-slot sums, all zero between calls. */
   private scratch = new Float64Array(0);
-  private dfStamp = new Uint32Array(0);
 
   has(id: number) {
     return this.slotOf.has(id);
@@ -215,11 +215,6 @@ export class CompactEngine {
     return this.ids[slot];
   }
 
-  /** The slot of a live case, or −1. */
-  slotOfCase(id: number): number {
-    return this.slotOf.get(id) ?? -1;
-  }
-
   /**
    * `scoreTerm` over slots instead of case ids, for the hot path of a query: adds weight × BM25F
    * into `acc[slot]` for each live slot `admit` returns true for, and appends each slot seen for
@@ -256,10 +251,8 @@ export class CompactEngine {
   private liveCases(t: number): number {
     if (this.dfCache.length <= t) {
       const size = Math.max(1024, this.terms.length * 2);
-      this.dfCache = Int32Array.from({ length: size }, (_, k) => this.dfCache[k] ?? 0);
-      const stamps = new Uint32Array(size);
-      stamps.set(this.dfStamp);
-      this.dfStamp = stamps;
+      this.dfCache = copyInto(new Int32Array(size), this.dfCache);
+      this.dfStamp = copyInto(new Uint32Array(size), this.dfStamp);
     }
     if (this.dfStamp[t] === this.version) return this.dfCache[t];
     const list = this.lists[t];
@@ -378,7 +371,7 @@ export class CompactEngine {
   }
 }
 
-function copyInto<T extends Uint32Array | Uint16Array>(to: T, from: T): T {
+function copyInto<T extends Uint32Array | Uint16Array | Int32Array>(to: T, from: T): T {
   to.set(from);
   return to;
 }

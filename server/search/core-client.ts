@@ -1,6 +1,5 @@
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { workerEntry } from '../worker-entry';
 import { SearchCore, type CoreOptions } from './search-core';
 
 const METHODS = ['size', 'restore', 'begin', 'add', 'finish', 'upsert', 'remove', 'rank', 'highlights', 'similar', 'listCandidates', 'save', 'close'] as const;
@@ -25,21 +24,14 @@ export function localCore(options: CoreOptions): CoreClient {
   return client as unknown as CoreClient;
 }
 
-/** Where the worker's code is: beside the bundle in production, else its TypeScript source through tsx. */
-function workerEntry(): { file: URL; workerData: Record<string, unknown> } {
-  const bundled = new URL('./search-worker.mjs', import.meta.url);
-  if (existsSync(fileURLToPath(bundled))) return { file: bundled, workerData: {} };
-  return { file: new URL('./worker-boot.mjs', import.meta.url), workerData: { entry: new URL('./search-worker.ts', import.meta.url).href } };
-}
-
 /**
  * The core on one long-lived worker thread. Calls are answered in order; if the worker dies,
  * every call in flight and every later one fails with that error, and `onExit` is told, so the
  * owner can open a new one (case-search.ts does).
  */
 export function workerCore(options: CoreOptions, onExit: (err: Error) => void): CoreClient {
-  const { file, workerData } = workerEntry();
-  const worker = new Worker(file, { workerData: { ...workerData, options } });
+  const { filename, workerData } = workerEntry('search-worker', new URL('./search-worker.ts', import.meta.url));
+  const worker = new Worker(new URL(filename), { workerData: { ...workerData, options } });
   const pending = new Map<number, { resolve: (v: unknown) => void; reject: (e: Error) => void }>();
   let next = 1;
   let dead: Error | undefined;

@@ -22,11 +22,11 @@ export function countFacets(index: CaseIndex, candidates: Iterable<number>, q: P
   const cause = new Int32Array(size);
   const tags = new Int32Array(size);
   const status = new Int32Array(size);
-  // a filter on a value no case has passes nothing; −2 never matches a code
-  const want = (name: string | undefined) => (name ? index.knownCode(name) : -1);
-  const causeCode = q.cause ? (want(q.cause) < 0 ? -2 : want(q.cause)) : -1;
-  const tagCode = q.tag ? (want(q.tag) < 0 ? -2 : want(q.tag)) : -1;
-  const statusCode = q.status ? (want(q.status) < 0 ? -2 : want(q.status)) : -1;
+  // −1: no filter; a filter on a value no case has is −2, which matches no code
+  const filterCode = (name: string | undefined) => (name ? (index.knownCode(name) >= 0 ? index.knownCode(name) : -2) : -1);
+  const causeCode = filterCode(q.cause);
+  const tagCode = filterCode(q.tag);
+  const statusCode = filterCode(q.status);
   const passing: number[] = [];
   for (const id of candidates) {
     const f = index.facetCodes.get(id);

@@ -19,8 +19,9 @@ const keyCache = new WeakMap<ReadonlySet<string>, string[]>();
 
 /**
  * Lower-case strings one of which every written form of the terms contains: a stem's first
- * four letters ("ringing" and "rings" start "ring"; not a final i, "copy" stems to "copi"), its irregular forms ("rang"), a quantity's
- * digits, a phrase's words ("ten times" for 10x, "spring tip" for the ground spring).
+ * four letters ("ringing" and "rings" start "ring"; not a final i, as "copy" stems to "copi"),
+ * its irregular forms ("rang"), a quantity's digits, a phrase's words ("ten times" for 10x,
+ * "spring tip" for the ground spring).
  */
 function keysOf(terms: ReadonlySet<string>): string[] {
   let keys = keyCache.get(terms);
@@ -146,11 +147,11 @@ export function plainText(markdown: string): string {
 export function highlightsFor(fields: { field: HighlightField; text: string | null }[], terms: ReadonlySet<string>, maxSnippets = 2): SearchHighlight[] {
   const out: SearchHighlight[] = [];
   let snippets = 0;
+  const keys = keysOf(terms);
   for (const { field, text: raw } of fields) {
     if (!raw || terms.size === 0) continue;
     // the snippets are taken: a longer field would be read for nothing
     if (field !== 'title' && field !== 'summary' && snippets >= maxSnippets) continue;
-    const keys = keysOf(terms);
     const lowered = raw.toLowerCase();
     // no place a term may be written: no markdown to strip, nothing to tokenise
     if (!keys.some((k) => lowered.includes(k))) continue;

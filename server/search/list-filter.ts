@@ -8,11 +8,11 @@ import type { CaseIndex } from './case-index';
  * The index fields holding what a text filter reads: the case list's (`containsText` on title
  * and summary) and the Lessons page's (title, lesson summary and detail: all in `remedy`).
  */
-const FIELDS_READ = {
+export type TextFilterFields = 'list' | 'lessons';
+const FIELDS_READ: Record<TextFilterFields, number[]> = {
   list: [DOC_FIELDS.indexOf('title'), DOC_FIELDS.indexOf('summary')],
   lessons: [DOC_FIELDS.indexOf('title'), DOC_FIELDS.indexOf('remedy')],
-} as const;
-export type TextFilterFields = keyof typeof FIELDS_READ;
+};
 /** Shorter words would expand to much of the dictionary; the scan answers them. */
 const MIN_WORD = 3;
 const UNITS = Object.keys(UNIT_SPELLINGS);
@@ -36,10 +36,9 @@ function termsStartedBy(index: CaseIndex, word: string): Set<string> {
 /**
  * The cases whose title or summary (`fields` 'list'; 'lessons': title or lesson) may contain
  * `q` where its words start words of the text: each word of `q` starts a word there, as the
- * index reads them. For such
- * queries this is a superset of the substring match (the same analysis made both sides'
- * terms), so the list runs its substring test on these ids only instead of on every case;
- * text inside a word ("lead" in "misleading") is what it gives up.
+ * index reads them. For such queries this is a superset of the substring match (the same
+ * analysis made both sides' terms), so the list runs its substring test on these ids only
+ * instead of on every case; text inside a word ("lead" in "misleading") is what it gives up.
  * Undefined when the index cannot say, and the list scans: no words left after function
  * words; a word under three letters; a number or a unit word, which the analysis folds with
  * its neighbour ("50 ohm" → one term "50ω"); more than `limit` cases, as an id list that long
@@ -52,7 +51,7 @@ export function listTextCandidates(index: CaseIndex, q: string, limit: number, f
   let ids: Set<number> | undefined;
   for (const word of words) {
     const holding = new Set<number>();
-    for (const term of termsStartedBy(index, word)) for (const id of index.engine.casesWithTerm(term, [...FIELDS_READ[fields]])) if (!ids || ids.has(id)) holding.add(id);
+    for (const term of termsStartedBy(index, word)) for (const id of index.engine.casesWithTerm(term, FIELDS_READ[fields])) if (!ids || ids.has(id)) holding.add(id);
     ids = holding;
     if (ids.size === 0) break;
   }

@@ -11,13 +11,10 @@ const visibleTo = (actor: Actor, rows: FactsRow[]): CaseReference[] =>
   rows.filter((r) => canSeeCase(actor, { authorId: r.author_id, status: r.status })).map((r) => ({ id: r.id, title: r.title }));
 
 /** The cases named as `#123` in these texts that the reader may open, in order of mention. */
-export async function visibleReferences(db: Db, actor: Actor, ...texts: (string | null | undefined)[]): Promise<CaseReference[]> {
-  const ids = referencedCaseIds(...texts);
-  const byId = new Map((await caseFactsByIds(db, ids)).map((r) => [r.id, r]));
-  return visibleTo(actor, ids.flatMap((id) => byId.get(id) ?? []));
-}
+export const visibleReferences = (db: Db, actor: Actor, ...texts: (string | null | undefined)[]): Promise<CaseReference[]> =>
+  visibleCasesByIds(db, actor, referencedCaseIds(...texts));
 
-/** Of these case ids, the cases the reader may open, with their titles (a draft's preview). */
+/** Of these case ids, the cases the reader may open, with their titles, in the given order (a draft's preview). */
 export async function visibleCasesByIds(db: Db, actor: Actor, ids: number[]): Promise<CaseReference[]> {
   const byId = new Map((await caseFactsByIds(db, ids)).map((r) => [r.id, r]));
   return visibleTo(actor, ids.flatMap((id) => byId.get(id) ?? []));

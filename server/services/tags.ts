@@ -22,7 +22,7 @@ async function ensureTagRow(db: Db, tag: string) {
 export async function listTags({ db }: AppDeps, actor: Actor): Promise<TagInfo[]> {
   const visible = new Map<string, number>();
   const add = (rows: { tag: string; n: number | string | bigint }[]) => {
-    for (const r of rows) if (Number(r.n) > 0) visible.set(r.tag, (visible.get(r.tag) ?? 0) + Number(r.n));
+    for (const r of rows) visible.set(r.tag, (visible.get(r.tag) ?? 0) + Number(r.n));
   };
   if (canModerate(actor)) {
     add(await db.selectFrom('tag_counts').select(['tag', 'all_cases as n']).where('all_cases', '>', 0).execute());

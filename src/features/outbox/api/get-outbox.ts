@@ -8,4 +8,7 @@ export const getOutbox = () => api<{ messages: OutboxMessage[] }>('/api/dev/outb
 
 export const outboxQueryOptions = () => queryOptions({ queryKey: outboxKeys.all, queryFn: getOutbox, staleTime: 0 });
 
-export const useOutbox = (enabled = true) => useQuery({ ...outboxQueryOptions(), enabled });
+/** Mails leave through a background queue, so an open outbox looks again every few seconds. */
+const OUTBOX_POLL_MS = 3000;
+
+export const useOutbox = (enabled = true) => useQuery({ ...outboxQueryOptions(), enabled, refetchInterval: OUTBOX_POLL_MS });

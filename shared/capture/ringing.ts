@@ -75,6 +75,8 @@ export function ringingAfter(
     const residual = windowSum / width - finalV;
     if (i > first && previous < 0 !== residual < 0) {
       lastZeroS = crossingTimeS(timesS.get(i - 1), previous, timesS.get(i), residual, 0);
+      // every later half-period would end at this zero or a later one, too long for the run: it is over
+      if (intervals > 0 && lastZeroS - lastS > ((lastS - firstS) / intervals) * HALF_PERIOD_TOLERANCE) break;
     }
     previous = residual;
     const now = residual > bandV ? 1 : residual < -bandV ? -1 : 0;

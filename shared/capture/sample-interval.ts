@@ -13,9 +13,10 @@ const SELECT_BINS = 4096;
  * count, the mean of the two middle spacings.
  *
  * @param timesS strictly increasing sample instants, s
+ * @param inMemorySpacings most spacings copied to select in memory (tests make it small to reach the histogram passes)
  * @returns the median interval, s, or null for fewer than 2 samples
  */
-export function medianSampleIntervalS(times: Float64Array | Series): number | null {
+export function medianSampleIntervalS(times: Float64Array | Series, inMemorySpacings = IN_MEMORY_SPACINGS): number | null {
   const timesS = asSeries(times);
   const count = timesS.length - 1;
   if (count < 1) return null;
@@ -41,7 +42,7 @@ export function medianSampleIntervalS(times: Float64Array | Series): number | nu
     maxS = hi;
   });
   if (uniform) return first;
-  if (count <= IN_MEMORY_SPACINGS) {
+  if (count <= inMemorySpacings) {
     const spacings = new Float64Array(count);
     previous = timesS.get(0);
     timesS.scan(1, count + 1, (values, firstIndex) => {
@@ -58,24 +59,28 @@ export function medianSampleIntervalS(times: Float64Array | Series): number | nu
     for (let j = 0; j < count >> 1; j++) if (spacings[j] > lower) lower = spacings[j];
     return (lower + upper) / 2;
   }
-  const upper = selectStreaming(timesS, count >> 1, minS, maxS);
-  if (count % 2 === 1) return upper;
-  return (selectStreaming(timesS, (count >> 1) - 1, minS, maxS) + upper) / 2;
+  const even = count % 2 === 0;
+  const [lower, upper] = selectStreaming(timesS, count >> 1, even, minS, maxS, inMemorySpacings);
+  return even ? (lower + upper) / 2 : upper;
 }
 
 /**
- * The k-th smallest spacing (0-based) without holding them all: each pass bins the spacings
- * within [lowS, highS] and keeps the bin holding the k-th, until one bin is small enough to
- * copy and select in memory.
+ * The (k−1)-th (when `withLower`, else NaN) and k-th smallest spacings (0-based; k ≥ 1) without holding them all: each pass
+ * bins the spacings within [lowS, highS] and keeps the bin holding the k-th, until one bin is
+ * small enough to copy and select in memory. Both ranks come from the same passes (an even
+ * count's median needs the two): when they fall in different bins, one more pass takes the
+ * largest spacing of the lower bin and the smallest of the upper.
  */
-function selectStreaming(timesS: Series, k: number, lowS: number, highS: number): number {
+function selectStreaming(timesS: Series, k: number, withLower: boolean, lowS: number, highS: number, inMemorySpacings: number): [number, number] {
   const n = timesS.length;
   const t0 = timesS.get(0);
   for (;;) {
-    if (!(highS > lowS)) return lowS;
+    // a range narrowed to the bin of both ranks holds them both: all equal here
+    if (!(highS > lowS)) return [lowS, lowS];
     const lo = lowS;
     const hi = highS;
     const widthS = (hi - lo) / SELECT_BINS;
+    // loops written out in each pass: a callback per spacing costs more than the pass itself
     const counts = new Float64Array(SELECT_BINS);
     let below = 0;
     let previous = t0;
@@ -89,11 +94,22 @@ function selectStreaming(timesS: Series, k: number, lowS: number, highS: number)
       }
       previous = before;
     });
-    let rank = k - below;
+    // the bins of ranks k and k − 1, and k's rank within its bin
     let bin = 0;
-    while (bin < SELECT_BINS - 1 && rank >= counts[bin]) rank -= counts[bin++];
+    let rank = k - below;
+    let lowerBin = -1;
+    while (bin < SELECT_BINS - 1 && rank >= counts[bin]) {
+      if (counts[bin] > 0) lowerBin = bin;
+      rank -= counts[bin++];
+    }
+    if (rank >= 1 || !withLower) lowerBin = bin;
+    // (the first pass has nothing below it, and a narrowed range holds k − 1 with k)
+    if (lowerBin !== bin) {
+      // k is the first of its bin: k − 1 is the largest spacing of the bin before
+      return [extremeInBin(timesS, lo, hi, widthS, lowerBin, 1), extremeInBin(timesS, lo, hi, widthS, bin, -1)];
+    }
     const inBin = counts[bin];
-    const keep = inBin <= IN_MEMORY_SPACINGS ? new Float64Array(inBin) : null;
+    const keep = inBin <= inMemorySpacings ? new Float64Array(inBin) : null;
     let kept = 0;
     let nextLow = Number.POSITIVE_INFINITY;
     let nextHigh = Number.NEGATIVE_INFINITY;
@@ -114,12 +130,41 @@ function selectStreaming(timesS: Series, k: number, lowS: number, highS: number)
       }
       previous = before;
     });
-    if (keep !== null) return selectInPlace(keep.subarray(0, kept), Math.min(rank, kept - 1));
+    if (keep !== null) {
+      // k − 1 shares the bin, so rank ≥ 1: it is the largest of those selected before k
+      const values = keep.subarray(0, kept);
+      const at = Math.min(rank, kept - 1);
+      const upper = selectInPlace(values, at);
+      if (!withLower) return [Number.NaN, upper];
+      let lower = Number.NEGATIVE_INFINITY;
+      for (let j = 0; j < at; j++) if (values[j] > lower) lower = values[j];
+      return [lower, upper];
+    }
     // k stays the rank among all spacings: the next pass counts those below the new range again
     lowS = nextLow;
     highS = nextHigh;
   }
 }
+
+/** The largest (`pick` 1) or smallest (−1) spacing in one bin of [lo, hi]. */
+function extremeInBin(timesS: Series, lo: number, hi: number, widthS: number, bin: number, pick: 1 | -1): number {
+  let best = pick === 1 ? Number.NEGATIVE_INFINITY : Number.POSITIVE_INFINITY;
+  let previous = timesS.get(0);
+  timesS.scan(1, timesS.length, (values) => {
+    let before = previous;
+    let extreme = best;
+    for (let j = 0; j < values.length; j++) {
+      const d = values[j] - before;
+      before = values[j];
+      if (d >= lo && d <= hi && Math.min(SELECT_BINS - 1, Math.floor((d - lo) / widthS)) === bin && (pick === 1 ? d > extreme : d < extreme)) extreme = d;
+    }
+    best = extreme;
+    previous = before;
+  });
+  return best;
+}
+
+
 
 /**
  * Hoare's selection with a median-of-three pivot: on return `values[k]` is the k-th smallest

@@ -119,4 +119,21 @@ describe('medianSampleIntervalS', () => {
       { numRuns: 300 },
     );
   });
+
+  it('should equal the median of the spacings when found by histogram passes, ties and clusters included', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 2, max: 600 }), fc.integer(), fc.constantFrom(1, 3, 8, 40), fc.boolean(), (points, seed, keep, quantised) => {
+        const random = mulberry32(seed);
+        const timesS = new Float64Array(points);
+        // clustered spacings, often equal (a quantised time base), with rare long gaps
+        for (let k = 1; k < points; k++) {
+          const jitter = quantised ? Math.round(random() * 3) / 3 : random();
+          timesS[k] = timesS[k - 1] + 1e-9 * (random() < 0.05 ? 20 + jitter : 1 + 1e-6 * jitter);
+        }
+        const spacings = Array.from({ length: points - 1 }, (_, k) => timesS[k + 1] - timesS[k]);
+        expect(medianSampleIntervalS(timesS, keep)).toBe(sortedMedian(spacings));
+      }),
+      { numRuns: 400 },
+    );
+  });
 });

@@ -149,26 +149,32 @@ let plainEnd = -1;
  */
 function plainNumber(bytes: Uint8Array, i: number, end: number, separator: number, decimalComma: boolean, scaleExp10: number): number {
   plainEnd = -1;
-  let code = i < end ? bytes[i] : -1;
-  const negative = code === 45;
-  if (negative || code === 43) code = ++i < end ? bytes[i] : -1;
+  const first = i < end ? bytes[i] : -1;
+  const negative = first === 45;
+  if (negative || first === 43) i++;
+  // digits in tight loops of their own: this is the parser's innermost work
   let mantissa = 0;
-  let digits = 0;
-  let exp10 = 0;
-  let sawDigit = false;
-  let sawMark = false;
-  for (; i < end; code = ++i < end ? bytes[i] : -1) {
-    if (code >= 48 && code <= 57) {
-      sawDigit = true;
-      if (mantissa !== 0 || code !== 48) {
-        if (++digits > 15) return Number.NaN;
-        mantissa = mantissa * 10 + (code - 48);
-      }
-      if (sawMark) exp10--;
-    } else if (!sawMark && (code === 46 || (decimalComma && code === 44))) sawMark = true;
-    else break;
+  let digit = 0;
+  const integerStart = i;
+  while (i < end && (digit = bytes[i] - 48) >= 0 && digit <= 9) {
+    mantissa = mantissa * 10 + digit;
+    i++;
   }
-  if (!sawDigit) return Number.NaN;
+  let digits = i - integerStart;
+  let exp10 = 0;
+  let code = i < end ? bytes[i] : -1;
+  if (code === 46 || (decimalComma && code === 44)) {
+    const fractionStart = ++i;
+    while (i < end && (digit = bytes[i] - 48) >= 0 && digit <= 9) {
+      mantissa = mantissa * 10 + digit;
+      i++;
+    }
+    exp10 = fractionStart - i;
+    digits += i - fractionStart;
+    code = i < end ? bytes[i] : -1;
+  }
+  // more than 15 significant digits (leading zeros add nothing to the mantissa) is readNumber's case
+  if (digits === 0 || mantissa >= 1e15) return Number.NaN;
   if (code === 101 || code === 69) {
     code = ++i < end ? bytes[i] : -1;
     const exponentNegative = code === 45;

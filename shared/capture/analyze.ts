@@ -1,6 +1,6 @@
 import { postTransitionAberrations } from './aberrations';
 import { findRails, isRail } from './clipping';
-import { referenceLevels, stateLevels, type ReferenceLevels } from './levels';
+import { rangeAndSum, referenceLevels, stateLevels, type ReferenceLevels } from './levels';
 import { noisePeakV, noiseRmsV } from './noise';
 import { settleSummary, type SegmentSettle } from './settle';
 import { classifyShape, type WaveShape } from './shape';
@@ -127,21 +127,12 @@ export function analyzeCapture(samples: CaptureSamples | SampleSeries, options: 
   const bottomRail = isRail(rails.atMin, rails.longestAtMin, rails.nearMin, points);
   const onRail = (i: number) => (topRail && volts.get(i) === rails.maxV) || (bottomRail && volts.get(i) === rails.minV);
   const noiseV = noiseRmsV(volts, topRail || bottomRail ? onRail : undefined);
-  let meanV = 0;
-  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
-  volts.scan(0, points, (values) => {
-    let sum = meanV;
-    for (let i = 0; i < values.length; i++) sum += values[i];
-    meanV = sum;
-  });
-  meanV /= points;
-  let variance = 0;
-  const centreV = meanV;
-  volts.scan(0, points, (values) => {
-    let sum = variance;
-    for (let i = 0; i < values.length; i++) sum += (values[i] - centreV) ** 2;
-    variance = sum;
-  });
+  const sums = Float64Array.of(Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
+  volts.scan(0, points, (values) => rangeAndSum(values, sums));
+  const meanV = sums[2] / points;
+  const squares = new Float64Array(1);
+  volts.scan(0, points, (values) => addSquaredDeviations(values, meanV, squares));
+  const variance = squares[0];
   const stdV = Math.sqrt(variance / points);
 
   const levels = stateLevels(volts);
@@ -359,11 +350,25 @@ function isClipped(
 function slopedShare(volts: Series, minV: number, maxV: number): number {
   const lowV = minV + 0.1 * (maxV - minV);
   const highV = maxV - 0.1 * (maxV - minV);
-  let count = 0;
-  volts.scan(0, volts.length, (values) => {
-    for (let i = 0; i < values.length; i++) if (values[i] > lowV && values[i] < highV) count++;
-  });
-  return count / volts.length;
+  const count = new Float64Array(1);
+  volts.scan(0, volts.length, (values) => countBetween(values, lowV, highV, count));
+  return count[0] / volts.length;
+}
+
+// Passes over the record, each a module-level function called per block (see `scan` in series.ts).
+
+/** sum[0] += Σ (v − centreV)² */
+function addSquaredDeviations(values: Float64Array, centreV: number, sum: Float64Array): void {
+  let total = sum[0];
+  for (let i = 0; i < values.length; i++) total += (values[i] - centreV) ** 2;
+  sum[0] = total;
+}
+
+/** count[0] += the samples strictly between lowV and highV */
+function countBetween(values: Float64Array, lowV: number, highV: number, count: Float64Array): void {
+  let inside = count[0];
+  for (let i = 0; i < values.length; i++) if (values[i] > lowV && values[i] < highV) inside++;
+  count[0] = inside;
 }
 
 /** Share of the AC power in the strongest line (±3 bins: the Hann window's main lobe). */

@@ -1,3 +1,4 @@
+import { rangeAndSum } from './levels';
 import type { Series } from './series';
 
 /** Flat runs at the extremes of a trace: where the signal sat on a rail. */
@@ -20,49 +21,34 @@ export const MIN_RAIL_SHARE = 0.005;
 
 /** Counts the samples sitting exactly on the maximum and on the minimum, in one pass. */
 export function findRails(volts: Series): Rails {
-  let maxV = Number.NEGATIVE_INFINITY;
-  let minV = Number.POSITIVE_INFINITY;
-  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
-  volts.scan(0, volts.length, (values) => {
-    let hi = maxV;
-    let lo = minV;
-    for (let i = 0; i < values.length; i++) {
-      const v = values[i];
-      if (v > hi) hi = v;
-      if (v < lo) lo = v;
-    }
-    maxV = hi;
-    minV = lo;
-  });
-  let atMax = 0;
-  let atMin = 0;
-  let runMax = 0;
-  let runMin = 0;
-  let longestAtMax = 0;
-  let longestAtMin = 0;
+  const range = Float64Array.of(Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
+  volts.scan(0, volts.length, (values) => rangeAndSum(values, range));
+  const [minV, maxV] = range;
+  // [at max, run at max, longest at max, at min, run at min, longest at min, near max, near min]
+  const counts = new Float64Array(8);
   const nearV = 0.02 * (maxV - minV);
-  let nearMax = 0;
-  let nearMin = 0;
-  const top = maxV;
-  const bottom = minV;
-  volts.scan(0, volts.length, (values) => {
-    const maxV = top;
-    const minV = bottom;
-    for (let i = 0; i < values.length; i++) {
-      const v = values[i];
-      if (v < maxV && v > maxV - nearV) nearMax++;
-      if (v > minV && v < minV + nearV) nearMin++;
-      if (v === maxV) {
-        atMax++;
-        if (++runMax > longestAtMax) longestAtMax = runMax;
-      } else runMax = 0;
-      if (v === minV) {
-        atMin++;
-        if (++runMin > longestAtMin) longestAtMin = runMin;
-      } else runMin = 0;
-    }
-  });
+  volts.scan(0, volts.length, (values) => countAtExtremes(values, minV, maxV, nearV, counts));
+  const [atMax, , longestAtMax, atMin, , longestAtMin, nearMax, nearMin] = counts;
   return { atMax, longestAtMax, atMin, longestAtMin, maxV, minV, nearMax, nearMin };
+}
+
+/** Counts the samples on and near each extreme and the longest runs on them (see `findRails`); a module-level pass, as `scan` asks. */
+function countAtExtremes(values: Float64Array, minV: number, maxV: number, nearV: number, counts: Float64Array): void {
+  let [atMax, runMax, longestAtMax, atMin, runMin, longestAtMin, nearMax, nearMin] = counts;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (v < maxV && v > maxV - nearV) nearMax++;
+    if (v > minV && v < minV + nearV) nearMin++;
+    if (v === maxV) {
+      atMax++;
+      if (++runMax > longestAtMax) longestAtMax = runMax;
+    } else runMax = 0;
+    if (v === minV) {
+      atMin++;
+      if (++runMin > longestAtMin) longestAtMin = runMin;
+    } else runMin = 0;
+  }
+  counts.set([atMax, runMax, longestAtMax, atMin, runMin, longestAtMin, nearMax, nearMin]);
 }
 
 /**

@@ -60,24 +60,9 @@ function binCountFor(sampleCount: number): number {
 export function stateLevels(samples: Float64Array | Series): StateLevels {
   const volts = asSeries(samples);
   const n = volts.length;
-  let minV = Number.POSITIVE_INFINITY;
-  let maxV = Number.NEGATIVE_INFINITY;
-  let sumV = 0;
-  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
-  volts.scan(0, n, (values) => {
-    let lo = minV;
-    let hi = maxV;
-    let sum = sumV;
-    for (let i = 0; i < values.length; i++) {
-      const v = values[i];
-      if (v < lo) lo = v;
-      if (v > hi) hi = v;
-      sum += v;
-    }
-    minV = lo;
-    maxV = hi;
-    sumV = sum;
-  });
+  const range = Float64Array.of(Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
+  volts.scan(0, n, (values) => rangeAndSum(values, range));
+  const [minV, maxV, sumV] = range;
   const meanV = n > 0 ? sumV / n : Number.NaN;
   const rangeV = maxV - minV;
   const flat: StateLevels = { baseV: meanV, topV: meanV, twoStates: false, noiseV: 0, minV, maxV };
@@ -89,15 +74,7 @@ export function stateLevels(samples: Float64Array | Series): StateLevels {
   const binWidthV = rangeV / bins;
   const counts = new Uint32Array(bins);
   const sums = new Float64Array(bins);
-  volts.scan(0, n, (values) => {
-    for (let i = 0; i < values.length; i++) {
-      const v = values[i];
-      let bin = Math.floor((v - minV) / binWidthV);
-      if (bin >= bins) bin = bins - 1;
-      counts[bin]++;
-      sums[bin] += v;
-    }
-  });
+  volts.scan(0, n, (values) => binSamples(values, minV, binWidthV, counts, sums));
   const half = bins / 2;
   const lowerCoarse = halfLevel(counts, sums, 0, half, binWidthV, 0, minV);
   const upperCoarse = halfLevel(counts, sums, half, bins, binWidthV, bins - 1, maxV);
@@ -182,19 +159,8 @@ function refine(volts: Series, lower: HalfLevel, upper: HalfLevel, coarseBinWidt
   const lowerFromV = lower.levelV - lowerHalfV;
   const upperFromV = upper.levelV - upperHalfV;
   volts.scan(0, volts.length, (values) => {
-    for (let i = 0; i < values.length; i++) {
-      const v = values[i];
-      const lowerBin = Math.floor((v - lowerFromV) / lowerFineV);
-      if (lowerBin >= 0 && lowerBin < FINE_BINS) {
-        lowerCounts[lowerBin]++;
-        lowerSums[lowerBin] += v;
-      }
-      const upperBin = Math.floor((v - upperFromV) / upperFineV);
-      if (upperBin >= 0 && upperBin < FINE_BINS) {
-        upperCounts[upperBin]++;
-        upperSums[upperBin] += v;
-      }
-    }
+    binWindow(values, lowerFromV, lowerFineV, lowerCounts, lowerSums);
+    binWindow(values, upperFromV, upperFineV, upperCounts, upperSums);
   });
   const fine = (level: HalfLevel, counts: Uint32Array, sums: Float64Array, binWidthV: number): HalfLevel => {
     if (level.widthV === 0) return level;
@@ -203,6 +169,49 @@ function refine(volts: Series, lower: HalfLevel, upper: HalfLevel, coarseBinWidt
     return peakAround(counts, sums, 0, FINE_BINS, mode, binWidthV);
   };
   return [fine(lower, lowerCounts, lowerSums, lowerFineV), fine(upper, upperCounts, upperSums, upperFineV)];
+}
+
+// Passes over the record, each a module-level function called per block (see `scan` in series.ts).
+
+/** range: [least, greatest, sum] of the samples so far */
+export function rangeAndSum(values: Float64Array, range: Float64Array): void {
+  let lo = range[0];
+  let hi = range[1];
+  let sum = range[2];
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+    sum += v;
+  }
+  range[0] = lo;
+  range[1] = hi;
+  range[2] = sum;
+}
+
+/** Counts and sums the samples by bin of `binWidthV` from `fromV`, the top bin taking the maximum. */
+function binSamples(values: Float64Array, fromV: number, binWidthV: number, counts: Uint32Array, sums: Float64Array): void {
+  const bins = counts.length;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    let bin = Math.floor((v - fromV) / binWidthV);
+    if (bin >= bins) bin = bins - 1;
+    counts[bin]++;
+    sums[bin] += v;
+  }
+}
+
+/** Counts and sums the samples within the bins of `binWidthV` from `fromV`; the rest are left out. */
+function binWindow(values: Float64Array, fromV: number, binWidthV: number, counts: Uint32Array, sums: Float64Array): void {
+  const bins = counts.length;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    const bin = Math.floor((v - fromV) / binWidthV);
+    if (bin >= 0 && bin < bins) {
+      counts[bin]++;
+      sums[bin] += v;
+    }
+  }
 }
 
 /**

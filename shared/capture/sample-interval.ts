@@ -21,38 +21,16 @@ export function medianSampleIntervalS(times: Float64Array | Series, inMemorySpac
   const count = timesS.length - 1;
   if (count < 1) return null;
   const first = timesS.get(1) - timesS.get(0);
-  let uniform = true;
-  let minS = Number.POSITIVE_INFINITY;
-  let maxS = Number.NEGATIVE_INFINITY;
-  let previous = timesS.get(0);
-  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
-  timesS.scan(1, count + 1, (values) => {
-    let before = previous;
-    let lo = minS;
-    let hi = maxS;
-    for (let j = 0; j < values.length; j++) {
-      const d = values[j] - before;
-      before = values[j];
-      if (d !== first) uniform = false;
-      if (d < lo) lo = d;
-      if (d > hi) hi = d;
-    }
-    previous = before;
-    minS = lo;
-    maxS = hi;
-  });
-  if (uniform) return first;
+  // [previous time, least spacing, greatest spacing, 1 once a spacing differs from the first]
+  const state = Float64Array.of(timesS.get(0), Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
+  timesS.scan(1, count + 1, (values) => spacingRange(values, first, state));
+  if (state[3] === 0) return first;
+  const minS = state[1];
+  const maxS = state[2];
   if (count <= inMemorySpacings) {
     const spacings = new Float64Array(count);
-    previous = timesS.get(0);
-    timesS.scan(1, count + 1, (values, firstIndex) => {
-      let before = previous;
-      for (let j = 0; j < values.length; j++) {
-        spacings[firstIndex - 1 + j] = values[j] - before;
-        before = values[j];
-      }
-      previous = before;
-    });
+    state[0] = timesS.get(0);
+    timesS.scan(1, count + 1, (values, at) => copySpacings(values, spacings, at - 1, state));
     const upper = selectInPlace(spacings, count >> 1);
     if (count % 2 === 1) return upper;
     let lower = Number.NEGATIVE_INFINITY;
@@ -64,36 +42,110 @@ export function medianSampleIntervalS(times: Float64Array | Series, inMemorySpac
   return even ? (lower + upper) / 2 : upper;
 }
 
+/*
+ * Each pass's loop is a module-level function called per block, its state in a Float64Array
+ * (see `scan` in series.ts for why).
+ */
+
+/** state: [previous time, least spacing, greatest spacing, 1 once a spacing differs from `first`] */
+function spacingRange(values: Float64Array, first: number, state: Float64Array): void {
+  let before = state[0];
+  let lo = state[1];
+  let hi = state[2];
+  let differs = state[3];
+  for (let j = 0; j < values.length; j++) {
+    const d = values[j] - before;
+    before = values[j];
+    if (d !== first) differs = 1;
+    if (d < lo) lo = d;
+    if (d > hi) hi = d;
+  }
+  state[0] = before;
+  state[1] = lo;
+  state[2] = hi;
+  state[3] = differs;
+}
+
+/** state: [previous time] */
+function copySpacings(values: Float64Array, out: Float64Array, at: number, state: Float64Array): void {
+  let before = state[0];
+  for (let j = 0; j < values.length; j++) {
+    out[at + j] = values[j] - before;
+    before = values[j];
+  }
+  state[0] = before;
+}
+
+/** Bin of a spacing d ≥ lo in the histogram of [lo, lo + SELECT_BINS·widthS]. */
+const binOf = (d: number, lo: number, widthS: number) => Math.min(SELECT_BINS - 1, Math.floor((d - lo) / widthS));
+
+/** state: [previous time, spacings below lo]; counts the spacings within [lo, hi] by bin */
+function countSpacings(values: Float64Array, lo: number, hi: number, widthS: number, counts: Float64Array, state: Float64Array): void {
+  let before = state[0];
+  let below = state[1];
+  for (let j = 0; j < values.length; j++) {
+    const d = values[j] - before;
+    before = values[j];
+    if (d < lo) below++;
+    else if (d <= hi) counts[binOf(d, lo, widthS)]++;
+  }
+  state[0] = before;
+  state[1] = below;
+}
+
+/** state: [previous time, spacings kept]: copies the spacings in one bin into `keep` while it has room */
+function keepBin(values: Float64Array, lo: number, hi: number, widthS: number, bin: number, keep: Float64Array, state: Float64Array): void {
+  let before = state[0];
+  let kept = state[1] | 0;
+  for (let j = 0; j < values.length; j++) {
+    const d = values[j] - before;
+    before = values[j];
+    if (d >= lo && d <= hi && binOf(d, lo, widthS) === bin && kept < keep.length) keep[kept++] = d;
+  }
+  state[0] = before;
+  state[1] = kept;
+}
+
+/** state: [previous time, least, greatest] of the spacings in one bin (a kernel apart from `keepBin`: each keeps one shape) */
+function rangeOfBin(values: Float64Array, lo: number, hi: number, widthS: number, bin: number, state: Float64Array): void {
+  let before = state[0];
+  let least = state[1];
+  let greatest = state[2];
+  for (let j = 0; j < values.length; j++) {
+    const d = values[j] - before;
+    before = values[j];
+    if (d >= lo && d <= hi && binOf(d, lo, widthS) === bin) {
+      if (d < least) least = d;
+      if (d > greatest) greatest = d;
+    }
+  }
+  state[0] = before;
+  state[1] = least;
+  state[2] = greatest;
+}
+
 /**
- * The (k−1)-th (when `withLower`, else NaN) and k-th smallest spacings (0-based; k ≥ 1) without holding them all: each pass
- * bins the spacings within [lowS, highS] and keeps the bin holding the k-th, until one bin is
- * small enough to copy and select in memory. Both ranks come from the same passes (an even
- * count's median needs the two): when they fall in different bins, one more pass takes the
- * largest spacing of the lower bin and the smallest of the upper.
+ * The (k−1)-th (when `withLower`, else NaN) and k-th smallest spacings (0-based; k ≥ 1) without
+ * holding them all: each pass bins the spacings within [lowS, highS] and keeps the bin holding
+ * the k-th, until one bin is small enough to copy and select in memory. Both ranks come from the
+ * same passes (an even count's median needs the two): when they fall in different bins, one
+ * more pass each takes the range of the lower bin and of the upper.
  */
 function selectStreaming(timesS: Series, k: number, withLower: boolean, lowS: number, highS: number, inMemorySpacings: number): [number, number] {
   const n = timesS.length;
   const t0 = timesS.get(0);
+  const state = new Float64Array(4);
   for (;;) {
     // a range narrowed to the bin of both ranks holds them both: all equal here
     if (!(highS > lowS)) return [lowS, lowS];
     const lo = lowS;
     const hi = highS;
     const widthS = (hi - lo) / SELECT_BINS;
-    // loops written out in each pass: a callback per spacing costs more than the pass itself
     const counts = new Float64Array(SELECT_BINS);
-    let below = 0;
-    let previous = t0;
-    timesS.scan(1, n, (values) => {
-      let before = previous;
-      for (let j = 0; j < values.length; j++) {
-        const d = values[j] - before;
-        before = values[j];
-        if (d < lo) below++;
-        else if (d <= hi) counts[Math.min(SELECT_BINS - 1, Math.floor((d - lo) / widthS))]++;
-      }
-      previous = before;
-    });
+    state[0] = t0;
+    state[1] = 0;
+    timesS.scan(1, n, (values) => countSpacings(values, lo, hi, widthS, counts, state));
+    const below = state[1];
     // the bins of ranks k and k − 1, and k's rank within its bin
     let bin = 0;
     let rank = k - below;
@@ -106,34 +158,15 @@ function selectStreaming(timesS: Series, k: number, withLower: boolean, lowS: nu
     // (the first pass has nothing below it, and a narrowed range holds k − 1 with k)
     if (lowerBin !== bin) {
       // k is the first of its bin: k − 1 is the largest spacing of the bin before
-      return [extremeInBin(timesS, lo, hi, widthS, lowerBin, 1), extremeInBin(timesS, lo, hi, widthS, bin, -1)];
+      return [binRange(timesS, lo, hi, widthS, lowerBin)[1], binRange(timesS, lo, hi, widthS, bin)[0]];
     }
-    const inBin = counts[bin];
-    const keep = inBin <= inMemorySpacings ? new Float64Array(inBin) : null;
-    let kept = 0;
-    let nextLow = Number.POSITIVE_INFINITY;
-    let nextHigh = Number.NEGATIVE_INFINITY;
-    previous = t0;
-    timesS.scan(1, n, (values) => {
-      let before = previous;
-      for (let j = 0; j < values.length; j++) {
-        const d = values[j] - before;
-        before = values[j];
-        if (d >= lo && d <= hi && Math.min(SELECT_BINS - 1, Math.floor((d - lo) / widthS)) === bin) {
-          if (keep !== null) {
-            if (kept < keep.length) keep[kept++] = d;
-          } else {
-            if (d < nextLow) nextLow = d;
-            if (d > nextHigh) nextHigh = d;
-          }
-        }
-      }
-      previous = before;
-    });
-    if (keep !== null) {
+    if (counts[bin] <= inMemorySpacings) {
+      const keep = new Float64Array(counts[bin]);
+      state.set([t0, 0]);
+      timesS.scan(1, n, (values) => keepBin(values, lo, hi, widthS, bin, keep, state));
       // k − 1 shares the bin, so rank ≥ 1: it is the largest of those selected before k
-      const values = keep.subarray(0, kept);
-      const at = Math.min(rank, kept - 1);
+      const values = keep.subarray(0, state[1]);
+      const at = Math.min(rank, values.length - 1);
       const upper = selectInPlace(values, at);
       if (!withLower) return [Number.NaN, upper];
       let lower = Number.NEGATIVE_INFINITY;
@@ -141,30 +174,17 @@ function selectStreaming(timesS: Series, k: number, withLower: boolean, lowS: nu
       return [lower, upper];
     }
     // k stays the rank among all spacings: the next pass counts those below the new range again
-    lowS = nextLow;
-    highS = nextHigh;
+    [lowS, highS] = binRange(timesS, lo, hi, widthS, bin);
   }
 }
 
-/** The largest (`pick` 1) or smallest (−1) spacing in one bin of [lo, hi]. */
-function extremeInBin(timesS: Series, lo: number, hi: number, widthS: number, bin: number, pick: 1 | -1): number {
-  let best = pick === 1 ? Number.NEGATIVE_INFINITY : Number.POSITIVE_INFINITY;
-  let previous = timesS.get(0);
-  timesS.scan(1, timesS.length, (values) => {
-    let before = previous;
-    let extreme = best;
-    for (let j = 0; j < values.length; j++) {
-      const d = values[j] - before;
-      before = values[j];
-      if (d >= lo && d <= hi && Math.min(SELECT_BINS - 1, Math.floor((d - lo) / widthS)) === bin && (pick === 1 ? d > extreme : d < extreme)) extreme = d;
-    }
-    best = extreme;
-    previous = before;
-  });
-  return best;
+/** The least and greatest spacing in one bin of [lo, hi]. */
+function binRange(timesS: Series, lo: number, hi: number, widthS: number, bin: number): [number, number] {
+  const n = timesS.length;
+  const state = Float64Array.of(timesS.get(0), Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY);
+  timesS.scan(1, n, (values) => rangeOfBin(values, lo, hi, widthS, bin, state));
+  return [state[1], state[2]];
 }
-
-
 
 /**
  * Hoare's selection with a median-of-three pivot: on return `values[k]` is the k-th smallest

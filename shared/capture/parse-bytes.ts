@@ -82,7 +82,7 @@ export class ByteCaptureParser extends CaptureParser {
     const row = this.row;
     const exp10s = this.exp10s;
     const decimalComma = layout.decimalComma;
-    row.fill(Number.NaN);
+    for (let c = 0; c < row.length; c++) row[c] = Number.NaN; // a loop: fill() is a call per line
     let timeValue = Number.NaN;
     let control = false;
     for (let column = 0, i = start; ; column++) {

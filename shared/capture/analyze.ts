@@ -1,7 +1,8 @@
 import { postTransitionAberrations } from './aberrations';
 import { findRails, isRail } from './clipping';
-import { rangeAndSum, referenceLevels, stateLevels, type ReferenceLevels } from './levels';
+import { referenceLevels, stateLevels, type ReferenceLevels } from './levels';
 import { noisePeakV, noiseRmsV } from './noise';
+import { addSquaredDeviations, countBetween, rangeAndSum } from './passes';
 import { settleSummary, type SegmentSettle } from './settle';
 import { classifyShape, type WaveShape } from './shape';
 import { amplitudeSpectrum, humFrequencyHz as findHum, type CaptureSpectrum } from './spectrum';
@@ -353,22 +354,6 @@ function slopedShare(volts: Series, minV: number, maxV: number): number {
   const count = new Float64Array(1);
   volts.scan(0, volts.length, (values) => countBetween(values, lowV, highV, count));
   return count[0] / volts.length;
-}
-
-// Passes over the record, each a module-level function called per block (see `scan` in series.ts).
-
-/** sum[0] += Σ (v − centreV)² */
-function addSquaredDeviations(values: Float64Array, centreV: number, sum: Float64Array): void {
-  let total = sum[0];
-  for (let i = 0; i < values.length; i++) total += (values[i] - centreV) ** 2;
-  sum[0] = total;
-}
-
-/** count[0] += the samples strictly between lowV and highV */
-function countBetween(values: Float64Array, lowV: number, highV: number, count: Float64Array): void {
-  let inside = count[0];
-  for (let i = 0; i < values.length; i++) if (values[i] > lowV && values[i] < highV) inside++;
-  count[0] = inside;
 }
 
 /** Share of the AC power in the strongest line (±3 bins: the Hann window's main lobe). */

@@ -1,4 +1,4 @@
-import { rangeAndSum } from './levels';
+import { rangeAndSum } from './passes';
 import type { Series } from './series';
 
 /** Flat runs at the extremes of a trace: where the signal sat on a rail. */

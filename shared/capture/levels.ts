@@ -1,3 +1,4 @@
+import { rangeAndSum } from './passes';
 import { asSeries, type Series } from './series';
 
 /** The two state levels of a two-level waveform and what the histogram says about them. */
@@ -172,22 +173,6 @@ function refine(volts: Series, lower: HalfLevel, upper: HalfLevel, coarseBinWidt
 }
 
 // Passes over the record, each a module-level function called per block (see `scan` in series.ts).
-
-/** range: [least, greatest, sum] of the samples so far */
-export function rangeAndSum(values: Float64Array, range: Float64Array): void {
-  let lo = range[0];
-  let hi = range[1];
-  let sum = range[2];
-  for (let i = 0; i < values.length; i++) {
-    const v = values[i];
-    if (v < lo) lo = v;
-    if (v > hi) hi = v;
-    sum += v;
-  }
-  range[0] = lo;
-  range[1] = hi;
-  range[2] = sum;
-}
 
 /** Counts and sums the samples by bin of `binWidthV` from `fromV`, the top bin taking the maximum. */
 function binSamples(values: Float64Array, fromV: number, binWidthV: number, counts: Uint32Array, sums: Float64Array): void {

@@ -1,3 +1,4 @@
+import { countBetween } from './passes';
 import type { StateLevels } from './levels';
 import type { Series } from './series';
 import type { Transition } from './transitions';
@@ -68,10 +69,9 @@ function isTwoLevel(volts: Series, levels: StateLevels, share: number): boolean 
   const bandV = 0.1 * (levels.maxV - levels.minV);
   const lowV = (levels.twoStates ? levels.baseV : levels.minV) + bandV;
   const highV = (levels.twoStates ? levels.topV : levels.maxV) - bandV;
-  let near = 0;
-  volts.scan(0, volts.length, (values) => {
-    for (let i = 0; i < values.length; i++) if (values[i] <= lowV || values[i] >= highV) near++;
-  });
+  const between = new Float64Array(1);
+  volts.scan(0, volts.length, (values) => countBetween(values, lowV, highV, between));
+  const near = volts.length - between[0];
   return near >= share * volts.length;
 }
 

@@ -42,31 +42,12 @@ export function amplitudeSpectrum(volts: Series, sampleIntervalS: number): { spe
   const length = Math.floor(n / m);
   const size = nextPowerOfTwo(length);
   const input = new Float64Array(size);
-  let mean = 0;
-  let k = 0;
-  let sum = 0;
-  let inGroup = 0;
   // groups of m consecutive samples, summed in order across the blocks the series hands out
-  // captured doubles are copied to locals for each block: a mutated closure variable is boxed on every store
-  volts.scan(0, length * m, (values) => {
-    let groupSum = sum;
-    let total = mean;
-    for (let j = 0; j < values.length; j++) {
-      groupSum += values[j];
-      if (++inGroup === m) {
-        input[k] = groupSum / m;
-        total += input[k];
-        k++;
-        groupSum = 0;
-        inGroup = 0;
-      }
-    }
-    sum = groupSum;
-    mean = total;
-  });
-  mean /= length;
+  const groups = new Float64Array(4);
+  volts.scan(0, length * m, (values) => groupMeans(values, m, input, groups));
+  const mean = groups[3] / length;
   let windowSum = 0;
-  for (k = 0; k < length; k++) {
+  for (let k = 0; k < length; k++) {
     const w = 0.5 * (1 - Math.cos((2 * Math.PI * k) / (length - 1)));
     input[k] = (input[k] - mean) * w;
     windowSum += w;
@@ -76,7 +57,7 @@ export function amplitudeSpectrum(volts: Series, sampleIntervalS: number): { spe
   fft.realTransform(out, input);
   const bins = size / 2;
   const amplitudesV = new Float64Array(bins + 1);
-  for (k = 0; k <= bins; k++) {
+  for (let k = 0; k <= bins; k++) {
     const re = out[2 * k];
     const im = out[2 * k + 1];
     amplitudesV[k] = ((k === 0 || k === bins ? 1 : 2) * Math.sqrt(re * re + im * im)) / windowSum;
@@ -186,4 +167,29 @@ function medianAmplitude(amplitudesV: Float64Array, from: number, to: number, sk
   if (values.length < 8) return null;
   values.sort((a, b) => a - b);
   return values[values.length >> 1];
+}
+
+/**
+ * The means of consecutive groups of m samples into `input`, one block at a time (a module-level
+ * pass, as `scan` asks). state: [sum of the group so far, its samples, next index in `input`, sum of the means]
+ */
+function groupMeans(values: Float64Array, m: number, input: Float64Array, state: Float64Array): void {
+  let groupSum = state[0];
+  let inGroup = state[1];
+  let k = state[2] | 0;
+  let total = state[3];
+  for (let j = 0; j < values.length; j++) {
+    groupSum += values[j];
+    if (++inGroup === m) {
+      input[k] = groupSum / m;
+      total += input[k];
+      k++;
+      groupSum = 0;
+      inGroup = 0;
+    }
+  }
+  state[0] = groupSum;
+  state[1] = inGroup;
+  state[2] = k;
+  state[3] = total;
 }

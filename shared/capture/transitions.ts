@@ -55,28 +55,44 @@ export function findTransitions(
 ): Transition[] {
   const timesS = asSeries(times);
   const volts = asSeries(samples);
-  const { lowV, highV } = levels;
   const transitions: Transition[] = [];
-  let state = 0;
-  let lastLow = -1;
-  let lastHigh = -1;
-  const n = volts.length;
-  volts.scan(0, n, (values, firstIndex) => {
-    for (let j = 0; j < values.length; j++) {
-      const v = values[j];
-      const i = firstIndex + j;
-      if (v <= lowV) {
-        if (state === 1) transitions.push(fall(timesS, volts, lastHigh, i, levels, noiseV));
-        state = -1;
-        lastLow = i;
-      } else if (v >= highV) {
-        if (state === -1) transitions.push(rise(timesS, volts, lastLow, i, levels, noiseV));
-        state = 1;
-        lastHigh = i;
-      }
-    }
-  });
+  // [state: −1 low, 1 high, 0 not yet either; last sample at or below lowV; last at or above highV]
+  const walk = Float64Array.of(0, -1, -1);
+  volts.scan(0, volts.length, (values, firstIndex) => walkStates(values, firstIndex, timesS, volts, levels, noiseV, walk, transitions));
   return transitions;
+}
+
+/** One block of `findTransitions`' walk between the states (a module-level pass, as `scan` asks). */
+function walkStates(
+  values: Float64Array,
+  firstIndex: number,
+  timesS: Series,
+  volts: Series,
+  levels: ReferenceLevels,
+  noiseV: number,
+  walk: Float64Array,
+  transitions: Transition[],
+): void {
+  const { lowV, highV } = levels;
+  let state = walk[0];
+  let lastLow = walk[1];
+  let lastHigh = walk[2];
+  for (let j = 0; j < values.length; j++) {
+    const v = values[j];
+    const i = firstIndex + j;
+    if (v <= lowV) {
+      if (state === 1) transitions.push(fall(timesS, volts, lastHigh, i, levels, noiseV));
+      state = -1;
+      lastLow = i;
+    } else if (v >= highV) {
+      if (state === -1) transitions.push(rise(timesS, volts, lastLow, i, levels, noiseV));
+      state = 1;
+      lastHigh = i;
+    }
+  }
+  walk[0] = state;
+  walk[1] = lastLow;
+  walk[2] = lastHigh;
 }
 
 // A noisy edge is many samples long; its crossings come from a line fitted to this share of

@@ -1,7 +1,7 @@
 import type { Db } from '../database';
 
 export const getSession = (db: Db, sid: string, nowMs: number) =>
-  db.selectFrom('sessions').select('data').where('sid', '=', sid).where('expires_at', '>', nowMs).executeTakeFirst();
+  db.selectFrom('sessions').select(['data', 'expires_at']).where('sid', '=', sid).where('expires_at', '>', nowMs).executeTakeFirst();
 
 export async function upsertSession(db: Db, sid: string, data: string, userId: number | null, expiresAtMs: number) {
   await db
@@ -14,8 +14,10 @@ export async function upsertSession(db: Db, sid: string, data: string, userId: n
 /** Extends a session's expiry, at most once a minute: a row is not rewritten for every request. */
 export const TOUCH_EVERY_MS = 60_000;
 
-export async function touchSession(db: Db, sid: string, expiresAtMs: number) {
-  await db.updateTable('sessions').set({ expires_at: expiresAtMs }).where('sid', '=', sid).where('expires_at', '<=', expiresAtMs - TOUCH_EVERY_MS).execute();
+/** @returns whether the row was extended (false: it was extended less than a minute ago, or is gone) */
+export async function touchSession(db: Db, sid: string, expiresAtMs: number): Promise<boolean> {
+  const result = await db.updateTable('sessions').set({ expires_at: expiresAtMs }).where('sid', '=', sid).where('expires_at', '<=', expiresAtMs - TOUCH_EVERY_MS).executeTakeFirst();
+  return Number(result.numUpdatedRows) > 0;
 }
 
 export async function deleteSession(db: Db, sid: string) {

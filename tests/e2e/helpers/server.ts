@@ -24,7 +24,7 @@ export interface RunningServer {
   stop(): Promise<void>;
 }
 
-/** Starts the real server (tsx server/index.ts) on a free port with a temporary DATA_DIR. */
+/** Starts the real server (tsx server/index.ts) on a free port with a temporary DATA_DIR; resolves once it is ready. */
 export async function startRealServer(env: Record<string, string> = {}): Promise<RunningServer> {
   const port = await freePort();
   const dataDir = mkdtempSync(path.join(tmpdir(), 'falsetrace-e2e-'));
@@ -37,15 +37,21 @@ export async function startRealServer(env: Record<string, string> = {}): Promise
   child.stdout!.on('data', (d) => (output += d));
   child.stderr!.on('data', (d) => (output += d));
   const baseUrl = `http://127.0.0.1:${port}`;
-  const deadline = Date.now() + 60_000;
+  // ready, not only listening: the search index loads in the background after start, and until
+  // it has, a search waits for it or answers 503; tests begin where a load balancer sends traffic.
+  // Under the 120 s hook limit, so a server that never gets there is reported with its log.
+  const deadline = Date.now() + 90_000;
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited early: ${output}`);
     try {
-      if ((await fetch(`${baseUrl}/api/health`)).ok) break;
+      if ((await fetch(`${baseUrl}/api/ready`)).ok) break;
     } catch {
       /* not listening yet */
     }
-    if (Date.now() > deadline) throw new Error(`server not healthy in 60 s: ${output}`);
+    if (Date.now() > deadline) {
+      child.kill('SIGKILL');
+      throw new Error(`server not ready in 90 s: ${output}`);
+    }
     await new Promise((r) => setTimeout(r, 200));
   }
   return {

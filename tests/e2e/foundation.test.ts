@@ -31,8 +31,8 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
       const context = await app.browser.newContext({ viewport: { width: 1280, height: 800 } });
       const page = await context.newPage();
       await signIn(page, app.server.baseUrl, `${role}@falsetrace.test`);
-      const labels = await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents();
-      expect(labels).toEqual(NAV[role]);
+      // the Outbox link waits for /api/auth/me, asked again after sign-in: the nav settles a moment after the user menu
+      await expect.poll(() => page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents()).toEqual(NAV[role]);
       await page.getByRole('heading', { name: 'What is the trace doing?' }).waitFor();
       await screenshot(page, `bench-${role}`);
       if (role === 'engineer') {

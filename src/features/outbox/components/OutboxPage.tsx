@@ -42,7 +42,7 @@ export function OutboxPage() {
     <>
       <PageHeader
         title="Outbox"
-        lead="Every mail the app sent while the built-in local mail fake is in use (SMTP_URL unset). Nothing here left this machine."
+        lead="Every mail the app sent while the built-in local mail fake is in use (SMTP_URL unset); new mail shows here within seconds. Nothing here left this machine."
         actions={
           <Button variant="secondary" onClick={() => outbox.refetch()} busy={outbox.isFetching}>
             Refresh

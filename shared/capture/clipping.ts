@@ -1,4 +1,4 @@
-import { rangeAndSum } from './passes';
+import { summaryOf } from './passes';
 import type { Series } from './series';
 
 /** Flat runs at the extremes of a trace: where the signal sat on a rail. */
@@ -21,9 +21,7 @@ export const MIN_RAIL_SHARE = 0.005;
 
 /** Counts the samples sitting exactly on the maximum and on the minimum, in one pass. */
 export function findRails(volts: Series): Rails {
-  const range = Float64Array.of(Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
-  volts.scan(0, volts.length, (values) => rangeAndSum(values, range));
-  const [minV, maxV] = range;
+  const { minV, maxV } = summaryOf(volts);
   // [at max, run at max, longest at max, at min, run at min, longest at min, near max, near min]
   const counts = new Float64Array(8);
   const nearV = 0.02 * (maxV - minV);

@@ -1,4 +1,4 @@
-import { rangeAndSum } from './passes';
+import { summaryOf } from './passes';
 import { asSeries, type Series } from './series';
 
 /** The two state levels of a two-level waveform and what the histogram says about them. */
@@ -61,9 +61,7 @@ function binCountFor(sampleCount: number): number {
 export function stateLevels(samples: Float64Array | Series): StateLevels {
   const volts = asSeries(samples);
   const n = volts.length;
-  const range = Float64Array.of(Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
-  volts.scan(0, n, (values) => rangeAndSum(values, range));
-  const [minV, maxV, sumV] = range;
+  const { minV, maxV, sumV } = summaryOf(volts);
   const meanV = n > 0 ? sumV / n : Number.NaN;
   const rangeV = maxV - minV;
   const flat: StateLevels = { baseV: meanV, topV: meanV, twoStates: false, noiseV: 0, minV, maxV };

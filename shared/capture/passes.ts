@@ -3,8 +3,33 @@
  * per block with its running state in a Float64Array (see `scan` in series.ts for why).
  */
 
+import type { Series } from './series';
+
+export interface SeriesSummary {
+  minV: number;
+  maxV: number;
+  sumV: number;
+}
+
+const summaries = new WeakMap<Series, SeriesSummary>();
+
+/**
+ * The least, greatest and sum of a series' samples, read once per series: the state levels,
+ * the rails and the mean all start from them. (A series is a view that never changes.)
+ */
+export function summaryOf(series: Series): SeriesSummary {
+  let summary = summaries.get(series);
+  if (!summary) {
+    const range = Float64Array.of(Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
+    series.scan(0, series.length, (values) => rangeAndSum(values, range));
+    summary = { minV: range[0], maxV: range[1], sumV: range[2] };
+    summaries.set(series, summary);
+  }
+  return summary;
+}
+
 /** range: [least, greatest, sum] of the samples so far */
-export function rangeAndSum(values: Float64Array, range: Float64Array): void {
+function rangeAndSum(values: Float64Array, range: Float64Array): void {
   let lo = range[0];
   let hi = range[1];
   let sum = range[2];

@@ -244,10 +244,11 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
       await page.getByRole('heading', { name: /Attenuation setting mismatch/ }).waitFor();
       await page.getByRole('heading', { name: /Ground-lead ringing/ }).waitFor();
 
-      await lesson.getByRole('button', { name: /Pin to the bench checklist/ }).click();
-      await page.locator(`li[data-case-id="${ids.spring}"]`).getByRole('button', { name: /Pin to the bench checklist/ }).click();
       const pinned = page.getByRole('list', { name: 'Pinned lessons' });
+      // one pin at a time: two pins in flight together may reach the server in either order
+      await lesson.getByRole('button', { name: /Pin to the bench checklist/ }).click();
       await pinned.getByText('Check the channel attenuation setting').waitFor();
+      await page.locator(`li[data-case-id="${ids.spring}"]`).getByRole('button', { name: /Pin to the bench checklist/ }).click();
       await pinned.getByText('Use the ground spring for edges faster than 5 ns').waitFor();
       // the spring lesson, pinned last, moves one up: it now comes before the attenuation one
       const pinnedTexts = () => pinned.getByRole('listitem').allTextContents();

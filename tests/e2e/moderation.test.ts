@@ -179,8 +179,8 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
       const back = (await eng.call('GET', `/api/cases/${ids.probe}`)).body.case;
       expect(back).toMatchObject({ status: 'needs_changes', reviewNote: 'Write the lesson: what should the next engineer check first?' });
       await eng.page.goto(`/cases/${ids.probe}`);
-      const built = await eng.page.getByText('Write the lesson: what should the next engineer check first?').first().waitFor({ timeout: 5000 }).then(() => true, () => false);
-      if (built) await screenshot(eng.page, 'case-sent-back');
+      await eng.page.getByText('Write the lesson: what should the next engineer check first?').first().waitFor();
+      await screenshot(eng.page, 'case-sent-back');
 
       const patched = await eng.call('PATCH', `/api/cases/${ids.probe}`, {
         lessonSummary: 'Check the channel attenuation setting matches the probe before reading amplitude',
@@ -367,7 +367,7 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
         .poll(async () => {
           const { messages } = (await admin.call('GET', '/api/dev/outbox')).body as { messages: { to: string; subject: string; text: string }[] };
           return wanted.filter((w) => !messages.some((m) => m.to === w.to && w.subject.test(m.subject))).map((w) => String(w.subject));
-        }, { timeout: 20_000 })
+        })
         .toEqual([]);
       const { messages } = (await admin.call('GET', '/api/dev/outbox')).body as { messages: { subject: string; text: string }[] };
       expect(messages.find((m) => /Sent back for changes/.test(m.subject))?.text).toContain('Write the lesson: what should the next engineer check first?');

@@ -337,8 +337,11 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
       const { page } = eng;
       await page.goto('/profile');
       await page.getByRole('heading', { name: 'E-mail notifications' }).waitFor();
+      const commentKind = page.getByRole('group', { name: 'New comment on a case I watch' });
+      // the kinds are drawn once the preferences have loaded; only then does an absent one mean anything
+      await commentKind.waitFor();
       expect(await page.getByText('A case is submitted for review (moderators)').count()).toBe(0);
-      await page.getByRole('group', { name: 'New comment on a case I watch' }).getByText('Daily digest').click();
+      await commentKind.getByText('Daily digest').click();
       await page.getByText('Saved: New comment on a case I watch — daily digest.').waitFor();
       await page.getByLabel('Watch a tag').selectOption('clock');
       await page.getByRole('button', { name: 'Watch', exact: true }).click();

@@ -1,5 +1,5 @@
 import { Jimp } from 'jimp';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page, Route } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, screenshot, signIn, skipBrowser } from './helpers/browser';
 import { dropFile, saved } from './helpers/case-form';
@@ -157,10 +157,14 @@ describe.skipIf(skipBrowser)('case write-ups in a real browser', () => {
     await expect(page.getByLabel('Tip resistance').inputValue()).resolves.toBe('9 MΩ');
     await expect(page.getByLabel('Ground lead length').inputValue()).resolves.toBe('150 mm');
 
-    // an edit reloaded away before the autosave fires is offered back from this browser
+    // an edit reloaded away before the autosave fires is offered back from this browser; its save
+    // is refused on the way, since a reload slower than the autosave delay would let it through
+    const refuseSave = (route: Route) => (route.request().method() === 'PATCH' ? route.abort() : route.fallback());
+    await page.route(`**/api/cases/${caseId}`, refuseSave);
     await page.getByLabel('Lesson detail').fill('The scope cannot sense the switch on this probe, so the channel kept 1x.');
     await page.reload();
     await page.getByText('Unsaved edits found in this browser').waitFor();
+    await page.unroute(`**/api/cases/${caseId}`, refuseSave);
     await page.getByRole('button', { name: 'Restore my edits' }).click();
     await expect(page.getByLabel('Lesson detail').inputValue()).resolves.toBe('The scope cannot sense the switch on this probe, so the channel kept 1x.');
     await saved(page);

@@ -82,4 +82,30 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
     await again.goto(href!);
     await again.getByText('This invitation cannot be used').waitFor();
   });
+
+  it('should show a mail that arrives while the Outbox is open, without collapsing the one being read', async () => {
+    const reader = await (await app.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+    await signIn(reader, app.server.baseUrl, 'admin@falsetrace.test');
+    await reader.getByRole('link', { name: 'Outbox' }).click();
+    const newest = reader.locator('details').first();
+    await newest.locator('summary').waitFor();
+    expect(await newest.getAttribute('open')).not.toBeNull();
+    const readingTo = await newest.locator('summary .font-mono').textContent();
+
+    // another admin, in another browser, invites someone while the reader keeps the Outbox open
+    const invitee = `outbox.watch.${Date.now()}@falsetrace.test`;
+    const other = await (await app.browser.newContext()).newPage();
+    await signIn(other, app.server.baseUrl, 'admin@falsetrace.test');
+    await other.getByRole('link', { name: 'People' }).click();
+    await other.getByLabel('E-mail to invite').fill(invitee);
+    await other.getByRole('button', { name: 'Send invitation' }).click();
+    await other.getByText(`Invitation mailed to ${invitee}`).waitFor();
+
+    const arrived = reader.getByRole('listitem').filter({ has: reader.getByText(invitee, { exact: true }) });
+    await arrived.waitFor();
+    expect(await arrived.locator('details').getAttribute('open')).not.toBeNull();
+    const reading = reader.getByRole('listitem').filter({ has: reader.getByText(readingTo!, { exact: true }) });
+    expect(await reading.locator('details').getAttribute('open')).not.toBeNull();
+    await screenshot(reader, 'outbox-new-mail');
+  });
 });

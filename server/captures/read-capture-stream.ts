@@ -25,7 +25,8 @@ class ChunkDecoder {
 
   write(bytes: Buffer): string {
     if (this.encoding === null) {
-      this.head = this.head === null ? bytes : Buffer.concat([this.head, bytes]);
+      // a copy: the caller may reuse the chunk's memory for the next one
+      this.head = this.head === null ? Buffer.from(bytes) : Buffer.concat([this.head, bytes]);
       if (this.head.length < SNIFF_BYTES) return '';
       bytes = this.head;
       this.head = null;
@@ -113,7 +114,7 @@ class ChunkDecoder {
  * the parser reads the rows straight from the bytes. Stops reading as soon as the file is
  * known to be unreadable. Never rejects: returns the decoder's or the reader's error, if any.
  */
-export async function feedCaptureStream(stream: NodeJS.ReadableStream | Readable, parser: ByteCaptureParser): Promise<{ error: CaptureParseError | null; note: string | null }> {
+export async function feedCaptureStream(stream: NodeJS.ReadableStream | Readable | AsyncIterable<Buffer>, parser: ByteCaptureParser): Promise<{ error: CaptureParseError | null; note: string | null }> {
   const decoder = new ChunkDecoder();
   const decodeLine = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length).toString(decoder.encodingName === 'latin1' ? 'latin1' : 'utf8');
   let bytesMode = false;

@@ -66,7 +66,7 @@ export class ByteCaptureParser extends CaptureParser {
       }
       if (this.error === null && start < bytes.length) {
         if (bytes.length - start > MAX_LINE_CHARS) this.keepPending('x'.repeat(MAX_LINE_CHARS + 1));
-        else this.pendingBytes = bytes.slice(start);
+        else this.pendingBytes = new Uint8Array(bytes.subarray(start)); // a copy (a Buffer's slice is a view): the caller may reuse the chunk
       }
     } catch (cause) {
       this.fail({ message: `the capture reader stopped unexpectedly (${String(cause)})` });

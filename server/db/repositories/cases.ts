@@ -131,8 +131,8 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidat
   const branches = branchesFor(actor, q);
   let total = 0;
   let totalCapped = false;
+  const keyed: { id: number; key: Key }[] = [];
   const stamp = await casebookStamp(db);
-  const listed: Branch[] = [];
   for (const branch of branches) {
     const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap, candidates ? 'index' : 'scan']), async () => {
       const counted = await db
@@ -143,22 +143,18 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidat
     });
     total += n;
     if (n >= cap) totalCapped = true;
-    if (n > 0) listed.push(branch);
-  }
-  // each branch sorts and cuts its ids on its own index; two are sent as one UNION ALL (a round
-  // trip fewer on PostgreSQL) and merged here, so each brings everything up to the page's end
-  const idsOf = (branch: Branch) =>
-    filtered(db, actor, branch, q, sortName === 'author', candidates)
+    if (n === 0) continue;
+    // ties broken by id in the same direction, so one index gives the whole order
+    const rows = await filtered(db, actor, branch, q, sortName === 'author', candidates)
       .select(['cases.id', sql<Key>`${sql.ref(column)}`.as('key')])
-      // ties broken by id in the same direction, so one index gives the whole order
       .orderBy(sql.ref(column), dir)
       .orderBy('cases.id', dir)
+      // one branch cuts its page in SQL; two are merged here, so each brings everything up to the page's end
       .limit(branches.length > 1 ? offset + q.pageSize : q.pageSize)
-      .offset(branches.length > 1 ? 0 : offset);
-  // (one branch is read directly: the order of a subquery's rows is not the outer query's)
-  const arms = listed.map((branch, i) => db.selectFrom(idsOf(branch).as(`branch${i}`)).select(['id', 'key']));
-  const keyed: { id: number; key: Key }[] =
-    listed.length === 0 ? [] : listed.length === 1 ? await idsOf(listed[0]).execute() : await arms.slice(1).reduce((union, arm) => union.unionAll(arm), arms[0]).execute();
+      .offset(branches.length > 1 ? 0 : offset)
+      .execute();
+    keyed.push(...rows);
+  }
   const sign = dir === 'desc' ? -1 : 1;
   if (branches.length > 1) keyed.sort((a, b) => sign * (compareKeys(a.key, b.key) || a.id - b.id));
   const page = branches.length > 1 ? keyed.slice(offset, offset + q.pageSize) : keyed;

@@ -263,7 +263,7 @@ export function writePlotStore(source: OpenStore, dir: string): void {
   let uniform = rows > 1 && intervalS > 0;
   if (uniform) {
     source.timesS.scan(0, rows, (values, first) => {
-      for (let k = 0; k < values.length && uniform; k++) if (Math.abs(values[k] - (startS + (first + k) * intervalS)) > 1e-6 * intervalS) uniform = false;
+      if (uniform && !onUniformGrid(values, first, startS, intervalS)) uniform = false;
     });
   }
   if (!uniform) copyColumn(source.timesS, path.join(dir, 'time.f64'), 'f64');
@@ -294,22 +294,45 @@ const I32_MAX = 2 ** 31 - 1;
  */
 function exactDecimals(series: Series): number | null {
   let decimals = 0;
-  const exact = (v: number, d: number) => {
-    const scale = 10 ** d;
-    const n = Math.round(v * scale);
-    return Math.abs(n) <= I32_MAX && n / scale === v;
-  };
-  series.scan(0, series.length, (values) => {
-    for (let k = 0; k < values.length && decimals <= MAX_DECIMALS; k++) {
-      while (decimals <= MAX_DECIMALS && !exact(values[k], decimals)) decimals++;
-    }
-  });
+  series.scan(0, series.length, (values) => (decimals = decimalsNeeded(values, decimals)));
   if (decimals > MAX_DECIMALS) return null;
   let all = true;
   series.scan(0, series.length, (values) => {
-    for (let k = 0; k < values.length && all; k++) if (!exact(values[k], decimals)) all = false;
+    if (all && !allExact(values, decimals)) all = false;
   });
   return all ? decimals : null;
+}
+
+// The loops over samples are module-level functions called per block (see `scan` in shared/capture/series.ts).
+
+/** True when every time is within a millionth of an interval of start + i·interval. */
+function onUniformGrid(values: Float64Array, first: number, startS: number, intervalS: number): boolean {
+  for (let k = 0; k < values.length; k++) if (Math.abs(values[k] - (startS + (first + k) * intervalS)) > 1e-6 * intervalS) return false;
+  return true;
+}
+
+/** v is exactly round(v·10^d)/10^d, the integer within Int32. */
+function exactAt(v: number, d: number): boolean {
+  const scale = 10 ** d;
+  const n = Math.round(v * scale);
+  return Math.abs(n) <= I32_MAX && n / scale === v;
+}
+
+/** The fewest decimals, from `decimals` up, at which every value of the block is exact (past MAX_DECIMALS: none is). */
+function decimalsNeeded(values: Float64Array, decimals: number): number {
+  for (let k = 0; k < values.length && decimals <= MAX_DECIMALS; k++) {
+    while (decimals <= MAX_DECIMALS && !exactAt(values[k], decimals)) decimals++;
+  }
+  return decimals;
+}
+
+function allExact(values: Float64Array, decimals: number): boolean {
+  for (let k = 0; k < values.length; k++) if (!exactAt(values[k], decimals)) return false;
+  return true;
+}
+
+function toScaledInts(values: Float64Array, scale: number, out: Int32Array): void {
+  for (let k = 0; k < values.length; k++) out[k] = Math.round(values[k] * scale);
 }
 
 function copyColumn(series: Series, file: string, format: 'f64' | 'f32' | 'i32', decimals = 0): void {
@@ -318,7 +341,7 @@ function copyColumn(series: Series, file: string, format: 'f64' | 'f32' | 'i32',
     const out = format === 'f64' ? new Float64Array(SCAN_ROWS) : format === 'f32' ? new Float32Array(SCAN_ROWS) : new Int32Array(SCAN_ROWS);
     const scale = 10 ** decimals;
     series.scan(0, series.length, (values) => {
-      if (format === 'i32') for (let k = 0; k < values.length; k++) out[k] = Math.round(values[k] * scale);
+      if (out instanceof Int32Array) toScaledInts(values, scale, out);
       else out.set(values);
       writeAll(fd, new Uint8Array(out.buffer, 0, values.length * out.BYTES_PER_ELEMENT));
     });

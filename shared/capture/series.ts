@@ -16,7 +16,7 @@ export interface Series {
    * A pass over a long record should loop in a module-level function that `visit` calls, its
    * state in a Float64Array, not in `visit` itself: a pass runs once per capture, so its code is
    * cold, and a loop in a closure (or in the function driving the blocks) kept dropping from
-   * optimised code back to the interpreter at each block, a heap number per sample (1.4 GB of
+   * optimised code back to the interpreter at each block, a heap number per sample (over 1 GB of
    * garbage for one 10M-sample analysis). A named function called per block is optimised once.
    */
   scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void;

@@ -15,7 +15,7 @@ import {
   insertImportedTags,
   insertImportedUser,
   linkImportedDuplicate,
-  lockCasebookImport,
+  lockWriters,
   localCasesCreatedAt,
   updateImportedWriteUp,
   usersByEmail,
@@ -345,7 +345,7 @@ async function importRecords(deps: AppDeps, actor: Actor, records: Records, dryR
     // the slow part (decoding images, writing files) happens before the transaction, for the cases a first look chose
     const stored = await storeFiles(deps, first.attachments, written);
     report = await deps.db.transaction().execute(async (trx) => {
-      await lockCasebookImport(trx);
+      await lockWriters(trx, 'casebook-import');
       const d = await decide(trx, records, new Set(first.cases.map((c) => c.record.id)));
       await insertRecords(trx, d, stored, actor, records.manifest.exportedAt, now);
       const used = new Set(d.attachments.map((a) => a.id));

@@ -5,6 +5,7 @@ import type { Lesson, LessonBook } from '../../shared/schemas/lessons';
 import type { AppDeps } from '../deps';
 import { AppError, forbidden, invalid, notFound } from '../errors';
 import { recordAudit } from '../db/repositories/audit-log';
+import { appendPinnedLesson, lockWriters } from '../db/repositories/casebook';
 import { TEXT_CANDIDATE_LIMIT } from '../db/repositories/cases';
 import { containsText } from '../db/repositories/text-match';
 import { visibleReferencesOfEach } from './case-references';
@@ -89,12 +90,7 @@ export async function pinLesson({ db }: AppDeps, actor: Actor, caseId: number, p
   if (!row) throw notFound('No such case');
   if (pinned) {
     if (row.status !== 'verified' || !row.lesson_summary) throw invalid('Only the lesson of a verified case can be pinned');
-    const { max } = await db.selectFrom('pinned_lessons').select((eb) => eb.fn.max('position').as('max')).executeTakeFirstOrThrow();
-    await db
-      .insertInto('pinned_lessons')
-      .values({ case_id: caseId, position: Number(max ?? 0) + 1, pinned_by: actor.id, created_at: new Date().toISOString() })
-      .onConflict((oc) => oc.doNothing())
-      .execute();
+    await appendPinnedLesson(db, caseId, actor.id, new Date().toISOString());
   } else {
     await db.deleteFrom('pinned_lessons').where('case_id', '=', caseId).execute();
   }
@@ -111,6 +107,7 @@ export async function reorderChecklist(deps: AppDeps, actor: Actor, caseIds: num
   const same = current.length === caseIds.length && current.every((id) => caseIds.includes(id));
   if (!same) throw new AppError('conflict', 'The checklist changed since you loaded it; reload the Lessons page and move the lesson again');
   await deps.db.transaction().execute(async (trx) => {
+    await lockWriters(trx, 'checklist');
     for (const [i, caseId] of caseIds.entries()) await trx.updateTable('pinned_lessons').set({ position: i + 1 }).where('case_id', '=', caseId).execute();
   });
 }

@@ -70,6 +70,23 @@ describe('lessons, tags, watches and the digest', () => {
     expect(ids(again)).toEqual([verifiedId, second]);
   });
 
+  it('should give lessons pinned at the same moment each a position of its own', async () => {
+    const verified: number[] = [];
+    for (const n of [1, 2, 3, 4]) {
+      const id = (await eng.post('/api/cases', { title: `Simultaneous pin ${n}`, summary: 'pinned together', statedCause: 'bandwidth', lessonSummary: `Lesson ${n}` })).body.case.id as number;
+      await eng.post(`/api/cases/${id}/submit`).expect(200);
+      await mod.post(`/api/cases/${id}/review`, { action: 'verify' }).expect(200);
+      verified.push(id);
+    }
+    // the four reads of "highest position" used to run before any of the inserts
+    await Promise.all(verified.map((id) => mod.post(`/api/lessons/${id}/pin`, { pinned: true }).expect(200)));
+    const { checklist } = (await eng.get('/api/lessons').expect(200)).body as { checklist: { caseId: number; pinPosition: number }[] };
+    const positions = checklist.map((l) => l.pinPosition);
+    expect(new Set(positions).size).toBe(positions.length);
+    expect(checklist.map((l) => l.caseId)).toEqual(expect.arrayContaining(verified));
+    for (const id of verified) await mod.post(`/api/lessons/${id}/pin`, { pinned: false }).expect(200);
+  });
+
   it('should rename, merge, add synonyms to and retire tags, for moderators only', async () => {
     await eng.post('/api/tags/x10/rename', { to: '10x' }).expect(403);
     await mod.post('/api/tags/x10/rename', { to: '10x' }).expect(200);

@@ -99,7 +99,14 @@ export const insertImportedAttachment = (db: Db, row: Insertable<AttachmentsTabl
 /** History keeps its order but takes fresh ids: audit ids are shared by every case. */
 export const insertImportedHistory = (db: Db, row: Insertable<AuditLogTable>) => db.insertInto('audit_log').values(row).execute();
 
-export async function appendPinnedLesson(db: Db, caseId: number, pinnedBy: number, createdAt: string) {
+/**
+ * Pins a lesson at the bottom of the bench checklist. "Highest position + 1" is a read and then an
+ * insert, so writers of the checklist take its lock first: two pins at the same moment on
+ * PostgreSQL got the same position before. Opens a transaction when not given one.
+ */
+export async function appendPinnedLesson(db: Db, caseId: number, pinnedBy: number, createdAt: string): Promise<void> {
+  if (!db.isTransaction) return db.transaction().execute((trx) => appendPinnedLesson(trx, caseId, pinnedBy, createdAt));
+  await lockWriters(db, 'checklist');
   const { max } = await db.selectFrom('pinned_lessons').select((eb) => eb.fn.max('position').as('max')).executeTakeFirstOrThrow();
   await db
     .insertInto('pinned_lessons')
@@ -109,11 +116,11 @@ export async function appendPinnedLesson(db: Db, caseId: number, pinnedBy: numbe
 }
 
 /**
- * Makes concurrent imports wait for each other inside their transactions, so the second sees what
- * the first wrote (its people and cases) instead of inserting them again. PostgreSQL only, through
- * a transaction-scoped advisory lock (raw SQL: Kysely has no builder for it); SQLite runs one
- * write transaction at a time already.
+ * Makes writers of one kind wait for each other inside their transactions, so the second sees
+ * what the first wrote: concurrent imports (their people and cases) and checklist writers (its
+ * positions). PostgreSQL only, through a transaction-scoped advisory lock (raw SQL: Kysely has no
+ * builder for it); SQLite runs one write transaction at a time already.
  */
-export async function lockCasebookImport(trx: Db): Promise<void> {
-  if (isPostgres(trx)) await sql`select pg_advisory_xact_lock(hashtext('falsetrace:casebook-import'))`.execute(trx);
+export async function lockWriters(trx: Db, what: 'casebook-import' | 'checklist'): Promise<void> {
+  if (isPostgres(trx)) await sql`select pg_advisory_xact_lock(hashtext(${`falsetrace:${what}`}))`.execute(trx);
 }

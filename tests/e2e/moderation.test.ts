@@ -294,6 +294,41 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
   );
 
   it(
+    'should show both pins when two pins in flight are answered in the other order',
+    async () => {
+      const { page } = mod;
+      await page.goto('/lessons');
+      const pinButtons = page.getByRole('button', { name: /Pin to the bench checklist/ });
+      await pinButtons.first().waitFor();
+      const [first, second] = await page
+        .locator('li[data-case-id]')
+        .filter({ has: page.getByRole('button', { name: /Pin to the bench checklist/ }) })
+        .evaluateAll((els) => els.slice(0, 2).map((e) => Number(e.getAttribute('data-case-id'))));
+      // the first pin's answer (the book with only that pin) is held back until the second's has arrived
+      let releaseFirst!: () => void;
+      const firstHeld = new Promise<void>((resolve) => (releaseFirst = resolve));
+      await page.route(`**/api/lessons/${first}/pin`, async (route) => {
+        const response = await route.fetch();
+        await firstHeld;
+        await route.fulfill({ response });
+      });
+      const pinned = page.getByRole('list', { name: 'Pinned lessons' });
+      const pinnedIds = () => pinned.locator('li[data-pinned-case-id]').evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-pinned-case-id'))));
+      const firstAnswered = page.waitForResponse(`**/api/lessons/${first}/pin`);
+      await page.locator(`li[data-case-id="${first}"]`).getByRole('button', { name: /Pin to the bench checklist/ }).click();
+      await page.locator(`li[data-case-id="${second}"]`).getByRole('button', { name: /Pin to the bench checklist/ }).click();
+      await expect.poll(pinnedIds).toContain(second);
+      releaseFirst();
+      await firstAnswered;
+      // the stale answer alone would leave the second pin off the checklist
+      await expect.poll(pinnedIds).toEqual(expect.arrayContaining([first, second]));
+      await page.unroute(`**/api/lessons/${first}/pin`);
+      for (const id of [first, second]) expect((await mod.call('POST', `/api/lessons/${id}/pin`, { pinned: false })).status).toBe(200);
+    },
+    STEP_MS,
+  );
+
+  it(
     'should curate tags from the desk',
     async () => {
       const { page } = mod;

@@ -24,7 +24,7 @@ export function BenchChecklistPanel({ checklist, canPin, onError }: { checklist:
       ) : (
         <ol className="flex flex-col gap-2 text-sm" aria-label="Pinned lessons">
           {checklist.map((l, i) => (
-            <li key={l.caseId} className="flex items-start gap-2">
+            <li key={l.caseId} data-pinned-case-id={l.caseId} className="flex items-start gap-2">
               <span className="w-5 shrink-0 pt-0.5 text-right font-mono text-xs text-muted">{i + 1}.</span>
               <span className="min-w-0 flex-1 break-words">{l.lessonSummary}</span>
               {canPin && (

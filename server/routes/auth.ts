@@ -38,7 +38,8 @@ export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPass
       req.login(user, (loginErr) => {
         if (loginErr) return next(loginErr);
         csrfToken(req, res);
-        res.json({ user });
+        // localMail as /me gives it, so the nav (the Outbox link) is whole at once after sign-in
+        res.json({ user, localMail: deps.mailer.usesLocalFake });
       });
     })(req, res, next);
   });
@@ -65,7 +66,7 @@ export function authRoutes(deps: AppDeps, passport: ReturnType<typeof createPass
     req.login(user, (err) => {
       if (err) return next(err);
       csrfToken(req, res);
-      res.status(201).json({ user });
+      res.status(201).json({ user, localMail: deps.mailer.usesLocalFake });
     });
   });
 

@@ -30,9 +30,14 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
     it(`should show a ${role} only the navigation the role may use`, async () => {
       const context = await app.browser.newContext({ viewport: { width: 1280, height: 800 } });
       const page = await context.newPage();
+      // /api/auth/me answers late: the sign-in answer alone must make the nav whole (the Outbox link once came a moment after the rest)
+      await page.route('**/api/auth/me', async (route) => {
+        await new Promise((resolve) => setTimeout(resolve, 1500));
+        await route.continue();
+      });
       await signIn(page, app.server.baseUrl, `${role}@falsetrace.test`);
-      // the Outbox link waits for /api/auth/me, asked again after sign-in: the nav settles a moment after the user menu
-      await expect.poll(() => page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents()).toEqual(NAV[role]);
+      expect(await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents()).toEqual(NAV[role]);
+      await page.unroute('**/api/auth/me');
       await page.getByRole('heading', { name: 'What is the trace doing?' }).waitFor();
       await screenshot(page, `bench-${role}`);
       if (role === 'engineer') {

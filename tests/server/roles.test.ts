@@ -57,7 +57,9 @@ describe('role matrix over the People and Outbox routes', () => {
     const app = createApp({ db: ctx.db, mailer: real, mail: ctx.mail, config: ctx.config });
     const agent = request.agent(app);
     const token = (await agent.get('/api/auth/csrf')).body.csrfToken;
-    await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: 'admin@falsetrace.test', password: 'demo-probe-2026' }).expect(200);
+    const login = await agent.post('/api/auth/login').set('x-csrf-token', token).send({ email: 'admin@falsetrace.test', password: 'demo-probe-2026' }).expect(200);
+    // the sign-in answer says it too, so the nav is whole at once
+    expect(login.body.localMail).toBe(false);
     await agent.get('/api/dev/outbox').expect(404);
     // the client hides the Outbox link on this answer
     expect((await agent.get('/api/auth/me')).body.localMail).toBe(false);

@@ -4,15 +4,15 @@ import { api, resetCsrfToken } from '../../../lib/api-client';
 import { setMe } from './get-me';
 
 export const acceptInvitation = (input: AcceptInvitationInput) =>
-  api<{ user: User }>('/api/auth/invitations/accept', { method: 'POST', body: input });
+  api<{ user: User; localMail?: boolean }>('/api/auth/invitations/accept', { method: 'POST', body: input });
 
 export function useAcceptInvitation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: acceptInvitation,
-    onSuccess: ({ user }) => {
+    onSuccess: ({ user, localMail }) => {
       resetCsrfToken();
-      setMe(qc, user);
+      setMe(qc, user, localMail);
     },
   });
 }

@@ -12,9 +12,9 @@ interface MeData {
 
 export const getMe = () => api<MeData>('/api/auth/me', { quiet401: true });
 
-/** Records who is signed in now; what only /api/auth/me knows is kept, or fetched when it is missing. */
-export function setMe(qc: QueryClient, user: User | null) {
-  const next = qc.setQueryData<MeData>(authKeys.me(), (old) => ({ ...old, user }));
+/** Records who is signed in now; what only /api/auth/me knows is taken from the answer, kept, or fetched when it is missing. */
+export function setMe(qc: QueryClient, user: User | null, localMail?: boolean) {
+  const next = qc.setQueryData<MeData>(authKeys.me(), (old) => ({ ...old, user, ...(localMail === undefined ? {} : { localMail }) }));
   if (next?.localMail === undefined && user) void qc.invalidateQueries({ queryKey: authKeys.me() });
 }
 

@@ -3,16 +3,16 @@ import type { LoginInput, User } from '../../../../shared/schemas/auth';
 import { api, resetCsrfToken } from '../../../lib/api-client';
 import { setMe } from './get-me';
 
-export const login = (input: LoginInput) => api<{ user: User }>('/api/auth/login', { method: 'POST', body: input, quiet401: true });
+export const login = (input: LoginInput) => api<{ user: User; localMail?: boolean }>('/api/auth/login', { method: 'POST', body: input, quiet401: true });
 
 export function useLogin() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: login,
-    onSuccess: ({ user }) => {
+    onSuccess: ({ user, localMail }) => {
       resetCsrfToken();
       qc.clear();
-      setMe(qc, user);
+      setMe(qc, user, localMail);
     },
   });
 }

@@ -3,20 +3,20 @@ import { indexTerms } from '../../shared/search/text-terms';
 import { DOC_FIELDS, FIELD_BOOST, type CaseDoc } from './case-document';
 
 /**
- * BM25F with a BM25+ floor. Each field's term frequency is multiplied by the field's boost and
- * the products summed BEFORE saturation, and one length normalisation applies to the whole
- * case, its length being the boost-weighted sum of its field lengths (the case read as if each
- * field were written out `boost` times):
- *   tf' = Σ_f boost_f · tf_f,  len = Σ_f boost_f · len_f,
- *   score = idf · (δ + tf'·(k1 + 1) / (tf' + k1·(1 − b + b·len/avglen))),
+ * BM25F with a BM25+ floor. Each field's term frequency is length-normalised against that field's
+ * average length and multiplied by the field's boost, and the products are summed BEFORE
+ * saturation:
+ *   tf~ = Σ_f boost_f · tf_f / (1 − b + b·len_f/avglen_f),
+ *   score = idf · (δ + tf~·(k1 + 1) / (tf~ + k1)),
  *   idf = ln(1 + (N − df + 0.5) / (df + 0.5)), df counting cases holding the term in any field.
  * So a word repeated across the title, summary and story saturates once, as in one document,
- * instead of each short field earning a near-full score of its own (which favoured cases whose
- * matches sat in short fields over cases that matched everywhere).
- * source: Robertson, Zaragoza & Taylor, "Simple BM25 extension to multiple weighted fields", CIKM 2004;
- * Robertson & Zaragoza, "The Probabilistic Relevance Framework: BM25 and Beyond", FnTIR 3(4), 2009, 3.4 (BM25F);
+ * instead of each short field earning a near-full score of its own; and a long story does not
+ * discount a match in a title of usual length (one normalisation over the boost-weighted whole
+ * case did: a case with a long narrative lost its title matches to shorter, looser cases).
+ * source: Robertson & Zaragoza, "The Probabilistic Relevance Framework: BM25 and Beyond", FnTIR 3(4), 2009, 3.4 (BM25F);
+ * Robertson, Zaragoza & Taylor, "Simple BM25 extension to multiple weighted fields", CIKM 2004 (combine before saturating);
  * δ: Lv & Zhai, "Lower-bounding term frequency normalization", CIKM 2011 (BM25+).
- * k1 = 1.2, b = 0.75: the values Robertson & Zaragoza give as usual (and SQLite FTS5's bm25()); δ = 0.5 is minisearch 7's default.
+ * k1 = 1.2, b = 0.75 for every field: the values Robertson & Zaragoza give as usual (and SQLite FTS5's bm25()); δ = 0.5 is minisearch 7's default.
  */
 const K = 1.2;
 const B = 0.75;
@@ -230,18 +230,18 @@ export class CompactEngine {
     const df = this.liveCases(t);
     if (df === 0) return;
     const idf = weight * Math.log(1 + (this.documentCount - df + 0.5) / (df + 0.5));
-    let total = 0;
-    for (let f = 0; f < FIELDS; f++) total += BOOSTS[f] * this.totalLength[f];
-    const avg = total / this.documentCount || 1;
+    const avgs = new Float64Array(FIELDS);
+    for (let f = 0; f < FIELDS; f++) avgs[f] = this.totalLength[f] / this.documentCount || 1;
     const lengths = this.fieldLength;
     for (let i = 0; i < n; ) {
       const slot = list[i] >>> SLOT_SHIFT;
       let tf = 0;
-      for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) tf += BOOSTS[(list[i] >>> FIELD_SHIFT) & 7] * (list[i] & TF_MASK);
+      for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) {
+        const f = (list[i] >>> FIELD_SHIFT) & 7;
+        tf += (BOOSTS[f] * (list[i] & TF_MASK)) / (1 - B + (B * lengths[f][slot]) / avgs[f]);
+      }
       if (ids[slot] < 0 || !admit(slot)) continue;
-      let length = 0;
-      for (let f = 0; f < FIELDS; f++) length += BOOSTS[f] * lengths[f][slot];
-      const score = idf * (D + (tf * (K + 1)) / (tf + K * (1 - B + (B * length) / avg)));
+      const score = idf * (D + (tf * (K + 1)) / (tf + K));
       if (acc[slot] === 0) touched.push(slot);
       acc[slot] += score;
     }

@@ -196,25 +196,25 @@ describe('case search', () => {
     }
   });
 
-  it('should score a term by the BM25F formula (weighted field counts saturated once, one length normalisation), before and after an edit', async () => {
+  it('should score a term by the BM25F formula (each field length-normalised, weighted counts saturated once), before and after an edit', async () => {
     const [rows, tags, synonyms] = await Promise.all([searchSourceRows(ctx.db), searchTags(ctx.db), synonymsByTag(ctx.db)]);
     const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], synonyms));
-    // source: Robertson, Zaragoza & Taylor, "Simple BM25 extension to multiple weighted fields", CIKM 2004
-    // (fields weighted as if repeated, one document length); Robertson & Zaragoza 2009, 3.4; k1 = 1.2,
-    // b = 0.75; the lower bound δ = 0.5 from Lv & Zhai, CIKM 2011 (BM25+). Written out plainly over the
-    // documents, apart from the packed postings the index scores from.
+    // source: Robertson & Zaragoza, "The Probabilistic Relevance Framework: BM25 and Beyond", FnTIR 3(4),
+    // 2009, 3.4 (BM25F): tf~ = Σ_f v_f · tf_f / B_f, B_f = (1 − b) + b · len_f / avglen_f, then
+    // idf · tf~ (k1 + 1) / (tf~ + k1); k1 = 1.2, b = 0.75; the lower bound δ = 0.5 from Lv & Zhai,
+    // CIKM 2011 (BM25+). Written out plainly over the documents, apart from the packed postings the
+    // index scores from.
     const bm25f = (docs: CaseDoc[], term: string) => {
-      const fieldTerms = (d: CaseDoc) => DOC_FIELDS.map((f) => indexTerms(d[f]));
-      const weighted = (counts: number[]) => DOC_FIELDS.reduce((sum, f, i) => sum + FIELD_BOOST[f] * counts[i], 0);
       const perDoc = docs.map((d) => {
-        const fields = fieldTerms(d);
+        const fields = DOC_FIELDS.map((f) => indexTerms(d[f]));
         // the index caps a term's count in one field at 31
-        return { id: d.id, tf: weighted(fields.map((ts) => Math.min(31, ts.filter((t) => t === term).length))), length: weighted(fields.map((ts) => ts.length)) };
+        return { id: d.id, counts: fields.map((ts) => Math.min(31, ts.filter((t) => t === term).length)), lengths: fields.map((ts) => ts.length) };
       });
-      const avg = perDoc.reduce((s, d) => s + d.length, 0) / docs.length;
-      const df = perDoc.filter((d) => d.tf > 0).length;
-      const idf = Math.log(1 + (docs.length - df + 0.5) / (df + 0.5));
-      return new Map(perDoc.filter((d) => d.tf > 0).map((d) => [d.id, idf * (0.5 + (d.tf * 2.2) / (d.tf + 1.2 * (0.25 + (0.75 * d.length) / avg)))]));
+      const avg = DOC_FIELDS.map((_, i) => perDoc.reduce((s, d) => s + d.lengths[i], 0) / docs.length);
+      const matching = perDoc.filter((d) => d.counts.some((c) => c > 0));
+      const idf = Math.log(1 + (docs.length - matching.length + 0.5) / (matching.length + 0.5));
+      const tf = (d: (typeof perDoc)[number]) => DOC_FIELDS.reduce((sum, f, i) => sum + (FIELD_BOOST[f] * d.counts[i]) / (0.25 + (0.75 * d.lengths[i]) / avg[i]), 0);
+      return new Map(matching.map((d) => [d.id, idf * (0.5 + (tf(d) * 2.2) / (tf(d) + 1.2))]));
     };
     const docs = new Map(entries.map((e) => [e.doc.id, e.doc]));
     const compact = new CaseIndex();

@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import { constants as zlibConstants } from 'node:zlib';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express from 'express';
@@ -75,8 +76,12 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
       strictTransportSecurity: config.production,
     }),
   );
-  // gzip every text answer (JSON, scripts, styles, CSV); zips and images go as they are
-  app.use(compression());
+  // gzip every text answer (JSON, scripts, styles, CSV); zips and images go as they are. API
+  // answers are made per request, so they take zlib's fastest level (the default level cost a
+  // case-list request more than its SQL); assets are compressed once per download at the default.
+  const fastCompression = compression({ level: zlibConstants.Z_BEST_SPEED });
+  const compressAssets = compression();
+  app.use((req, res, next) => (req.path.startsWith('/api/') ? fastCompression : compressAssets)(req, res, next));
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 

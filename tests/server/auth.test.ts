@@ -17,7 +17,8 @@ describe('sign-in', () => {
   it('should sign in a demo account and return the contract shape', async () => {
     const c = await client(ctx);
     const res = await c.login(demoEmail('engineer')).expect(200);
-    expect(res.body).toEqual({ user: { id: expect.any(Number), email: 'engineer@falsetrace.test', name: expect.any(String), role: 'engineer' } });
+    // The contract's shape, plus localMail as /api/auth/me carries it (the nav needs it at once).
+    expect(res.body).toEqual({ user: { id: expect.any(Number), email: 'engineer@falsetrace.test', name: expect.any(String), role: 'engineer' }, localMail: true });
     const cookie = String(res.headers['set-cookie']);
     expect(cookie).toMatch(/ft\.sid=.*HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);

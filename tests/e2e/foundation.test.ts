@@ -37,7 +37,8 @@ describe.skipIf(skipBrowser)('foundation in a real browser', () => {
       });
       await signIn(page, app.server.baseUrl, `${role}@falsetrace.test`);
       expect(await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents()).toEqual(NAV[role]);
-      await page.unroute('**/api/auth/me');
+      // a held /api/auth/me may still be in flight: unrouting under it would answer it twice
+      await page.unrouteAll({ behavior: 'wait' });
       await page.getByRole('heading', { name: 'What is the trace doing?' }).waitFor();
       await screenshot(page, `bench-${role}`);
       if (role === 'engineer') {

@@ -5,8 +5,8 @@ import { CaseIndex, type IndexTuning } from './case-index';
 import { CompactEngine, type CompactHeader } from './compact-engine';
 
 /** Bump when the analysis or the document layout changes: older snapshots are then rebuilt. */
-/** 4: field lengths count index terms, not distinct terms (BM25F). */
-export const SNAPSHOT_VERSION = 4;
+/** 4: field lengths count index terms, not distinct terms (BM25F). 5: irregular forms also indexed as written. */
+export const SNAPSHOT_VERSION = 5;
 
 interface SnapshotHeader {
   version: number;

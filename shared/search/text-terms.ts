@@ -1,5 +1,5 @@
 import { STOPWORDS } from './stopwords';
-import { stem } from './stem';
+import { stem, writtenFormTerm } from './stem';
 import { PHRASES, canonicalToken, quantityTerm } from './synonyms';
 
 /** An index term and where in the text it came from (UTF-16 offsets, end exclusive). */
@@ -87,6 +87,14 @@ export function termsWithOffsets(text: string, mode: 'index' | 'query' = 'index'
   const emit = (term: string, start: number, end: number, surface = term) => {
     if (term !== '') out.push({ term, start, end, surface });
   };
+  // a word: its term, and in the index an irregular form's written-form term as well
+  const emitWord = (t: Token) => {
+    emit(wordTerm(t.text), t.start, t.end, t.text);
+    if (mode === 'index') {
+      const written = writtenFormTerm(t.text);
+      if (written) emit(written, t.start, t.end, t.text);
+    }
+  };
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
     const next = tokens[i + 1];
@@ -101,13 +109,13 @@ export function termsWithOffsets(text: string, mode: 'index' | 'query' = 'index'
       const last = tokens[i + phrase.words.length - 1];
       emit(phrase.term, t.start, last.end);
       if (mode === 'index') {
-        for (let k = 0; k < phrase.words.length; k++) emit(wordTerm(tokens[i + k].text), tokens[i + k].start, tokens[i + k].end, tokens[i + k].text);
+        for (let k = 0; k < phrase.words.length; k++) emitWord(tokens[i + k]);
       }
       i += phrase.words.length - 1;
       continue;
     }
     if (t.text === '%') continue;
-    emit(wordTerm(t.text), t.start, t.end, t.text);
+    emitWord(t);
   }
   return out;
 }

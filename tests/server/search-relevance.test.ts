@@ -67,4 +67,17 @@ describe('search relevance', () => {
     expect(rankedTitles(index, 'zyxomat ringing')[0]).toBe(idOf(rang.title));
     expect(rankedTitles(index, 'zyxomat rings')[0]).toBe(idOf(rang.title));
   });
+
+  it('should rank the case that wrote the irregular form the user typed above one with only its base form', () => {
+    // the same words but the verb: a case that says "rang" answers "rang" better than one that says "ringing"
+    // common practice, no source (an exact match of the typed form outranks a stem-only match)
+    const rang: Written = { title: 'Qwelbox half bridge node rang after each edge', summary: 'The qwelbox node rang hard.', narrative: 'It rang at every transition.' };
+    const ringing: Written = { title: 'Qwelbox half bridge node ringing after each edge', summary: 'The qwelbox node was ringing hard.', narrative: 'It was ringing at every transition.' };
+    const { index, idOf } = demoIndexWith([rang, ringing]);
+    const ranked = rankedTitles(index, 'qwelbox node rang after each edge');
+    expect(ranked[0]).toBe(idOf(rang.title));
+    // the base form still counts: the case that says "ringing" is found by "rang" too, and "ringing" finds both
+    expect(ranked).toContain(idOf(ringing.title));
+    expect(rankedTitles(index, 'qwelbox node ringing')).toEqual(expect.arrayContaining([idOf(rang.title), idOf(ringing.title)]));
+  });
 });

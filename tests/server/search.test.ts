@@ -201,7 +201,7 @@ describe('case search', () => {
     const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], synonyms));
     // source: Robertson & Zaragoza, "The Probabilistic Relevance Framework: BM25 and Beyond", FnTIR 3(4),
     // 2009, 3.4 (BM25F): tf~ = Σ_f v_f · tf_f / B_f, B_f = (1 − b) + b · len_f / avglen_f, then
-    // idf · tf~ (k1 + 1) / (tf~ + k1); k1 = 1.2, b = 0.75; the lower bound δ = 0.5 from Lv & Zhai,
+    // idf · tf~ (k1 + 1) / (tf~ + k1); k1 = 2 (Manning, Raghavan & Schütze 2008, 11.4.3: 1.2 to 2), b = 0.75; the lower bound δ = 0.5 from Lv & Zhai,
     // CIKM 2011 (BM25+). Written out plainly over the documents, apart from the packed postings the
     // index scores from.
     const bm25f = (docs: CaseDoc[], term: string) => {
@@ -214,7 +214,7 @@ describe('case search', () => {
       const matching = perDoc.filter((d) => d.counts.some((c) => c > 0));
       const idf = Math.log(1 + (docs.length - matching.length + 0.5) / (matching.length + 0.5));
       const tf = (d: (typeof perDoc)[number]) => DOC_FIELDS.reduce((sum, f, i) => sum + (FIELD_BOOST[f] * d.counts[i]) / (0.25 + (0.75 * d.lengths[i]) / avg[i]), 0);
-      return new Map(matching.map((d) => [d.id, idf * (0.5 + (tf(d) * 2.2) / (tf(d) + 1.2))]));
+      return new Map(matching.map((d) => [d.id, idf * (0.5 + (tf(d) * 3) / (tf(d) + 2))]));
     };
     const docs = new Map(entries.map((e) => [e.doc.id, e.doc]));
     const compact = new CaseIndex();

@@ -20,8 +20,8 @@ import { DOC_FIELDS, FIELD_BOOST, type CaseDoc } from './case-document';
  * top of the 1.2–2 range usually found reasonable (Manning, Raghavan & Schütze, Introduction to Information
  * Retrieval, 2008, 11.4.3). The boosts put tf~ on a larger scale than a plain count (one title word is
  * about 4), where 1.2 is already near the ceiling: a word in the title, summary and tags scored little
- * more than the same word in a long story. Measured by bench/search-relevance.ts: nDCG@5 at 30k 0.856 → 0.867, at 100k 0.853 → 0.856,
- * the same at 10k. δ = 0.5 is minisearch 7's default.
+ * more than the same word in a long story. Measured by bench/search-relevance.ts: nDCG@5 at 30k
+ * 0.856 → 0.867, at 100k 0.853 → 0.856, the same at 10k. δ = 0.5 is minisearch 7's default.
  */
 const K = 2;
 const B = 0.75;

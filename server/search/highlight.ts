@@ -1,4 +1,4 @@
-import { irregularFormsOf, WRITTEN_FORM_MARK } from '../../shared/search/stem';
+import { irregularFormsOf, isWrittenFormTerm, WRITTEN_FORM_MARK } from '../../shared/search/stem';
 import { PHRASES } from '../../shared/search/synonyms';
 import { termsWithOffsets } from '../../shared/search/text-terms';
 import type { HighlightField, SearchHighlight } from '../../shared/schemas/search';
@@ -28,7 +28,7 @@ function keysOf(terms: ReadonlySet<string>): string[] {
   if (keys) return keys;
   const out = new Set<string>();
   for (const term of terms) {
-    if (term.startsWith(WRITTEN_FORM_MARK)) {
+    if (isWrittenFormTerm(term)) {
       out.add(term.slice(WRITTEN_FORM_MARK.length));
       continue;
     }

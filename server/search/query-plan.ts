@@ -1,4 +1,4 @@
-import { stem, WRITTEN_FORM_MARK, writtenFormTerm } from '../../shared/search/stem';
+import { isWrittenFormTerm, stem, writtenFormTerm } from '../../shared/search/stem';
 import { lastWordOpen, termsWithOffsets } from '../../shared/search/text-terms';
 import type { CaseIndex, TermGroup, WeightedTerm } from './case-index';
 
@@ -69,7 +69,7 @@ export function planQuery(query: string, index: CaseIndex, synonyms: Map<string,
       if (dict.hasTerm(w.surface)) add(w.surface, 1);
       for (const root of inflectionRoots(w.surface, index)) add(root, 1);
     } else if (!dict.hasTerm(w.term) && !/\d/.test(w.term) && w.term.length >= MIN_FUZZY) {
-      for (const n of dict.nearTerms(w.term, w.term.length >= 8 ? 2 : 1)) if (!n.term.startsWith(WRITTEN_FORM_MARK)) add(n.term, fuzzyWeight(n.term, n.distance));
+      for (const n of dict.nearTerms(w.term, w.term.length >= 8 ? 2 : 1)) if (!isWrittenFormTerm(n.term)) add(n.term, fuzzyWeight(n.term, n.distance));
       // the dictionary holds stems, so a misspelt inflection ("ringng") is far from every term
       // but its front is a stem: try it without an ending made of inflection letters
       for (let cut = 1; cut <= 3 && w.surface.length - cut >= MIN_FUZZY; cut++) {

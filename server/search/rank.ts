@@ -1,7 +1,7 @@
 import { canSeeCase } from '../../shared/auth/case-policy';
 import { canModerate, type Actor } from '../../shared/auth/roles';
 import { symptomNumbersFit } from '../../shared/search/case-numbers';
-import { WRITTEN_FORM_MARK } from '../../shared/search/stem';
+import { isWrittenFormTerm } from '../../shared/search/stem';
 import { readSymptomQuery, type SymptomReading } from '../../shared/search/symptom-query';
 import type { SearchQuery } from '../../shared/schemas/search';
 import type { CaseFacts } from './case-document';
@@ -77,7 +77,7 @@ function addRareWordBonus(index: CaseIndex, groups: TermGroup[], visible: (id: n
   const limit = Math.max(RARE_MIN, Math.floor(RARE_SHARE * index.size));
   const rare = groups.filter((g) => {
     // an irregular form is rare as written ("rang"), however common its base form ("ring")
-    const written = g.terms.filter((t) => t.term.startsWith(WRITTEN_FORM_MARK));
+    const written = g.terms.filter((t) => isWrittenFormTerm(t.term));
     const exact = written.length > 0 ? written : g.terms.filter((t) => t.weight === 1);
     if (exact.length === 0) return false;
     const df = Math.max(...exact.map((t) => index.engine.documentFrequency(t.term, limit)));

@@ -1,5 +1,5 @@
 import { numbersSimilarity } from '../../shared/search/case-numbers';
-import { WRITTEN_FORM_MARK } from '../../shared/search/stem';
+import { isWrittenFormTerm } from '../../shared/search/stem';
 import { indexTerms } from '../../shared/search/text-terms';
 import type { CaseIndex, TermGroup } from './case-index';
 import type { Ranked } from './rank';
@@ -29,7 +29,7 @@ export function similarCases(index: CaseIndex, source: SimilarSource, visible: (
 
   const words = [...new Set(indexTerms(`${source.title} ${source.summary} ${base.tags.join(' ')}`))]
     // words by their base form: a written-form term would only repeat one already here
-    .filter((term) => !term.startsWith(WRITTEN_FORM_MARK))
+    .filter((term) => !isWrittenFormTerm(term))
     .map((term) => ({ term, postings: index.engine.postings(term) }))
     .filter((t) => t.postings > 0)
     .sort((a, b) => a.postings - b.postings)

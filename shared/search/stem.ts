@@ -121,18 +121,21 @@ const IRREGULAR = new Map<string, string>(
   }).flatMap(([base, forms]) => forms.map((f): [string, string] => [f, base])),
 );
 
+/** Marks a written-form term: no typed word starts with it, and it keeps "=rang" apart from the stem "rang" of "range". */
+export const WRITTEN_FORM_MARK = '=';
+
 /**
  * The extra index term of an irregular form as written ("rang" → "=rang"), beside its base form:
  * "rang" still finds "ringing" through "ring", and a case that says "rang" as typed counts for
  * more (index the written form and the stem both, then let an exact match add its score).
- * The mark keeps it apart from every stem ("range" stems to "rang"), and no typed word can
- * start with it. // common practice, no source (search engines keep the written form beside the stem)
+ * // common practice, no source (search engines keep the written form beside the stem)
  */
 export function writtenFormTerm(word: string): string | undefined {
   return IRREGULAR.has(word) ? `${WRITTEN_FORM_MARK}${word}` : undefined;
 }
 
-export const WRITTEN_FORM_MARK = '=';
+/** Whether an index term is a written-form term (`writtenFormTerm`), not a stem. */
+export const isWrittenFormTerm = (term: string): boolean => term.startsWith(WRITTEN_FORM_MARK);
 
 /** The irregular forms that stem to `base` ("ring" → rang, rung): where a highlighter must look besides the stem itself. */
 export function irregularFormsOf(base: string): string[] {

@@ -12,6 +12,7 @@ import type { AppDeps } from './deps';
 import { AppError } from './errors';
 import { createCsrf } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
+import { gzipWholeAnswers } from './middleware/gzip-whole';
 import { logger as processLogger } from './logger';
 import { requestLog } from './ops/request-log';
 import { trackRoutePattern } from './ops/request-route';
@@ -82,6 +83,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
   const fastCompression = compression({ level: zlibConstants.Z_BEST_SPEED });
   const compressAssets = compression();
   app.use((req, res, next) => (req.path.startsWith('/api/') ? fastCompression : compressAssets)(req, res, next));
+  // an API answer sent whole is gzipped in one call, without a zlib stream per request
+  app.use('/api', gzipWholeAnswers(zlibConstants.Z_BEST_SPEED));
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 

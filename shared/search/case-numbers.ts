@@ -88,8 +88,16 @@ export function numbersSimilarity(a: CaseNumbers, b: CaseNumbers): number {
  * averaged over the stated numbers; undefined when the query stated none the case records.
  */
 export function symptomNumbersFit(query: SymptomNumbers, c: CaseNumbers): number | undefined {
-  const keys = (Object.keys(query) as (keyof SymptomNumbers)[]).filter((k) => query[k] !== undefined && c[k] !== undefined);
-  if (keys.length === 0) return undefined;
-  const fits = keys.map((k) => Math.exp(-((gap(k, query[k]!, c[k]!) / 0.15) ** 2) / 2));
-  return fits.reduce((x, y) => x + y, 0) / fits.length;
+  // a loop, no arrays: a search runs this for every case filed under an inferred cause
+  let sum = 0;
+  let count = 0;
+  for (const k in query) {
+    const key = k as keyof SymptomNumbers;
+    const stated = query[key];
+    const recorded = c[key];
+    if (stated === undefined || recorded === undefined) continue;
+    sum += Math.exp(-((gap(key, stated, recorded) / 0.15) ** 2) / 2);
+    count++;
+  }
+  return count === 0 ? undefined : sum / count;
 }

@@ -42,12 +42,18 @@ const RARE_MIN = 1;
  */
 const RARE_WEIGHT = 1;
 
+/** Who may see a case, given its facts (the case policy's own test); moderators see everything. */
+function factsVisibility(actor: Actor): (f: CaseFacts) => boolean {
+  if (canModerate(actor)) return () => true;
+  return (f) => canSeeCase(actor, { authorId: f.authorId, status: f.status });
+}
+
 /** Who may see what, as a test per case id; moderators see everything. */
 export function visibilityOf(index: CaseIndex, actor: Actor): (id: number) => boolean {
-  if (canModerate(actor)) return (id) => index.facts.has(id);
+  const seesFacts = factsVisibility(actor);
   return (id) => {
     const f = index.facts.get(id);
-    return f !== undefined && canSeeCase(actor, { authorId: f.authorId, status: f.status });
+    return f !== undefined && seesFacts(f);
   };
 }
 
@@ -112,18 +118,24 @@ export function rankCases(index: CaseIndex, actor: Actor, query: SearchQuery, sy
   }
   if (reading && reading.causes.length > 0) {
     // only the cases filed (or diagnosed) under an inferred cause can fit: read them from the per-cause lists
+    const seesFacts = factsVisibility(actor);
     const seen = new Set<number>();
     for (const c of reading.causes) {
       for (const id of index.casesOfCause(c.cause)) {
         if (seen.has(id)) continue;
         seen.add(id);
-        const fit = symptomFit(reading, index.facts.get(id)!);
-        if (fit > 0 && visible(id)) scores.set(id, (scores.get(id) ?? 0) + SYMPTOM_WEIGHT * fit);
+        // one lookup of the facts for both the fit and the policy: this loop meets thousands of cases
+        const f = index.facts.get(id)!;
+        const fit = symptomFit(reading, f);
+        if (fit > 0 && seesFacts(f)) scores.set(id, (scores.get(id) ?? 0) + SYMPTOM_WEIGHT * fit);
       }
     }
   }
   if (hasWords) addRareWordBonus(index, groups, visible, scores);
-  if (!hasWords) for (const id of index.facts.keys()) if (visible(id)) scores.set(id, 0);
+  if (!hasWords) {
+    const seesFacts = factsVisibility(actor);
+    for (const [id, f] of index.facts) if (seesFacts(f)) scores.set(id, 0);
+  }
 
   const { facets, passing } = countFacets(index, scores.keys(), query);
   const byUpdate = (a: Ranked, b: Ranked) => index.facts.get(b.id)!.updatedAt.localeCompare(index.facts.get(a.id)!.updatedAt);

@@ -74,6 +74,19 @@ function wordTerm(word: string): string {
   return term;
 }
 
+function emit(out: TermAt[], term: string, start: number, end: number, surface = term) {
+  if (term !== '') out.push({ term, start, end, surface });
+}
+
+/** A word: its term, and in the index an irregular form's written-form term as well. */
+function emitWord(out: TermAt[], t: Token, mode: 'index' | 'query') {
+  emit(out, wordTerm(t.text), t.start, t.end, t.text);
+  if (mode === 'index') {
+    const written = writtenFormTerm(t.text);
+    if (written) emit(out, written, t.start, t.end, t.text);
+  }
+}
+
 /**
  * The text's index terms with their positions: phrases and quantities folded to one term,
  * function words dropped, inflections stripped.
@@ -82,40 +95,30 @@ function wordTerm(word: string): string {
  *   spring"); `query` keeps only the phrase term, so a query for the phrase needs the phrase.
  */
 export function termsWithOffsets(text: string, mode: 'index' | 'query' = 'index'): TermAt[] {
+  // emit and emitWord live outside: a closure made per call is also renamed per call by the TS loader
   const tokens = rawTokens(text);
   const out: TermAt[] = [];
-  const emit = (term: string, start: number, end: number, surface = term) => {
-    if (term !== '') out.push({ term, start, end, surface });
-  };
-  // a word: its term, and in the index an irregular form's written-form term as well
-  const emitWord = (t: Token) => {
-    emit(wordTerm(t.text), t.start, t.end, t.text);
-    if (mode === 'index') {
-      const written = writtenFormTerm(t.text);
-      if (written) emit(written, t.start, t.end, t.text);
-    }
-  };
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
     const next = tokens[i + 1];
     const quantity = next && t.text.charCodeAt(0) < 58 ? quantityTerm(t.text, next.text) : undefined;
     if (quantity && next) {
-      emit(quantity, t.start, next.end);
+      emit(out, quantity, t.start, next.end);
       i++;
       continue;
     }
     const phrase = PHRASES_BY_FIRST.get(t.text)?.find((p) => p.words.every((w, k) => tokens[i + k]?.text === w));
     if (phrase) {
       const last = tokens[i + phrase.words.length - 1];
-      emit(phrase.term, t.start, last.end);
+      emit(out, phrase.term, t.start, last.end);
       if (mode === 'index') {
-        for (let k = 0; k < phrase.words.length; k++) emitWord(tokens[i + k]);
+        for (let k = 0; k < phrase.words.length; k++) emitWord(out, tokens[i + k], mode);
       }
       i += phrase.words.length - 1;
       continue;
     }
     if (t.text === '%') continue;
-    emitWord(t);
+    emitWord(out, t, mode);
   }
   return out;
 }

@@ -82,4 +82,12 @@ describe('case numbers', () => {
     expect(symptomNumbersFit({ ringingFrequencyHz: 480e6 }, c)!).toBeLessThan(0.05);
     expect(symptomNumbersFit({ riseTimeS: 1e-9 }, c)).toBeUndefined();
   });
+
+  it('should average the fits of the numbers both state and skip the ones the case lacks', () => {
+    // a Gaussian in decades, σ = 0.15: one σ off gives e^(−1/2), worked by hand
+    const c = caseNumbersOf({ signal: { expectedAmplitudeV: 12 }, observed: { amplitudeV: 1.2, ringingFrequencyHz: 100e6 * 10 ** 0.15 } });
+    expect(symptomNumbersFit({ amplitudeRatio: 0.1, ringingFrequencyHz: 100e6 }, c)).toBeCloseTo((1 + Math.exp(-0.5)) / 2, 9);
+    expect(symptomNumbersFit({ ringingFrequencyHz: 100e6, riseTimeS: 1e-9 }, c)).toBeCloseTo(Math.exp(-0.5), 9);
+    expect(symptomNumbersFit({}, c)).toBeUndefined();
+  });
 });

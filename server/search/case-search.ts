@@ -1,7 +1,7 @@
 import type { Actor } from '../../shared/auth/roles';
 import type { HighlightField, SearchQuery, SearchResponse, SimilarResponse } from '../../shared/schemas/search';
 import type { Db } from '../db/database';
-import { searchSourceRows, searchSourceStamp, searchTags, synonymsByTag, type SearchSourceRow } from '../db/repositories/search-source';
+import { searchPageRows, searchSourceRows, searchSourceStamp, searchTags, synonymsByTag, type SearchPageRow } from '../db/repositories/search-source';
 import { AppError } from '../errors';
 import { synonymMap } from '../services/tags';
 import { caseDocument } from './case-document';
@@ -70,7 +70,7 @@ const synonymStats = (byTag: Map<string, string[]>): SynonymStats => {
 
 const round = (x: number) => Math.round(x * 1e4) / 1e4;
 
-function bodyFields(r: SearchSourceRow): { field: HighlightField; text: string | null }[] {
+function bodyFields(r: SearchPageRow): { field: HighlightField; text: string | null }[] {
   return [
     { field: 'title', text: r.title },
     { field: 'summary', text: r.summary },
@@ -190,7 +190,7 @@ export async function openCaseSearch(db: Db, options: CaseSearchOptions = {}): P
   }
 
   async function page(ranked: Ranked[]) {
-    const rows = new Map((await searchSourceRows(db, ranked.map((r) => r.id))).map((r) => [r.id, r]));
+    const rows = new Map((await searchPageRows(db, ranked.map((r) => r.id))).map((r) => [r.id, r]));
     return ranked.filter((r) => rows.has(r.id)).map((r) => ({ ranked: r, row: rows.get(r.id)! }));
   }
 

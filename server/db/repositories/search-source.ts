@@ -31,6 +31,17 @@ export const searchSourceRows = (db: Db, ids?: number[]): Promise<SearchSourceRo
   return q.orderBy('id').execute();
 };
 
+/** What a result card shows of a case and highlights in it. */
+export type SearchPageRow = Pick<SearchSourceRow, 'id' | 'title' | 'summary' | 'cause' | 'narrative' | 'fix' | 'lesson_summary' | 'lesson_detail'>;
+
+/** The shown page's cases: the card's text only (the setup JSON and the facts stay in the database; the index has them). */
+export const searchPageRows = (db: Db, ids: number[]): Promise<SearchPageRow[]> =>
+  db
+    .selectFrom('cases')
+    .select(['id', 'title', 'summary', 'cause', 'narrative', 'fix', 'lesson_summary', 'lesson_detail'])
+    .where('id', 'in', ids.length ? ids : [-1])
+    .execute();
+
 /** Tags per case, for the cases asked for (all when `ids` is left out). */
 export async function searchTags(db: Db, ids?: number[]): Promise<Map<number, string[]>> {
   let q = db.selectFrom('case_tags').select(['case_id', 'tag']);

@@ -11,7 +11,7 @@ export interface TermAt {
   surface: string;
 }
 
-interface Token {
+export interface Token {
   text: string;
   start: number;
   end: number;
@@ -35,25 +35,68 @@ function normalizeFast(raw: string): string {
   return raw;
 }
 
-function rawTokens(text: string): Token[] {
-  const out: Token[] = [];
-  TOKEN.lastIndex = 0;
-  for (let m = TOKEN.exec(text); m !== null; m = TOKEN.exec(text)) {
-    const start = m.index;
-    const norm = normalizeFast(m[0]);
-    const parts = norm.includes('-') || norm.includes('/') ? norm.split(/[-/]/) : undefined;
-    if (parts && parts.every((p) => p !== '')) {
-      // "ground-lead", "10x-at-1x", "1x/10x": the parts are the words
-      let at = start;
-      for (const p of parts) {
-        out.push({ text: p, start: at, end: at + p.length });
-        at += p.length + 1;
-      }
-    } else {
-      out.push({ text: norm, start, end: start + m[0].length });
+/** A raw token as the index reads it: normalised, and "ground-lead", "10x-at-1x", "1x/10x" split into their parts. */
+function pushToken(out: Token[], raw: string, start: number) {
+  const norm = normalizeFast(raw);
+  const parts = norm.includes('-') || norm.includes('/') ? norm.split(/[-/]/) : undefined;
+  if (parts && parts.every((p) => p !== '')) {
+    let at = start;
+    for (const p of parts) {
+      out.push({ text: p, start: at, end: at + p.length });
+      at += p.length + 1;
     }
+  } else {
+    out.push({ text: norm, start, end: start + raw.length });
   }
+}
+
+/** The tokens `TOKEN` finds in `text` from `from` on: the definition of a token. */
+export function patternTokens(text: string, from = 0, out: Token[] = []): Token[] {
+  TOKEN.lastIndex = from;
+  for (let m = TOKEN.exec(text); m !== null; m = TOKEN.exec(text)) pushToken(out, m[0], m.index);
   return out;
+}
+
+const isAsciiAlnum = (c: number) => (c >= 48 && c <= 57) || (c >= 97 && c <= 122) || (c >= 65 && c <= 90);
+// the joiners of TOKEN that are ASCII: ' . - + /
+const isAsciiJoiner = (c: number) => c === 39 || c === 46 || c === 45 || c === 43 || c === 47;
+
+/**
+ * `patternTokens`, by a loop over character codes while the text is ASCII (a pattern with
+ * Unicode classes is the slower part of reading a text). From the first non-ASCII character
+ * on (µ, Ω, ’, ×, a dash), the pattern takes over where it would have resumed: after the last
+ * token whose end was decided by ASCII characters alone.
+ */
+export function rawTokens(text: string): Token[] {
+  const out: Token[] = [];
+  const n = text.length;
+  let firstWide = 0;
+  while (firstWide < n && text.charCodeAt(firstWide) < 128) firstWide++;
+  // a token ending at e looked at the characters at e and e + 1; those must be ASCII
+  const settled = firstWide - 2;
+  let resume = 0;
+  let i = 0;
+  while (i < n) {
+    const c = text.charCodeAt(i);
+    if (c >= 128) break;
+    if (!isAsciiAlnum(c) && c !== 37) {
+      i++;
+      continue;
+    }
+    const start = i++;
+    if (c !== 37) {
+      while (i < n && isAsciiAlnum(text.charCodeAt(i))) i++;
+      while (i + 1 < n && isAsciiJoiner(text.charCodeAt(i)) && isAsciiAlnum(text.charCodeAt(i + 1))) {
+        i += 2;
+        while (i < n && isAsciiAlnum(text.charCodeAt(i))) i++;
+      }
+      if (i < n && text.charCodeAt(i) === 37) i++;
+    }
+    if (firstWide < n && i > settled) break;
+    pushToken(out, text.slice(start, i), start);
+    resume = i;
+  }
+  return firstWide < n ? patternTokens(text, resume, out) : out;
 }
 
 const PHRASES_BY_FIRST = new Map<string, (typeof PHRASES)[number][]>();

@@ -74,6 +74,9 @@ export class CompactEngine {
   private dfStamp = new Uint32Array(0);
   /** `scoreTerm`'s per-slot sums, all zero between calls. */
   private scratch = new Float64Array(0);
+  /** Per field and slot, BM25F's 1 / (1 − b + b·len/avglen), good while `normsVersion` equals `version`. */
+  private norms: Float64Array[] = [];
+  private normsVersion = 0;
 
   has(id: number) {
     return this.slotOf.has(id);
@@ -235,21 +238,36 @@ export class CompactEngine {
     const df = this.liveCases(t);
     if (df === 0) return;
     const idf = weight * Math.log(1 + (this.documentCount - df + 0.5) / (df + 0.5));
-    const avgs = new Float64Array(FIELDS);
-    for (let f = 0; f < FIELDS; f++) avgs[f] = this.totalLength[f] / this.documentCount || 1;
-    const lengths = this.fieldLength;
+    const norms = this.lengthNorms();
     for (let i = 0; i < n; ) {
       const slot = list[i] >>> SLOT_SHIFT;
       let tf = 0;
       for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) {
         const f = (list[i] >>> FIELD_SHIFT) & 7;
-        tf += (BOOSTS[f] * (list[i] & TF_MASK)) / (1 - B + (B * lengths[f][slot]) / avgs[f]);
+        tf += BOOSTS[f] * (list[i] & TF_MASK) * norms[f][slot];
       }
       if (ids[slot] < 0 || !admit(slot)) continue;
       const score = idf * (D + (tf * (K + 1)) / (tf + K));
       if (acc[slot] === 0) touched.push(slot);
       acc[slot] += score;
     }
+  }
+
+  /**
+   * BM25F's length normalisation of every field of every slot, worked out once per change to the
+   * index rather than divided out again for each posting of each query term.
+   */
+  private lengthNorms(): Float64Array[] {
+    if (this.normsVersion === this.version) return this.norms;
+    for (let f = 0; f < FIELDS; f++) {
+      let out = this.norms[f];
+      if (!out || out.length < this.slots) out = this.norms[f] = new Float64Array(Math.max(1024, this.slots * 2));
+      const avg = this.totalLength[f] / this.documentCount || 1;
+      const lengths = this.fieldLength[f];
+      for (let slot = 0; slot < this.slots; slot++) out[slot] = 1 / (1 - B + (B * lengths[slot]) / avg);
+    }
+    this.normsVersion = this.version;
+    return this.norms;
   }
 
   /** Live cases holding term `t`, counted once per change to the index. */

@@ -135,13 +135,15 @@ function snippet(text: string, ranges: [number, number][]): { text: string; rang
 
 /** A narrative's markdown as the plain text a result card shows: no emphasis marks, fences, headings or link targets. */
 export function plainText(markdown: string): string {
-  return markdown
-    .replace(/```[^\n]*\n?/g, '')
-    .replace(/\[([^\]]*)\]\([^)]*\)/g, '$1')
-    .replace(/\*\*|__|`/g, '')
-    .replace(/\*([^*\n]+)\*/g, '$1')
-    .replace(/^\s{0,3}(?:#{1,6}|>)\s?/gm, '')
-    .replace(/[ \t]*\n[ \t\n]*/g, ' ');
+  // each pattern only where the characters it needs occur: most stories have no markdown but line ends
+  let text = markdown;
+  if (text.includes('```')) text = text.replace(/```[^\n]*\n?/g, '');
+  if (text.includes('](')) text = text.replace(/\[([^\]]*)\]\([^)]*\)/g, '$1');
+  if (text.includes('**') || text.includes('__') || text.includes('`')) text = text.replace(/\*\*|__|`/g, '');
+  if (text.includes('*')) text = text.replace(/\*([^*\n]+)\*/g, '$1');
+  if (text.includes('#') || text.includes('>')) text = text.replace(/^\s{0,3}(?:#{1,6}|>)\s?/gm, '');
+  if (text.includes('\n')) text = text.replace(/[ \t]*\n[ \t\n]*/g, ' ');
+  return text;
 }
 
 /**

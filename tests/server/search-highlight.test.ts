@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { matchRanges } from '../../server/search/highlight';
+import { matchRanges, plainText } from '../../server/search/highlight';
 import { termsWithOffsets } from '../../shared/search/text-terms';
 
 /** Every word of `text` whose term is one of `terms`, found by tokenising all of it. */
@@ -40,5 +40,15 @@ describe('highlights of short fields', () => {
       expect(found.length).toBeGreaterThan(0);
       expect(found).toEqual(everywhere(title, terms));
     }
+  });
+});
+
+describe('a story as the plain text of a result card', () => {
+  it('should drop emphasis, code marks, fences, headings, quotes and link targets, and join the lines', () => {
+    // worked by hand from the markdown (CommonMark's emphasis, code spans, fences, ATX headings, block quotes, links)
+    const story = 'Probe **tip** and *ground* with `x10`, see [the note](http://a/b).\n\n## Fix\n> Spring tip\n```\nclip\n```\nDone';
+    expect(plainText(story)).toBe('Probe tip and ground with x10, see the note. Fix Spring tip clip Done');
+    expect(plainText('No marks at all, one line')).toBe('No marks at all, one line');
+    expect(plainText('two\n  lines')).toBe('two lines');
   });
 });

@@ -1,5 +1,6 @@
 import type { CaseFacts, CaseDoc } from './case-document';
 import { CompactEngine } from './compact-engine';
+import { FacetRows } from './facet-rows';
 
 /** An index term a query word stands for, with the weight its kind of match carries. */
 export interface WeightedTerm {
@@ -20,18 +21,11 @@ export interface TermGroup {
  */
 export type IndexTuning = Record<string, never>;
 
-/** A case's cause, status and tags as small numbers (`CaseIndex.facetName` reads them back): facets count into arrays. */
-export interface FacetCodes {
-  cause: number;
-  status: number;
-  tags: Int32Array;
-}
-
 /** The cases' compact inverted index and the facts that filter and facet them. */
 export class CaseIndex {
   readonly facts = new Map<number, CaseFacts>();
-  /** Per case, its facet values as codes; kept with `facts`. */
-  readonly facetCodes = new Map<number, FacetCodes>();
+  /** Per case, its cause, status and tags as small numbers (`facetName` reads them back), so facets count into arrays; kept with `facts`. */
+  readonly facetRows = new FacetRows();
   private readonly codeOf = new Map<string, number>();
   private readonly names: string[] = [];
   /** Cases by stated and by engine cause: symptom fitting reads only the inferred causes' cases. */
@@ -62,7 +56,7 @@ export class CaseIndex {
   setFacts(id: number, facts: CaseFacts) {
     this.deleteFacts(id);
     this.facts.set(id, facts);
-    this.facetCodes.set(id, { cause: facts.cause ? this.code(facts.cause) : -1, status: this.code(facts.status), tags: Int32Array.from(facts.tags, (t) => this.code(t)) });
+    this.facetRows.set(id, facts.cause ? this.code(facts.cause) : -1, this.code(facts.status), facts.tags.map((t) => this.code(t)));
     for (const c of new Set([facts.cause, facts.engineCause])) {
       if (!c) continue;
       let set = this.byCause.get(c);
@@ -75,7 +69,7 @@ export class CaseIndex {
     const old = this.facts.get(id);
     if (!old) return;
     this.facts.delete(id);
-    this.facetCodes.delete(id);
+    this.facetRows.delete(id);
     if (old.cause) this.byCause.get(old.cause)?.delete(id);
     if (old.engineCause) this.byCause.get(old.engineCause)?.delete(id);
   }

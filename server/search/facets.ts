@@ -1,5 +1,6 @@
 import type { SearchQuery } from '../../shared/schemas/search';
 import type { CaseIndex } from './case-index';
+import { FACET_ROW, ROW_CAUSE, ROW_STATUS, ROW_TAG_COUNT, ROW_TAGS } from './facet-rows';
 
 export interface Facets {
   cause: Record<string, number>;
@@ -15,7 +16,8 @@ const sorted = (entries: [string, number][], limit = Infinity) => Object.fromEnt
 /**
  * Facet counts over candidate cases, and the candidates that pass every filter. Each facet
  * counts the candidates that pass the other two filters, so choosing a cause does not hide
- * the other causes' counts. Counted by code into arrays (one array per facet), not by name.
+ * the other causes' counts. Counted by code into arrays (one array per facet), not by name,
+ * from the packed rows of `FacetRows`.
  */
 export function countFacets(index: CaseIndex, candidates: Iterable<number>, q: Pick<SearchQuery, 'cause' | 'tag' | 'status'>): { facets: Facets; passing: number[] } {
   const size = index.codeCount;
@@ -28,15 +30,24 @@ export function countFacets(index: CaseIndex, candidates: Iterable<number>, q: P
   const tagCode = filterCode(q.tag);
   const statusCode = filterCode(q.status);
   const passing: number[] = [];
+  const rows = index.facetRows;
+  const meta = rows.meta;
+  const pool = rows.pool;
   for (const id of candidates) {
-    const f = index.facetCodes.get(id);
-    if (!f) continue;
-    const okCause = causeCode === -1 || f.cause === causeCode;
-    const okTag = tagCode === -1 || f.tags.includes(tagCode);
-    const okStatus = statusCode === -1 || f.status === statusCode;
-    if (okTag && okStatus && f.cause >= 0) cause[f.cause]++;
-    if (okCause && okStatus) for (let k = 0; k < f.tags.length; k++) tags[f.tags[k]]++;
-    if (okCause && okTag) status[f.status]++;
+    const row = rows.rowOf(id);
+    if (row < 0) continue;
+    const at = row * FACET_ROW;
+    const causeOf = meta[at + ROW_CAUSE];
+    const statusOf = meta[at + ROW_STATUS];
+    const tagStart = meta[at + ROW_TAGS];
+    const tagEnd = tagStart + meta[at + ROW_TAG_COUNT];
+    const okCause = causeCode === -1 || causeOf === causeCode;
+    let okTag = tagCode === -1;
+    for (let k = tagStart; !okTag && k < tagEnd; k++) okTag = pool[k] === tagCode;
+    const okStatus = statusCode === -1 || statusOf === statusCode;
+    if (okTag && okStatus && causeOf >= 0) cause[causeOf]++;
+    if (okCause && okStatus) for (let k = tagStart; k < tagEnd; k++) tags[pool[k]]++;
+    if (okCause && okTag) status[statusOf]++;
     if (okCause && okTag && okStatus) passing.push(id);
   }
   const named = (counts: Int32Array) => {

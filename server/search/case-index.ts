@@ -56,7 +56,13 @@ export class CaseIndex {
   setFacts(id: number, facts: CaseFacts) {
     this.deleteFacts(id);
     this.facts.set(id, facts);
-    this.facetRows.set(id, facts.cause ? this.code(facts.cause) : -1, this.code(facts.status), facts.tags.map((t) => this.code(t)));
+    this.facetRows.set(id, {
+      cause: facts.cause ? this.code(facts.cause) : -1,
+      status: this.code(facts.status),
+      engineCause: facts.engineCause ? this.code(facts.engineCause) : -1,
+      authorId: facts.authorId,
+      tags: facts.tags.map((t) => this.code(t)),
+    });
     for (const c of new Set([facts.cause, facts.engineCause])) {
       if (!c) continue;
       let set = this.byCause.get(c);

@@ -1,13 +1,25 @@
-/** Ints per row of `FacetRows.meta`: cause code, status code, where the tags start in the pool, how many. */
-export const FACET_ROW = 4;
+/** Ints per row of `FacetRows.meta`: cause code, status code, where the tags start in the pool, how many, engine cause code, author. */
+export const FACET_ROW = 6;
 export const ROW_CAUSE = 0;
 export const ROW_STATUS = 1;
 export const ROW_TAGS = 2;
 export const ROW_TAG_COUNT = 3;
+export const ROW_ENGINE_CAUSE = 4;
+export const ROW_AUTHOR = 5;
+
+/** A case's facts as codes (−1 for no cause). */
+export interface FacetRow {
+  cause: number;
+  status: number;
+  engineCause: number;
+  authorId: number;
+  tags: readonly number[];
+}
 
 /**
- * Every case's facet codes (cause, status, tags), packed into two typed arrays: one row of four
- * ints a case and one pool of tag codes. Counting facets visits a thousand candidates or more
+ * Every case's facet codes (cause, status, tags; also its engine cause and author, for the
+ * symptom fit and the case policy), packed into two typed arrays: one row of six ints a case
+ * and one pool of tag codes. Counting facets visits a thousand candidates or more
  * per search in no useful order; an object and a typed array per case cost a cache miss each,
  * where a row here costs one. Rows and pool space of changed cases are reused or compacted away.
  */
@@ -27,7 +39,7 @@ export class FacetRows {
     return this.rowOfId.get(id) ?? -1;
   }
 
-  set(id: number, cause: number, status: number, tags: readonly number[]) {
+  set(id: number, { cause, status, engineCause, authorId, tags }: FacetRow) {
     this.delete(id);
     const row = this.freeRows.pop() ?? this.rows++;
     if ((row + 1) * FACET_ROW > this.meta.length) this.meta = grown(this.meta, (row + 1) * FACET_ROW);
@@ -37,6 +49,8 @@ export class FacetRows {
     this.meta[at + ROW_STATUS] = status;
     this.meta[at + ROW_TAGS] = this.poolUsed;
     this.meta[at + ROW_TAG_COUNT] = tags.length;
+    this.meta[at + ROW_ENGINE_CAUSE] = engineCause;
+    this.meta[at + ROW_AUTHOR] = authorId;
     for (const tag of tags) this.pool[this.poolUsed++] = tag;
     this.rowOfId.set(id, row);
   }

@@ -4,8 +4,9 @@ import { symptomNumbersFit } from '../../shared/search/case-numbers';
 import { isWrittenFormTerm } from '../../shared/search/stem';
 import { readSymptomQuery, type SymptomReading } from '../../shared/search/symptom-query';
 import type { SearchQuery } from '../../shared/schemas/search';
-import type { CaseFacts } from './case-document';
+import type { CaseStatus } from '../../shared/schemas/case';
 import type { CaseIndex, TermGroup } from './case-index';
+import { FACET_ROW, ROW_AUTHOR, ROW_CAUSE, ROW_ENGINE_CAUSE, ROW_STATUS } from './facet-rows';
 import { countFacets, type Facets } from './facets';
 import { planQuery } from './query-plan';
 import { runTextQuery } from './run-query';
@@ -42,36 +43,47 @@ const RARE_MIN = 1;
  */
 const RARE_WEIGHT = 1;
 
-/** Who may see a case, given its facts (the case policy's own test); moderators see everything. */
-function factsVisibility(actor: Actor): (f: CaseFacts) => boolean {
+/** Who may see the case in a row of `index.facetRows`, by the case policy; moderators see everything. */
+function rowVisibility(index: CaseIndex, actor: Actor): (row: number) => boolean {
   if (canModerate(actor)) return () => true;
-  return (f) => canSeeCase(actor, { authorId: f.authorId, status: f.status });
+  const rows = index.facetRows;
+  return (row) => {
+    const at = row * FACET_ROW;
+    return canSeeCase(actor, { authorId: rows.meta[at + ROW_AUTHOR], status: index.facetName(rows.meta[at + ROW_STATUS]) as CaseStatus });
+  };
 }
 
 /** Who may see what, as a test per case id; moderators see everything. */
 export function visibilityOf(index: CaseIndex, actor: Actor): (id: number) => boolean {
-  const seesFacts = factsVisibility(actor);
+  const seesRow = rowVisibility(index, actor);
+  const rows = index.facetRows;
   return (id) => {
-    const f = index.facts.get(id);
-    return f !== undefined && seesFacts(f);
+    const row = rows.rowOf(id);
+    return row >= 0 && seesRow(row);
   };
 }
 
-/**
- * How well a case fits a symptom reading, in [0, 1]: the engine's likelihood for the cause the
- * case is filed under (less when only its engine diagnosis names it), scaled by how near the
- * case's own numbers are to the numbers the query stated.
- */
-function symptomFit(reading: SymptomReading, f: CaseFacts): number {
-  let cause = 0;
-  for (const c of reading.causes) {
-    if (f.cause === c.cause) cause = Math.max(cause, c.likelihood);
-    else if (f.engineCause === c.cause) cause = Math.max(cause, ENGINE_CAUSE_MATCH * c.likelihood);
-  }
-  if (cause === 0) return 0;
-  const numbers = symptomNumbersFit(reading.numbers, f.numbers);
-  return cause * (numbers === undefined ? 0.8 : 0.4 + 0.6 * numbers);
+/** An inferred cause as the index's code for it, with the engine's likelihood. */
+interface CodedCause {
+  code: number;
+  likelihood: number;
 }
+
+/**
+ * How well a case's cause fits a symptom reading, in [0, 1]: the engine's likelihood for the
+ * cause the case is filed under, less when only its engine diagnosis names it.
+ */
+function causeFit(causes: CodedCause[], causeCode: number, engineCauseCode: number): number {
+  let fit = 0;
+  for (const c of causes) {
+    if (causeCode === c.code) fit = Math.max(fit, c.likelihood);
+    else if (engineCauseCode === c.code) fit = Math.max(fit, ENGINE_CAUSE_MATCH * c.likelihood);
+  }
+  return fit;
+}
+
+/** The cause's fit scaled by how near the case's own numbers are to the numbers the query stated (none stated: 0.8). */
+const withNumbers = (cause: number, numbers: number | undefined) => cause * (numbers === undefined ? 0.8 : 0.4 + 0.6 * numbers);
 
 /**
  * A case that holds the query's rare words gains up to RARE_WEIGHT (the share of the rare
@@ -117,25 +129,30 @@ export function rankCases(index: CaseIndex, actor: Actor, query: SearchQuery, sy
     for (const [id, s] of text.scores) scores.set(id, ((best > 0 ? s / best : 0) * text.coverage(id)) * (reading ? 1 - SYMPTOM_WEIGHT : 1));
   }
   if (reading && reading.causes.length > 0) {
-    // only the cases filed (or diagnosed) under an inferred cause can fit: read them from the per-cause lists
-    const seesFacts = factsVisibility(actor);
+    // only the cases filed (or diagnosed) under an inferred cause can fit: read them from the per-cause lists,
+    // their causes, author and status from their packed rows (this loop meets thousands of cases)
+    const rows = index.facetRows;
+    const seesRow = rowVisibility(index, actor);
+    // a cause no case has has no code: nothing can match it
+    const coded = reading.causes.map((c) => ({ code: index.knownCode(c.cause), likelihood: c.likelihood })).filter((c) => c.code >= 0);
+    const statesNumbers = Object.values(reading.numbers).some((v) => v !== undefined);
     const seen = new Set<number>();
     for (const c of reading.causes) {
       for (const id of index.casesOfCause(c.cause)) {
         if (seen.has(id)) continue;
         seen.add(id);
-        // one lookup of the facts for both the fit and the policy: this loop meets thousands of cases
-        const f = index.facts.get(id)!;
-        const fit = symptomFit(reading, f);
-        if (fit > 0 && seesFacts(f)) scores.set(id, (scores.get(id) ?? 0) + SYMPTOM_WEIGHT * fit);
+        const row = rows.rowOf(id);
+        if (row < 0) continue;
+        const at = row * FACET_ROW;
+        const cause = causeFit(coded, rows.meta[at + ROW_CAUSE], rows.meta[at + ROW_ENGINE_CAUSE]);
+        if (cause === 0 || !seesRow(row)) continue;
+        const fit = withNumbers(cause, statesNumbers ? symptomNumbersFit(reading.numbers, index.facts.get(id)!.numbers) : undefined);
+        scores.set(id, (scores.get(id) ?? 0) + SYMPTOM_WEIGHT * fit);
       }
     }
   }
   if (hasWords) addRareWordBonus(index, groups, visible, scores);
-  if (!hasWords) {
-    const seesFacts = factsVisibility(actor);
-    for (const [id, f] of index.facts) if (seesFacts(f)) scores.set(id, 0);
-  }
+  if (!hasWords) for (const id of index.facts.keys()) if (visible(id)) scores.set(id, 0);
 
   const { facets, passing } = countFacets(index, scores.keys(), query);
   const byUpdate = (a: Ranked, b: Ranked) => index.facts.get(b.id)!.updatedAt.localeCompare(index.facts.get(a.id)!.updatedAt);

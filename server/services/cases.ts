@@ -199,8 +199,7 @@ export async function listCasesFor({ db, search }: AppDeps, actor: Actor, query:
   // the text filter reads only the cases the search index names; every case when the index is not ready or cannot say
   const candidates = query.q && search ? await search.listCandidates(query.q, TEXT_CANDIDATE_LIMIT).catch(() => undefined) : undefined;
   const { rows, total, totalCapped } = await listCases(db, actor, query, candidates);
-  const tags = await tagsOfCases(db, rows.map((r) => r.id));
-  return { cases: rows.map((r) => toCaseSummary(r, tags.get(r.id) ?? [])), total, ...(totalCapped && { totalCapped: true as const }) };
+  return { cases: rows.map((r) => toCaseSummary(r, r.tags)), total, ...(totalCapped && { totalCapped: true as const }) };
 }
 
 export const authorsFor = ({ db }: AppDeps, actor: Actor) => listCaseAuthors(db, actor);

@@ -224,6 +224,16 @@ describe('case write-ups', () => {
     expect(existsSync(ctx.config.dataDir)).toBe(true);
   });
 
+  it('should list each case with the same tags, in the same order, as its own page', async () => {
+    const c = (await mod.post('/api/cases', { title: 'Tag order on the list', summary: 'three tags out of order', tags: ['zeta-rail', 'adc', 'gate-drive'] }).expect(201)).body.case;
+    await mod.post('/api/cases', { title: 'Tag order, no tags', summary: 'none at all' }).expect(201);
+    const listed = (await mod.get('/api/cases?q=Tag%20order&pageSize=50').expect(200)).body.cases as { id: number; title: string; tags: string[] }[];
+    expect(listed).toHaveLength(2);
+    for (const row of listed) expect(row.tags, row.title).toEqual((await mod.get(`/api/cases/${row.id}`).expect(200)).body.case.tags);
+    expect(listed.find((r) => r.id === c.id)!.tags).toEqual(expect.arrayContaining(['adc', 'gate-drive', 'zeta-rail']));
+    expect(listed.find((r) => r.id !== c.id)!.tags).toEqual([]);
+  });
+
   it('should keep comments: edit own, delete own, moderators hide', async () => {
     const c = (await author.post('/api/cases', { title: 'Comment thread case', summary: 'for comments' })).body.case;
     const mine = (await author.post(`/api/cases/${c.id}/comments`, { body: 'First **thought**' }).expect(201)).body.comment;

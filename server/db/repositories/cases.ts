@@ -3,12 +3,15 @@ import type { Actor } from '../../../shared/auth/roles';
 import { canModerate } from '../../../shared/auth/roles';
 import { CASE_STATUSES, type CaseListQuery } from '../../../shared/schemas/case';
 import type { CasesTable, Db } from '../database';
+import { isPostgres } from '../dialect';
 import { containsText } from './text-match';
 
 export type CaseRow = Selectable<CasesTable>;
 export type CaseRowWithAuthor = CaseRow & { author_name: string };
 /** The columns a row of the case list needs. */
 export type CaseListRow = Pick<CaseRow, 'id' | 'author_id' | 'title' | 'summary' | 'status' | 'cause' | 'created_at' | 'updated_at'> & { author_name: string };
+/** A row of the case list with its tags in order. */
+export type ListedCase = CaseListRow & { tags: string[] };
 
 const withAuthor = (db: Db) =>
   db.selectFrom('cases').innerJoin('users', 'users.id', 'cases.author_id').selectAll('cases').select('users.name as author_name');
@@ -112,6 +115,13 @@ async function cachedCount(db: Db, stamp: string, key: string, count: () => Prom
   return n;
 }
 
+/**
+ * A case's tags as one JSON array column, in the order `tagsOfCases` gives (the column's own
+ * collation): PostgreSQL's driver parses the json, SQLite hands back its text.
+ */
+const tagsColumn = (db: Db) =>
+  sql<string[] | string>`(select ${sql.raw(isPostgres(db) ? "coalesce(json_agg(case_tags.tag order by case_tags.tag), '[]'::json)" : 'json_group_array(case_tags.tag order by case_tags.tag)')} from case_tags where case_tags.case_id = cases.id)`;
+
 type Key = string | null;
 /** SQLite's order: NULL first, then text by code unit (BINARY collation). */
 const compareKeys = (a: Key, b: Key) => (a === b ? 0 : a === null ? -1 : b === null ? 1 : a < b ? -1 : 1);
@@ -122,7 +132,7 @@ const compareKeys = (a: Key, b: Key) => (a === b ? 0 : a === null ? -1 : b === n
  * sorts and cuts ids on its indexes alone (a deferred join); the wide rows of the page are read last.
  * `candidates`, when given, narrows the text filter to those ids (the substring test still decides).
  */
-export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidates?: number[]): Promise<{ rows: CaseListRow[]; total: number; totalCapped: boolean }> {
+export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidates?: number[]): Promise<{ rows: ListedCase[]; total: number; totalCapped: boolean }> {
   const sortName = q.sort.replace(/^-/, '') as keyof typeof SORT_COLUMNS;
   const column = SORT_COLUMNS[sortName];
   const dir = q.sort.startsWith('-') ? 'desc' : 'asc';
@@ -159,15 +169,16 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidat
   if (branches.length > 1) keyed.sort((a, b) => sign * (compareKeys(a.key, b.key) || a.id - b.id));
   const page = branches.length > 1 ? keyed.slice(offset, offset + q.pageSize) : keyed;
   if (page.length === 0) return { rows: [], total, totalCapped };
-  // only what a list row shows: narratives, setups and diagnosis JSON stay on disk
+  // only what a list row shows: narratives, setups and diagnosis JSON stay on disk; the tags come in the same round trip
   const narrow = await db
     .selectFrom('cases')
     .innerJoin('users', 'users.id', 'cases.author_id')
     .select(['cases.id', 'cases.author_id', 'cases.title', 'cases.summary', 'cases.status', 'cases.cause', 'cases.created_at', 'cases.updated_at', 'users.name as author_name'])
+    .select(tagsColumn(db).as('tags'))
     .where('cases.id', 'in', page.map((p) => p.id))
     .execute();
-  const byId = new Map(narrow.map((r) => [r.id, r]));
-  const rows = page.map((p) => byId.get(p.id)).filter((r): r is CaseListRow => r !== undefined);
+  const byId = new Map(narrow.map((r) => [r.id, { ...r, tags: typeof r.tags === 'string' ? (JSON.parse(r.tags) as string[]) : r.tags }]));
+  const rows = page.map((p) => byId.get(p.id)).filter((r): r is ListedCase => r !== undefined);
   return { rows, total, totalCapped };
 }
 

@@ -16,10 +16,10 @@ const NO_TRANSFORM = /(?:^|,)\s*no-transform\s*(?:,|$)/i;
  */
 export function gzipWholeAnswers(level: number): RequestHandler {
   return (req, res, next) => {
-    const accepts = req.headers['accept-encoding'];
-    if (accepts === undefined || req.method === 'HEAD' || req.acceptsEncodings('gzip') !== 'gzip') return next();
+    // a client that names no encoding gets the answer plain, as compression sends it
+    if (req.headers['accept-encoding'] === undefined || req.method === 'HEAD' || req.acceptsEncodings('gzip') !== 'gzip') return next();
     const write = res.write;
-    const end = res.end;
+    const end = res.end as (...a: unknown[]) => typeof res;
     let streamed = false;
     res.write = function (this: typeof res, ...args: unknown[]) {
       streamed = true;
@@ -38,14 +38,14 @@ export function gzipWholeAnswers(level: number): RequestHandler {
         res.getHeader('Content-Encoding') === undefined &&
         TEXT_TYPE.test(String(res.getHeader('Content-Type') ?? '')) &&
         !NO_TRANSFORM.test(String(res.getHeader('Cache-Control') ?? ''));
-      if (!whole) return (end as (...a: unknown[]) => typeof res).apply(this, args);
+      if (!whole) return end.apply(this, args);
       const body = typeof chunk === 'string' ? Buffer.from(chunk, (encoding as BufferEncoding | undefined) ?? 'utf8') : (chunk as Uint8Array);
       res.vary('Accept-Encoding');
-      if (body.length < GZIP_THRESHOLD_BYTES) return (end as (...a: unknown[]) => typeof res).apply(this, args);
+      if (body.length < GZIP_THRESHOLD_BYTES) return end.apply(this, args);
       const zipped = gzipSync(body, { level });
       res.setHeader('Content-Encoding', 'gzip');
       res.setHeader('Content-Length', zipped.length);
-      return (end as (...a: unknown[]) => typeof res).call(this, zipped);
+      return end.call(this, zipped);
     } as typeof res.end;
     next();
   };

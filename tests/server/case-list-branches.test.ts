@@ -6,7 +6,7 @@ import { migrateToLatest } from '../../server/db/migrate';
 import { listCases } from '../../server/db/repositories/cases';
 import { seedBenchCasebook } from '../../server/seed/bench/generate-cases';
 
-// The list reads an engineer's cases as two branches merged in memory; it must give exactly the
+// The list reads an engineer's cases as two branches merged in one statement; it must give exactly the
 // page a plain filter-and-sort over every visible case gives, for every sort and across pages.
 describe('case list visibility branches', () => {
   let db: Db;

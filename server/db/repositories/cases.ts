@@ -123,8 +123,6 @@ const tagsColumn = (db: Db) =>
   sql<string[] | string>`(select ${sql.raw(isPostgres(db) ? "coalesce(json_agg(case_tags.tag order by case_tags.tag), '[]'::json)" : 'json_group_array(case_tags.tag order by case_tags.tag)')} from case_tags where case_tags.case_id = cases.id)`;
 
 type Key = string | null;
-/** SQLite's order: NULL first, then text by code unit (BINARY collation). */
-const compareKeys = (a: Key, b: Key) => (a === b ? 0 : a === null ? -1 : b === null ? 1 : a < b ? -1 : 1);
 
 /**
  * One page of the cases the actor may see, filtered and sorted as asked, with the total (exact up
@@ -141,8 +139,8 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidat
   const branches = branchesFor(actor, q);
   let total = 0;
   let totalCapped = false;
-  const keyed: { id: number; key: Key }[] = [];
   const stamp = await casebookStamp(db);
+  const live: Branch[] = [];
   for (const branch of branches) {
     const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap, candidates ? 'index' : 'scan']), async () => {
       const counted = await db
@@ -153,32 +151,42 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidat
     });
     total += n;
     if (n >= cap) totalCapped = true;
-    if (n === 0) continue;
-    // ties broken by id in the same direction, so one index gives the whole order
-    const rows = await filtered(db, actor, branch, q, sortName === 'author', candidates)
+    if (n > 0) live.push(branch);
+  }
+  if (live.length === 0) return { rows: [], total, totalCapped };
+  // ties broken by id in the same direction, so one index gives each branch's whole order
+  const idsOf = (branch: Branch, limit: number, skip: number) =>
+    filtered(db, actor, branch, q, sortName === 'author', candidates)
       .select(['cases.id', sql<Key>`${sql.ref(column)}`.as('key')])
       .orderBy(sql.ref(column), dir)
       .orderBy('cases.id', dir)
-      // one branch cuts its page in SQL; two are merged here, so each brings everything up to the page's end
-      .limit(branches.length > 1 ? offset + q.pageSize : q.pageSize)
-      .offset(branches.length > 1 ? 0 : offset)
-      .execute();
-    keyed.push(...rows);
-  }
-  const sign = dir === 'desc' ? -1 : 1;
-  if (branches.length > 1) keyed.sort((a, b) => sign * (compareKeys(a.key, b.key) || a.id - b.id));
-  const page = branches.length > 1 ? keyed.slice(offset, offset + q.pageSize) : keyed;
-  if (page.length === 0) return { rows: [], total, totalCapped };
-  // only what a list row shows: narratives, setups and diagnosis JSON stay on disk; the tags come in the same round trip
+      .limit(limit)
+      .offset(skip);
+  // Two branches each bring everything up to the page's end and are merged in SQL (one statement,
+  // each branch still read in order from its index); one branch cuts its page itself.
+  const pageIds =
+    live.length === 1
+      ? idsOf(live[0], q.pageSize, offset)
+      : db
+          .selectFrom(idsOf(live[0], offset + q.pageSize, 0).as('first_branch'))
+          .selectAll()
+          .unionAll(db.selectFrom(idsOf(live[1], offset + q.pageSize, 0).as('second_branch')).selectAll())
+          .orderBy('key', dir)
+          .orderBy('id', dir)
+          .limit(q.pageSize)
+          .offset(offset);
+  // the deferred join: only the page's rows are read wide, and only what a list row shows
+  // (narratives, setups and diagnosis JSON stay on disk); the tags come in the same statement
   const narrow = await db
-    .selectFrom('cases')
+    .selectFrom(pageIds.as('page'))
+    .innerJoin('cases', 'cases.id', 'page.id')
     .innerJoin('users', 'users.id', 'cases.author_id')
     .select(['cases.id', 'cases.author_id', 'cases.title', 'cases.summary', 'cases.status', 'cases.cause', 'cases.created_at', 'cases.updated_at', 'users.name as author_name'])
     .select(tagsColumn(db).as('tags'))
-    .where('cases.id', 'in', page.map((p) => p.id))
+    .orderBy(sql.ref(column), dir)
+    .orderBy('cases.id', dir)
     .execute();
-  const byId = new Map(narrow.map((r) => [r.id, { ...r, tags: typeof r.tags === 'string' ? (JSON.parse(r.tags) as string[]) : r.tags }]));
-  const rows = page.map((p) => byId.get(p.id)).filter((r): r is ListedCase => r !== undefined);
+  const rows: ListedCase[] = narrow.map((r) => ({ ...r, tags: typeof r.tags === 'string' ? (JSON.parse(r.tags) as string[]) : r.tags }));
   return { rows, total, totalCapped };
 }
 

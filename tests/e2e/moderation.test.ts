@@ -274,7 +274,9 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
       await page.waitForURL(/\/lessons\/checklist$/);
       await page.getByRole('heading', { name: 'Bench checklist' }).waitFor();
       expect(await page.getByRole('navigation', { name: 'Main' }).count()).toBe(0);
-      // pinned last, so they close the list, in the order the moderator set
+      // pinned last, so they close the list, in the order the moderator set (the heading shows
+      // while the lessons still load: wait for a pinned one before reading the list)
+      await page.locator('article ol > li', { hasText: 'Check the channel attenuation setting' }).waitFor();
       const items = await page.locator('article ol > li').allTextContents();
       expect(items.at(-2)).toContain('Use the ground spring');
       expect(items.at(-1)).toContain('Check the channel attenuation setting');

@@ -11,21 +11,33 @@ import { openStore, SampleFileWriter, writePlotStore, type OpenStore } from './s
 const READ_CHUNK_BYTES = 1 << 19;
 
 /**
- * The bytes of a file, a chunk at a time, read into one buffer used again for every chunk: a
- * stream's fresh 512 KB buffer per chunk is freed only when the heap is next collected, and
- * with little else to collect they piled up into tens of MB of resident memory. Each chunk is
- * valid until the next is asked for; the reader copies what it keeps.
+ * The bytes of a file, a chunk at a time, read into two buffers used in turn: the next chunk is
+ * read (on libuv's thread pool) while the caller parses this one, so the parse does not wait
+ * for each read. Reusing the buffers matters too: a stream's fresh 512 KB buffer per chunk is
+ * freed only when the heap is next collected, and with little else to collect they piled up
+ * into tens of MB of resident memory. Each chunk is valid until the next is asked for; the
+ * reader copies what it keeps.
  */
 async function* fileChunks(file: string): AsyncGenerator<Buffer> {
   const handle = await open(file, 'r');
+  const buffers = [Buffer.allocUnsafe(READ_CHUNK_BYTES), Buffer.allocUnsafe(READ_CHUNK_BYTES)];
+  let position = 0;
+  let which = 0;
+  let reading: Promise<{ bytesRead: number }> | null = handle.read(buffers[which], 0, READ_CHUNK_BYTES, position);
   try {
-    const buffer = Buffer.allocUnsafe(READ_CHUNK_BYTES);
     for (;;) {
-      const { bytesRead } = await handle.read(buffer, 0, READ_CHUNK_BYTES, null);
+      const { bytesRead } = await reading;
+      reading = null;
       if (bytesRead === 0) return;
-      yield buffer.subarray(0, bytesRead);
+      const chunk = buffers[which].subarray(0, bytesRead);
+      position += bytesRead;
+      which = 1 - which;
+      reading = handle.read(buffers[which], 0, READ_CHUNK_BYTES, position);
+      yield chunk;
     }
   } finally {
+    // a caller that stops early leaves a read in flight: let it land before the file is closed
+    await reading?.catch(() => undefined);
     await handle.close();
   }
 }

@@ -57,13 +57,7 @@ export class ByteCaptureParser extends CaptureParser {
         this.readDataBytes(joined, 0, end > 0 && joined[end - 1] === 13 ? end - 1 : end, decode);
         start = at + 1;
       }
-      while (this.error === null) {
-        const at = bytes.indexOf(10, start);
-        if (at < 0) break;
-        this.line++;
-        this.readDataBytes(bytes, start, at > start && bytes[at - 1] === 13 ? at - 1 : at, decode);
-        start = at + 1;
-      }
+      start = this.readLines(bytes, start, decode);
       if (this.error === null && start < bytes.length) {
         if (bytes.length - start > MAX_LINE_CHARS) this.keepPending('x'.repeat(MAX_LINE_CHARS + 1));
         else this.pendingBytes = new Uint8Array(bytes.subarray(start)); // a copy (a Buffer's slice is a view): the caller may reuse the chunk
@@ -71,6 +65,24 @@ export class ByteCaptureParser extends CaptureParser {
     } catch (cause) {
       this.fail({ message: `the capture reader stopped unexpectedly (${String(cause)})` });
     }
+  }
+
+  /**
+   * Reads the whole lines of `bytes` from `start` on; returns where the unfinished last one
+   * starts. The loop is a function of its own: optimised in the middle of a chunk, a function
+   * that also held the chunk's tail (run once per chunk, after the loop) was thrown back to the
+   * interpreter at that tail, chunk after chunk, and the next chunk's lines ran slow until it
+   * was optimised again.
+   */
+  private readLines(bytes: Uint8Array, start: number, decode: (bytes: Uint8Array) => string): number {
+    while (this.error === null) {
+      const at = bytes.indexOf(10, start);
+      if (at < 0) break;
+      this.line++;
+      this.readDataBytes(bytes, start, at > start && bytes[at - 1] === 13 ? at - 1 : at, decode);
+      start = at + 1;
+    }
+    return start;
   }
 
   /** `readDataLine` over the bytes of one line; any line that is not plain data is decoded and read as text. */

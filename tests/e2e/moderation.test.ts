@@ -272,7 +272,8 @@ describe.skipIf(skipBrowser)('moderation in a real browser', () => {
 
       await page.getByRole('link', { name: 'Print checklist' }).click();
       await page.waitForURL(/\/lessons\/checklist$/);
-      await page.getByRole('heading', { name: 'Bench checklist' }).waitFor();
+      // the Lessons page's checklist panel has a heading of that name too: wait for the print view's own page heading
+      await page.getByRole('heading', { level: 1, name: 'Bench checklist' }).waitFor();
       expect(await page.getByRole('navigation', { name: 'Main' }).count()).toBe(0);
       // pinned last, so they close the list, in the order the moderator set (the heading shows
       // while the lessons still load: wait for a pinned one before reading the list)

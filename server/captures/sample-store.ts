@@ -130,11 +130,18 @@ export class FileSeries implements Series {
   private current: Float64Array = new Float64Array(0);
 
   get(i: number): number {
-    const k = i - this.lo;
-    return k >= 0 && k < this.span ? this.current[k] : this.miss(i);
+    let k = i - this.lo;
+    if (k < 0 || k >= this.span) {
+      this.turnTo(i);
+      k = i - this.lo;
+    }
+    // the value always comes from the array: were it also a call's result on a miss, optimised
+    // code would box every sample into a heap number to return either
+    return this.current[k];
   }
 
-  private miss(i: number): number {
+  /** Makes the page holding sample i the current one, reading it unless it is kept. */
+  private turnTo(i: number): void {
     const id = Math.floor(i / PAGE);
     let slot = -1;
     for (let k = 0; k < PAGES_KEPT; k++) if (this.pageIds[k] === id) slot = k;
@@ -147,7 +154,6 @@ export class FileSeries implements Series {
     this.lo = id * PAGE;
     this.span = Math.min(this.length, (id + 1) * PAGE) - this.lo;
     this.current = this.pages[slot];
-    return this.current[i - this.lo];
   }
 
   scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {

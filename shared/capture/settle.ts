@@ -38,25 +38,17 @@ const SIGNIFICANT = 4;
 export function fitSettle(timesS: Series, volts: Series, from: number, to: number, noiseV: number): SegmentSettle | null {
   let span = to - from;
   if (span < MIN_SPAN_SAMPLES) return null;
-  const mean = (center: number, width: number) => {
-    const a = Math.max(from, Math.round(center - width / 2));
-    const b = Math.min(to, a + width - 1);
-    let sum = 0;
-    for (let i = a; i <= b; i++) sum += volts.get(i);
-    return sum / (b - a + 1);
-  };
   for (;;) {
     const width = Math.max(3, Math.round(WINDOW_SHARE * span));
     const c1 = from + 0.1 * span;
     const c2 = from + 0.5 * span;
     const c3 = from + 0.9 * span;
-    const m1 = mean(c1, width);
-    const m2 = mean(c2, width);
-    const m3 = mean(c3, width);
+    const m1 = windowMean(volts, from, to, c1, width);
+    const m2 = windowMean(volts, from, to, c2, width);
+    const m3 = windowMean(volts, from, to, c3, width);
     const d1 = m1 - m2;
     const d2 = m2 - m3;
     const errorV = (SIGNIFICANT * noiseV * Math.SQRT2) / Math.sqrt(width);
-    const t = (c: number) => timesS.get(Math.round(c));
     const flatLevel = (m1 + m2 + m3) / 3;
     if (Math.abs(d1) <= errorV && Math.abs(d2) <= errorV) {
       if (Math.abs(m1 - m3) <= errorV || d1 === 0) return { kind: 'flat', startV: flatLevel, endV: flatLevel, finalV: flatLevel, tauS: Number.NaN, levelAt: () => flatLevel };
@@ -71,22 +63,31 @@ export function fitSettle(timesS: Series, volts: Series, from: number, to: numbe
     if (d1 * d2 < 0) return null;
     if (d2 === 0 || Math.abs(d1) <= Math.abs(d2) * (1 + 1e-9)) {
       // straight (or slightly accelerating) droop: a line through the outer windows
-      const slope = (m3 - m1) / (t(c3) - t(c1));
-      const t1 = t(c1);
+      const slope = (m3 - m1) / (timesS.get(Math.round(c3)) - timesS.get(Math.round(c1)));
+      const t1 = timesS.get(Math.round(c1));
       const levelAt = (tS: number) => m1 + slope * (tS - t1);
       return { kind: 'tilt', startV: m1, endV: m3, finalV: m3, tauS: Number.POSITIVE_INFINITY, levelAt };
     }
     const q = d1 / d2;
-    const stepS = (t(c3) - t(c1)) / 2;
+    const stepS = (timesS.get(Math.round(c3)) - timesS.get(Math.round(c1))) / 2;
     const tauS = stepS / Math.log(q);
     const finalV = m3 - d2 / (q - 1);
     const h = ((width * (timesS.get(to) - timesS.get(from))) / (to - from) / 2) / tauS;
     const windowGain = h > 1e-6 ? Math.sinh(h) / h : 1;
     const r1 = (m1 - finalV) / windowGain;
-    const t1 = t(c1);
+    const t1 = timesS.get(Math.round(c1));
     const levelAt = (tS: number) => finalV + r1 * Math.exp(-(tS - t1) / tauS);
     return { kind: 'corner', startV: levelAt(timesS.get(from)), endV: levelAt(timesS.get(to)), finalV, tauS, levelAt };
   }
+}
+
+/** Mean of `width` samples about `center`, within [from, to]. */
+function windowMean(volts: Series, from: number, to: number, center: number, width: number): number {
+  const a = Math.max(from, Math.round(center - width / 2));
+  const b = Math.min(to, a + width - 1);
+  let sum = 0;
+  for (let i = a; i <= b; i++) sum += volts.get(i);
+  return sum / (b - a + 1);
 }
 
 export interface SettleSummary {

@@ -47,15 +47,18 @@ export function classifyShape(input: ShapeInputs): WaveShape {
   const rangeV = levels.maxV - levels.minV;
   if (!(rangeV > 0)) return 'dc';
   if (stdV <= DC_RIPPLE_SHARE * Math.abs(meanV) || rangeV <= DC_NOISE_MULTIPLE * noiseV) return 'dc';
-  if (clipped && !isTwoLevel(volts, levels, CLIPPED_SQUARE_SHARE)) {
+  // the count near the states is the same for every test below: one pass over the record, made only if needed
+  let near: number | undefined;
+  const isTwoLevel = (share: number) => (near ??= countNearStates(volts, levels)) >= share * volts.length;
+  if (clipped && !isTwoLevel(CLIPPED_SQUARE_SHARE)) {
     return fundamentalShare !== null && fundamentalShare >= CLIPPED_SINE_POWER_SHARE ? 'sine' : 'other';
   }
   // a square puts at most 81 % of its power in the fundamental (8/π²), less with sharp edges;
   // a sine clipped at half its amplitude still has 95 % there
   // (and repeats: a single step's spectrum also crowds into its lowest bins)
   const sineLike =
-    fundamentalShare !== null && fundamentalShare >= SINE_POWER_SHARE && periodS !== null && !(transitions.length > 1 && isTwoLevel(volts, levels, ROUNDED_SQUARE_SHARE));
-  if (!sineLike && transitions.length > 0 && (drooped || (levels.twoStates && isTwoLevel(volts, levels, TWO_LEVEL_SHARE)))) {
+    fundamentalShare !== null && fundamentalShare >= SINE_POWER_SHARE && periodS !== null && !(transitions.length > 1 && isTwoLevel(ROUNDED_SQUARE_SHARE));
+  if (!sineLike && transitions.length > 0 && (drooped || (levels.twoStates && isTwoLevel(TWO_LEVEL_SHARE)))) {
     if (transitions.length === 1) return 'step';
     if (periodS === null) return transitions.length === 2 ? 'pulse' : 'other';
     const duty = dutyCycle(transitions, periodS);
@@ -65,14 +68,14 @@ export function classifyShape(input: ShapeInputs): WaveShape {
   return 'other';
 }
 
-function isTwoLevel(volts: Series, levels: StateLevels, share: number): boolean {
+/** The samples within 10 % of the range of either state (of the extremes without two states). */
+function countNearStates(volts: Series, levels: StateLevels): number {
   const bandV = 0.1 * (levels.maxV - levels.minV);
   const lowV = (levels.twoStates ? levels.baseV : levels.minV) + bandV;
   const highV = (levels.twoStates ? levels.topV : levels.maxV) - bandV;
   const between = new Float64Array(1);
   volts.scan(0, volts.length, (values) => countBetween(values, lowV, highV, between));
-  const near = volts.length - between[0];
-  return near >= share * volts.length;
+  return volts.length - between[0];
 }
 
 /** Mean time high (rise mid to next fall mid) over the period. */

@@ -4,27 +4,42 @@ import { asSeries, type Series } from './series';
 // narrowing histograms over further passes, so memory stays bounded however long the record.
 const IN_MEMORY_SPACINGS = 1 << 18;
 const SELECT_BINS = 4096;
+/**
+ * Distinct spacings counted in the first pass. A scope's time column is a start plus i times the
+ * interval, written to a few significant digits: its spacings, as doubles, take a few dozen values
+ * a rounding apart (more the more powers of two the record spans). When they take no more than
+ * this, the counts give the median exactly and no further pass is needed.
+ */
+const DISTINCT_SPACINGS = 256;
+// open addressing, at most half full
+const TALLY_SLOTS = 2 * DISTINCT_SPACINGS;
+const BITS = new Float64Array(1);
+const WORDS = new Int32Array(BITS.buffer);
 
 /**
  * The median spacing of the sample instants, in seconds: the sample interval of a uniformly
  * sampled capture, and a robust one of a capture with gaps or jitter in its time stamps.
  * Linear time (quickselect on a scratch copy of the spacings, or on a long record histograms
- * that narrow down on the middle one) rather than a sort of a million values. For an even
- * count, the mean of the two middle spacings.
+ * that narrow down on the middle one) rather than a sort of a million values; one pass when the
+ * spacings take few distinct values. For an even count, the mean of the two middle spacings.
  *
  * @param timesS strictly increasing sample instants, s
  * @param inMemorySpacings most spacings copied to select in memory (tests make it small to reach the histogram passes)
+ * @param distinctSpacings most distinct spacings counted in the first pass (tests set 0 to reach the other paths)
  * @returns the median interval, s, or null for fewer than 2 samples
  */
-export function medianSampleIntervalS(times: Float64Array | Series, inMemorySpacings = IN_MEMORY_SPACINGS): number | null {
+export function medianSampleIntervalS(times: Float64Array | Series, inMemorySpacings = IN_MEMORY_SPACINGS, distinctSpacings = DISTINCT_SPACINGS): number | null {
   const timesS = asSeries(times);
   const count = timesS.length - 1;
   if (count < 1) return null;
   const first = timesS.get(1) - timesS.get(0);
-  // [previous time, least spacing, greatest spacing, 1 once a spacing differs from the first]
-  const state = Float64Array.of(timesS.get(0), Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0);
-  timesS.scan(1, count + 1, (values) => spacingRange(values, first, state));
+  // [previous time, least spacing, greatest spacing, 1 once a spacing differs from the first, distinct spacings counted, 1 once there were too many]
+  const state = Float64Array.of(timesS.get(0), Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0, 0, distinctSpacings > 0 ? 0 : 1);
+  const distinct = new Float64Array(TALLY_SLOTS);
+  const tally = new Float64Array(TALLY_SLOTS);
+  timesS.scan(1, count + 1, (values) => spacingRange(values, first, state, Math.min(distinctSpacings, DISTINCT_SPACINGS), distinct, tally));
   if (state[3] === 0) return first;
+  if (state[5] === 0) return medianOfTally(distinct, tally, count);
   const minS = state[1];
   const maxS = state[2];
   if (count <= inMemorySpacings) {
@@ -47,23 +62,70 @@ export function medianSampleIntervalS(times: Float64Array | Series, inMemorySpac
  * (see `scan` in series.ts for why).
  */
 
-/** state: [previous time, least spacing, greatest spacing, 1 once a spacing differs from `first`] */
-function spacingRange(values: Float64Array, first: number, state: Float64Array): void {
+/**
+ * state: [previous time, least spacing, greatest spacing, 1 once a spacing differs from `first`,
+ * distinct spacings counted, 1 once there were more than `most`]. The counts are a hash table:
+ * `distinct` holds the spacings (0 in an empty slot: a spacing is positive), `tally` their counts.
+ */
+function spacingRange(values: Float64Array, first: number, state: Float64Array, most: number, distinct: Float64Array, tally: Float64Array): void {
   let before = state[0];
   let lo = state[1];
   let hi = state[2];
   let differs = state[3];
+  let size = state[4];
+  let overflow = state[5];
+  const mask = distinct.length - 1;
+  // the slot of the spacing before is tried first: consecutive spacings are often equal
+  let lastSlot = -1;
+  let lastD = 0;
   for (let j = 0; j < values.length; j++) {
     const d = values[j] - before;
     before = values[j];
     if (d !== first) differs = 1;
     if (d < lo) lo = d;
     if (d > hi) hi = d;
+    if (overflow !== 0) continue;
+    if (d === lastD) {
+      tally[lastSlot]++;
+      continue;
+    }
+    BITS[0] = d;
+    let slot = Math.imul(WORDS[0] ^ WORDS[1], 0x9e3779b1) >>> 23 & mask;
+    while (distinct[slot] !== 0 && distinct[slot] !== d) slot = (slot + 1) & mask;
+    if (distinct[slot] === 0) {
+      if (size === most) {
+        overflow = 1;
+        continue;
+      }
+      distinct[slot] = d;
+      size++;
+    }
+    tally[slot]++;
+    lastSlot = slot;
+    lastD = d;
   }
   state[0] = before;
   state[1] = lo;
   state[2] = hi;
   state[3] = differs;
+  state[4] = size;
+  state[5] = overflow;
+}
+
+/** The median of `count` spacings, counted in `distinct` and `tally` by `spacingRange`. */
+function medianOfTally(distinct: Float64Array, tally: Float64Array, count: number): number {
+  const order = Array.from(distinct.keys()).filter((slot) => distinct[slot] !== 0).sort((a, b) => distinct[a] - distinct[b]);
+  // the spacing of rank k (0-based) in sorted order
+  const atRank = (k: number) => {
+    let below = 0;
+    for (const slot of order) {
+      below += tally[slot];
+      if (k < below) return distinct[slot];
+    }
+    return distinct[order[order.length - 1]];
+  };
+  const upper = atRank(count >> 1);
+  return count % 2 === 1 ? upper : (atRank((count >> 1) - 1) + upper) / 2;
 }
 
 /** state: [previous time] */

@@ -131,9 +131,35 @@ describe('medianSampleIntervalS', () => {
           timesS[k] = timesS[k - 1] + 1e-9 * (random() < 0.05 ? 20 + jitter : 1 + 1e-6 * jitter);
         }
         const spacings = Array.from({ length: points - 1 }, (_, k) => timesS[k + 1] - timesS[k]);
-        expect(medianSampleIntervalS(timesS, keep)).toBe(sortedMedian(spacings));
+        expect(medianSampleIntervalS(timesS, keep, 0)).toBe(sortedMedian(spacings));
       }),
       { numRuns: 400 },
     );
+  });
+
+  it('should equal the median of the spacings when they take a few values, counted in one pass', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 2, max: 600 }), fc.integer(), fc.integer({ min: 1, max: 40 }), fc.constantFrom(1, 2, 32, 256), (points, seed, values, distinct) => {
+        const random = mulberry32(seed);
+        // spacings drawn from `values` candidates: more than `distinct` of them sends the count on to the other paths
+        const candidates = Array.from({ length: values }, () => 1e-9 * (1 + random()));
+        const timesS = new Float64Array(points);
+        for (let k = 1; k < points; k++) timesS[k] = timesS[k - 1] + candidates[Math.floor(random() * values)];
+        const spacings = Array.from({ length: points - 1 }, (_, k) => timesS[k + 1] - timesS[k]);
+        expect(medianSampleIntervalS(timesS, 1 << 18, distinct)).toBe(sortedMedian(spacings));
+      }),
+      { numRuns: 400 },
+    );
+  });
+
+  it('should equal the median of the spacings of a time column written to nine significant digits', () => {
+    // common practice, no source: a scope's CSV writes start + k·interval in scientific notation
+    for (const [startS, intervalS] of [[0, 1e-9], [-5e-6, 2e-9], [1.5e-3, 4e-10]]) {
+      const timesS = Float64Array.from({ length: 5001 }, (_, k) => Number((startS + k * intervalS).toExponential(8)));
+      const spacings = Array.from({ length: 5000 }, (_, k) => timesS[k + 1] - timesS[k]);
+      expect(new Set(spacings).size).toBeGreaterThan(1);
+      expect(medianSampleIntervalS(timesS)).toBe(sortedMedian(spacings));
+      expect(medianSampleIntervalS(timesS, 1 << 18, 0)).toBe(sortedMedian(spacings));
+    }
   });
 });

@@ -55,24 +55,22 @@ export function findTransitions(
 ): Transition[] {
   const timesS = asSeries(times);
   const volts = asSeries(samples);
-  const transitions: Transition[] = [];
   // [state: −1 low, 1 high, 0 not yet either; last sample at or below lowV; last at or above highV]
-  const walk = Float64Array.of(0, -1, -1);
-  volts.scan(0, volts.length, (values, firstIndex) => walkStates(values, firstIndex, timesS, volts, levels, noiseV, walk, transitions));
+  const walk = Int32Array.of(0, -1, -1);
+  // the walk only notes where each edge starts and ends (1 for a rise, −1 for a fall, then the two
+  // indices, all small integers); the transitions are measured afterwards. Built inside the walk,
+  // they made its optimised code depend on their shape, and it was thrown away run after run.
+  const found: number[] = [];
+  volts.scan(0, volts.length, (values, firstIndex) => walkStates(values, firstIndex, levels, walk, found));
+  const transitions: Transition[] = [];
+  for (let k = 0; k < found.length; k += 3) {
+    transitions.push(found[k] === 1 ? rise(timesS, volts, found[k + 1], found[k + 2], levels, noiseV) : fall(timesS, volts, found[k + 1], found[k + 2], levels, noiseV));
+  }
   return transitions;
 }
 
 /** One block of `findTransitions`' walk between the states (a module-level pass, as `scan` asks). */
-function walkStates(
-  values: Float64Array,
-  firstIndex: number,
-  timesS: Series,
-  volts: Series,
-  levels: ReferenceLevels,
-  noiseV: number,
-  walk: Float64Array,
-  transitions: Transition[],
-): void {
+function walkStates(values: Float64Array, firstIndex: number, levels: ReferenceLevels, walk: Int32Array, found: number[]): void {
   const { lowV, highV } = levels;
   let state = walk[0];
   let lastLow = walk[1];
@@ -81,11 +79,11 @@ function walkStates(
     const v = values[j];
     const i = firstIndex + j;
     if (v <= lowV) {
-      if (state === 1) transitions.push(fall(timesS, volts, lastHigh, i, levels, noiseV));
+      if (state === 1) found.push(-1, lastHigh, i);
       state = -1;
       lastLow = i;
     } else if (v >= highV) {
-      if (state === -1) transitions.push(rise(timesS, volts, lastLow, i, levels, noiseV));
+      if (state === -1) found.push(1, lastLow, i);
       state = 1;
       lastHigh = i;
     }

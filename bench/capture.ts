@@ -15,10 +15,13 @@
  * (capture-pool.ts: a 2 MB semi-space, i.e. a 6 MB young generation, and the old-space cap).
  * Figures: wall time from opening the file to the result, inside each process (start-up and
  * imports excluded on both sides), median of the runs; the app's peak resident set size
- * (getrusage maxRSS of its child process, a high-water mark no sampler can miss).
+ * (getrusage maxRSS of its child process, a high-water mark no sampler can miss); the app's
+ * garbage collections in that run and their time (node:v8's GCProfiler), which show what the
+ * analysis allocates per sample.
  * Targets: app ≤ 1.0× numpy's time at every size, app RSS ≤ 150 MB at 10M samples.
  */
 import { spawnSync } from 'node:child_process';
+import { GCProfiler } from 'node:v8';
 import { createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
 import { once } from 'node:events';
 import { tmpdir } from 'node:os';
@@ -50,6 +53,8 @@ interface Report {
   parseS?: number;
   analyzeS?: number;
   peakRssMB: number | null;
+  /** The app's garbage collections during the run, and their time (V8's GC profiler). */
+  gc?: { count: number; ms: number };
   reader?: string;
   analysis: Measured & Record<string, unknown>;
 }
@@ -74,14 +79,18 @@ async function writeCapture(file: string, samples: number): Promise<void> {
 }
 
 async function child(file: string): Promise<void> {
+  const gcProfiler = new GCProfiler();
+  gcProfiler.start();
   const t0 = performance.now();
   const result = await analyzeCaptureFile(file);
   const t1 = performance.now();
+  const collections = gcProfiler.stop().statistics;
   if (!result.ok) throw new Error(result.message);
   const a = result.analysis;
   const report: Report = {
     totalS: (t1 - t0) / 1000,
     peakRssMB: process.resourceUsage().maxRSS / 1024,
+    gc: { count: collections.length, ms: collections.reduce((sum, c) => sum + c.cost, 0) / 1000 },
     analysis: {
       points: a.points,
       baseV: a.baseV,
@@ -139,7 +148,7 @@ async function benchSize(samples: number, dir: string): Promise<{ ratio: number 
   }
   const ours = median(app);
   const rssMB = Math.max(...app.map((r) => r.peakRssMB ?? 0));
-  console.log(`  app:   ${fmt(ours.totalS)} s (parse to binary columns + full analysis), peak rss ${fmt(rssMB, 0)} MB`);
+  console.log(`  app:   ${fmt(ours.totalS)} s (parse to binary columns + full analysis), peak rss ${fmt(rssMB, 0)} MB, ${ours.gc?.count} collections taking ${fmt(ours.gc?.ms ?? 0, 0)} ms`);
   if (loadtxt.length === 0 && fromstring.length === 0) {
     console.log('  numpy: not available (install python3-numpy); no ratio');
     return { ratio: null, rssMB };

@@ -85,6 +85,11 @@ function spacingRange(values: Float64Array, first: number, state: Float64Array, 
     if (d < lo) lo = d;
     if (d > hi) hi = d;
     if (overflow !== 0) continue;
+    // 0 marks an empty slot: a spacing that is not positive (times scaled into a tie) leaves the median to the other paths
+    if (!(d > 0)) {
+      overflow = 1;
+      continue;
+    }
     if (d === lastD) {
       tally[lastSlot]++;
       continue;

@@ -152,6 +152,14 @@ describe('medianSampleIntervalS', () => {
     );
   });
 
+  it('should still equal the median when two instants tie, which the counting pass leaves to the other paths', () => {
+    // source: the definition of the median, checked against a plain sort
+    const timesS = new Float64Array([0, 1e-9, 1e-9, 2e-9, 3e-9, 3e-9, 3e-9, 4e-9]);
+    const spacings = Array.from({ length: 7 }, (_, k) => timesS[k + 1] - timesS[k]);
+    expect(medianSampleIntervalS(timesS)).toBe(sortedMedian(spacings));
+    expect(spacings.filter((d) => d === 0)).toHaveLength(3);
+  });
+
   it('should equal the median of the spacings of a time column written to nine significant digits', () => {
     // common practice, no source: a scope's CSV writes start + k·interval in scientific notation
     for (const [startS, intervalS] of [[0, 1e-9], [-5e-6, 2e-9], [1.5e-3, 4e-10]]) {

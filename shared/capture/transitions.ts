@@ -56,6 +56,8 @@ export function findTransitions(
   const timesS = asSeries(times);
   const volts = asSeries(samples);
   // [state: −1 low, 1 high, 0 not yet either; last sample at or below lowV; last at or above highV]
+  // Int32: a record of 2^31 samples or more (over 4 GiB of the shortest rows, twice the default
+  // upload limit) is beyond this walk
   const walk = Int32Array.of(0, -1, -1);
   // the walk only notes where each edge starts and ends (1 for a rise, −1 for a fall, then the two
   // indices, all small integers); the transitions are measured afterwards. Built inside the walk,

@@ -1,6 +1,6 @@
 import { CAUSE_LABELS, type DiagnosisInput, type Hypothesis } from '../schemas/diagnosis';
 import { diagnosisPlot } from './curves';
-import { eng } from './wording';
+import { eng, inSentence } from './wording';
 
 /** The parts of a capture analysis the overlay is placed by (a stored analysis has them). */
 export interface OverlayAnchor {
@@ -51,12 +51,12 @@ function unitShape(input: DiagnosisInput, hypothesis: Hypothesis): UnitShape | {
   const plot = diagnosisPlot(input, hypothesis.cause, hypothesis);
   if (plot?.kind === 'line' && plot.xUnit === 's') {
     const model = plot.series.find((s) => s.role === 'model');
-    if (!model) return { reason: `the ${name.toLowerCase()} model draws no step here` };
+    if (!model) return { reason: `the ${inSentence(name)} model draws no step here` };
     const startV = model.values[0];
     // the mean over the last tenth: a lightly damped ring may not have died out by the plot's end
     const tail = model.values.slice(Math.floor(model.values.length * 0.9));
     const finalV = tail.reduce((sum, v) => sum + v, 0) / tail.length;
-    if (!(Math.abs(finalV - startV) > 0)) return { reason: `the ${name.toLowerCase()} model predicts no step` };
+    if (!(Math.abs(finalV - startV) > 0)) return { reason: `the ${inSentence(name)} model predicts no step` };
     // the shape only: the capture's own levels give the scale
     return { x: plot.x, unit: model.values.map((v) => (v - startV) / (finalV - startV)), label: model.label.replace(/^Model: /, ''), what: plot.title };
   }
@@ -68,7 +68,7 @@ function unitShape(input: DiagnosisInput, hypothesis: Hypothesis): UnitShape | {
     const x = Array.from({ length: 481 }, (_, i) => (i - 40) * (tauS / 60));
     return { x, unit: x.map((t) => (t <= 0 ? 0 : -Math.expm1(-t / tauS))), label: `single-pole edge, rise time ${eng(riseS, 's')}`, what: `${name}: predicted edge` };
   }
-  return { reason: `the ${name.toLowerCase()} model predicts no edge shape for this setup` };
+  return { reason: `the ${inSentence(name)} model predicts no edge shape for this setup` };
 }
 
 /**
@@ -90,7 +90,7 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   const name = CAUSE_LABELS[hypothesis.cause];
   if (hypothesis.cause === 'faithful') return { ok: false, reason: 'the engine reads the trace as true, so there is no error to draw over it' };
   if (NO_EDGE_CAUSES.has(hypothesis.cause)) {
-    return { ok: false, reason: `the ${name.toLowerCase()} model predicts a frequency, droop or hum rather than an edge, so it is compared in numbers (see its plot) and not drawn over the capture` };
+    return { ok: false, reason: `the ${inSentence(name)} model predicts a frequency, droop or hum rather than an edge, so it is compared in numbers (see its plot) and not drawn over the capture` };
   }
   if (hypothesis.cause === 'termination-mismatch') {
     const drawn = terminationOverlay(input, hypothesis, anchor, extent);
@@ -103,8 +103,8 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
     return {
       ok: true,
       overlay: {
-        label: `Model (${name.toLowerCase()}): predicted top at ${eng(levelV, 'V')}`,
-        summary: `The ${name.toLowerCase()} hypothesis predicts an amplitude of ${eng(predictedV, 'V')}; the dashed line marks where the top would be, against ${eng(topV - baseV, 'V')} measured.`,
+        label: `Model (${inSentence(name)}): predicted top at ${eng(levelV, 'V')}`,
+        summary: `The ${inSentence(name)} hypothesis predicts an amplitude of ${eng(predictedV, 'V')}; the dashed line marks where the top would be, against ${eng(topV - baseV, 'V')} measured.`,
         timesS: [extent.startS, extent.endS],
         volts: [levelV, levelV],
       },
@@ -117,7 +117,7 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   const shape = unitShape(input, hypothesis);
   if ('reason' in shape) return { ok: false, reason: shape.reason };
   const modelT50S = crossingS(shape.x, shape.unit, 0.5);
-  if (modelT50S === undefined) return { ok: false, reason: `the ${name.toLowerCase()} model never reaches half its step` };
+  if (modelT50S === undefined) return { ok: false, reason: `the ${inSentence(name)} model never reaches half its step` };
   const shiftS = edge.t50S - modelT50S;
   const fromS = edgeIndex > 0 ? anchor.edges[edgeIndex - 1].t90S : extent.startS;
   const next = anchor.edges[edgeIndex + 1];
@@ -139,7 +139,7 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   return {
     ok: true,
     overlay: {
-      label: `Model (${name.toLowerCase()}): ${shape.label}`,
+      label: `Model (${inSentence(name)}): ${shape.label}`,
       summary: `${shape.what}, scaled to the capture's ${eng(baseV, 'V')} base and ${eng(topV, 'V')} top and aligned at the 50 % point of the ${edge.kind === 'rise' ? 'first rising' : 'first'} edge (${eng(edge.t50S, 's')}).`,
       timesS,
       volts,
@@ -171,7 +171,7 @@ function terminationOverlay(input: DiagnosisInput, hypothesis: Hypothesis, ancho
     });
   }
   return {
-    label: `Model (${CAUSE_LABELS['termination-mismatch'].toLowerCase()}): spikes at each rising edge`,
+    label: `Model (${inSentence(CAUSE_LABELS['termination-mismatch'])}): spikes at each rising edge`,
     summary: `${plot.summary} Drawn from the capture's ${eng(baseV, 'V')} base at each rising edge.`,
     timesS,
     volts,

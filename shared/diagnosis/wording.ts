@@ -21,3 +21,13 @@ export function factor(ratio: number): string {
 export function percent(pct: number): string {
   return `${Number(pct.toPrecision(3))} %`;
 }
+
+/**
+ * A label as words inside a sentence: "High-impedance probe on a 50 Ω input" → "high-impedance
+ * probe on a 50 Ω input". Only the first letter is lowered, and not when the first word is an
+ * acronym ("AC coupling droop" stays): lower-casing the whole label turned Ω into ω.
+ */
+export function inSentence(label: string): string {
+  const second = label.charAt(1);
+  return second !== '' && second === second.toUpperCase() && second !== second.toLowerCase() ? label : label.charAt(0).toLowerCase() + label.slice(1);
+}

@@ -88,18 +88,24 @@ describe('the model overlay on a capture', () => {
   });
 });
 
+/** The termination hypothesis of a 10x probe on a 50 Ω input, over one rising edge. */
+function terminationOverlay() {
+  const input: DiagnosisInput = {
+    probe: { attenuation: 10, tipCapacitanceF: 12e-12 },
+    scope: { attenuationSetting: 10, inputResistanceOhm: 50 },
+    circuit: { sourceResistanceOhm: 0 },
+    signal: { expectedAmplitudeV: 2, frequencyHz: 100e3, kind: 'square' },
+  };
+  const h = diagnose(input).hypotheses.find((x) => x.causes.length === 1 && x.cause === 'termination-mismatch')!;
+  const anchor = { baseV: 0, topV: 2.2e-4, edges: [{ kind: 'rise' as const, t10S: 1e-6, t50S: 1e-6, t90S: 1e-6 }] };
+  const result = captureOverlay(input, h, anchor, { startS: 0, endS: 5e-6 });
+  if (!result.ok) throw new Error(result.reason);
+  return result;
+}
+
 describe('the termination overlay', () => {
   it('should draw the predicted spike in volts at each rising edge, not a stretched step', () => {
-    const input: DiagnosisInput = {
-      probe: { attenuation: 10, tipCapacitanceF: 12e-12 },
-      scope: { attenuationSetting: 10, inputResistanceOhm: 50 },
-      circuit: { sourceResistanceOhm: 0 },
-      signal: { expectedAmplitudeV: 2, frequencyHz: 100e3, kind: 'square' },
-    };
-    const h = diagnose(input).hypotheses.find((x) => x.causes.length === 1 && x.cause === 'termination-mismatch')!;
-    const anchor = { baseV: 0, topV: 2.2e-4, edges: [{ kind: 'rise' as const, t10S: 1e-6, t50S: 1e-6, t90S: 1e-6 }] };
-    const result = captureOverlay(input, h, anchor, { startS: 0, endS: 5e-6 });
-    if (!result.ok) throw new Error(result.reason);
+    const result = terminationOverlay();
     // source: charge sharing C1/(C1 + C2) = 1/10 of the 2 V step, × the 10x channel = 2 V
     expect(Math.max(...result.overlay.volts)).toBeCloseTo(2, 3);
     expect(result.overlay.label).toMatch(/spikes/);
@@ -109,23 +115,17 @@ describe('the termination overlay', () => {
 describe("cause names inside the overlay's sentences", () => {
   it('should keep unit symbols and acronyms as written, lowering only a first word that is no acronym', () => {
     // common practice, no source: the ohm sign is a capital omega; lower-cased it reads as the angular-frequency ω
-    expect(inSentence('High-impedance probe on a 50 Ω input')).toBe('high-impedance probe on a 50 Ω input');
-    expect(inSentence('AC coupling droop or lost DC level')).toBe('AC coupling droop or lost DC level');
-    expect(inSentence('Ground-lead ringing')).toBe('ground-lead ringing');
-    expect(inSentence('')).toBe('');
+    const cases: [string, string][] = [
+      ['High-impedance probe on a 50 Ω input', 'high-impedance probe on a 50 Ω input'],
+      ['AC coupling droop or lost DC level', 'AC coupling droop or lost DC level'],
+      ['Ground-lead ringing', 'ground-lead ringing'],
+      ['', ''],
+    ];
+    for (const [label, inASentence] of cases) expect(inSentence(label)).toBe(inASentence);
   });
 
   it('should name the termination hypothesis with its ohm sign in the plot legend', () => {
-    const input: DiagnosisInput = {
-      probe: { attenuation: 10, tipCapacitanceF: 12e-12 },
-      scope: { attenuationSetting: 10, inputResistanceOhm: 50 },
-      circuit: { sourceResistanceOhm: 0 },
-      signal: { expectedAmplitudeV: 2, frequencyHz: 100e3, kind: 'square' },
-    };
-    const h = diagnose(input).hypotheses.find((x) => x.causes.length === 1 && x.cause === 'termination-mismatch')!;
-    const anchor = { baseV: 0, topV: 2.2e-4, edges: [{ kind: 'rise' as const, t10S: 1e-6, t50S: 1e-6, t90S: 1e-6 }] };
-    const result = captureOverlay(input, h, anchor, { startS: 0, endS: 5e-6 });
-    if (!result.ok) throw new Error(result.reason);
+    const result = terminationOverlay();
     expect(result.overlay.label).toContain('50 Ω input');
   });
 });

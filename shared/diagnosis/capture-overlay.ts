@@ -87,10 +87,11 @@ function unitShape(input: DiagnosisInput, hypothesis: Hypothesis): UnitShape | {
 export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, anchor: OverlayAnchor, extent: { startS: number; endS: number }): CaptureOverlayResult {
   const { baseV, topV } = anchor;
   if (baseV === null || topV === null || !(topV > baseV)) return { ok: false, reason: 'the capture has no two levels to scale a model to' };
-  const name = CAUSE_LABELS[hypothesis.cause];
+  // only ever inside a sentence here
+  const name = inSentence(CAUSE_LABELS[hypothesis.cause]);
   if (hypothesis.cause === 'faithful') return { ok: false, reason: 'the engine reads the trace as true, so there is no error to draw over it' };
   if (NO_EDGE_CAUSES.has(hypothesis.cause)) {
-    return { ok: false, reason: `the ${inSentence(name)} model predicts a frequency, droop or hum rather than an edge, so it is compared in numbers (see its plot) and not drawn over the capture` };
+    return { ok: false, reason: `the ${name} model predicts a frequency, droop or hum rather than an edge, so it is compared in numbers (see its plot) and not drawn over the capture` };
   }
   if (hypothesis.cause === 'termination-mismatch') {
     const drawn = terminationOverlay(input, hypothesis, anchor, extent);
@@ -103,8 +104,8 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
     return {
       ok: true,
       overlay: {
-        label: `Model (${inSentence(name)}): predicted top at ${eng(levelV, 'V')}`,
-        summary: `The ${inSentence(name)} hypothesis predicts an amplitude of ${eng(predictedV, 'V')}; the dashed line marks where the top would be, against ${eng(topV - baseV, 'V')} measured.`,
+        label: `Model (${name}): predicted top at ${eng(levelV, 'V')}`,
+        summary: `The ${name} hypothesis predicts an amplitude of ${eng(predictedV, 'V')}; the dashed line marks where the top would be, against ${eng(topV - baseV, 'V')} measured.`,
         timesS: [extent.startS, extent.endS],
         volts: [levelV, levelV],
       },
@@ -117,7 +118,7 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   const shape = unitShape(input, hypothesis);
   if ('reason' in shape) return { ok: false, reason: shape.reason };
   const modelT50S = crossingS(shape.x, shape.unit, 0.5);
-  if (modelT50S === undefined) return { ok: false, reason: `the ${inSentence(name)} model never reaches half its step` };
+  if (modelT50S === undefined) return { ok: false, reason: `the ${name} model never reaches half its step` };
   const shiftS = edge.t50S - modelT50S;
   const fromS = edgeIndex > 0 ? anchor.edges[edgeIndex - 1].t90S : extent.startS;
   const next = anchor.edges[edgeIndex + 1];
@@ -139,7 +140,7 @@ export function captureOverlay(input: DiagnosisInput, hypothesis: Hypothesis, an
   return {
     ok: true,
     overlay: {
-      label: `Model (${inSentence(name)}): ${shape.label}`,
+      label: `Model (${name}): ${shape.label}`,
       summary: `${shape.what}, scaled to the capture's ${eng(baseV, 'V')} base and ${eng(topV, 'V')} top and aligned at the 50 % point of the ${edge.kind === 'rise' ? 'first rising' : 'first'} edge (${eng(edge.t50S, 's')}).`,
       timesS,
       volts,

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { useWatch } from 'react-hook-form';
 import { observedProposals, type ObservedKey, type ObservedProposal } from '../../../../shared/capture/case-fill';
+import { inSentence } from '../../../../shared/diagnosis/wording';
 import type { Attachment } from '../../../../shared/schemas/case';
 import { Button } from '../../../components/ui/Button';
 import { ConfirmDialog } from '../../../components/ui/Dialog';
@@ -61,7 +62,7 @@ export function FillObservedFromCapture({ form, capture }: { form: CaseFormApi; 
         {inForm.map((p, i) => (
           <span key={p.field}>
             {i > 0 && ', '}
-            {p.label.replace(/^Observed /, '').toLowerCase()} <span className="font-mono">{shown(p)}</span>
+            {inSentence(p.label.replace(/^Observed /, ''))} <span className="font-mono">{shown(p)}</span>
           </span>
         ))}
         .

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { useWatch } from 'react-hook-form';
 import { describeSetting, settingConflicts, settingProposals, type ScopeKey, type SettingProposal } from '../../../../shared/capture/case-fill';
+import { inSentence } from '../../../../shared/diagnosis/wording';
 import type { Attachment } from '../../../../shared/schemas/case';
 import { Button } from '../../../components/ui/Button';
 import { ConfirmDialog } from '../../../components/ui/Dialog';
@@ -54,7 +55,7 @@ export function FillSetupFromCapture({ form, capture }: { form: CaseFormApi; cap
           {proposals.map((p, i) => (
             <span key={p.field}>
               {i > 0 && ', '}
-              {p.label.toLowerCase()} <span className="font-mono">{describeSetting(p.field, p.value)}</span>
+              {inSentence(p.label)} <span className="font-mono">{describeSetting(p.field, p.value)}</span>
             </span>
           ))}
           .

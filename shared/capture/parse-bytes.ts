@@ -54,7 +54,7 @@ export class ByteCaptureParser extends CaptureParser {
         }
         this.line++;
         const end = joined.length - 1;
-        this.readDataBytes(joined, 0, end > 0 && joined[end - 1] === 13 ? end - 1 : end, decode);
+        this.readDataBytes(joined, 0, end, decode);
         start = at + 1;
       }
       start = this.readLines(bytes, start, decode);
@@ -76,20 +76,77 @@ export class ByteCaptureParser extends CaptureParser {
    */
   private readLines(bytes: Uint8Array, start: number, decode: (bytes: Uint8Array) => string): number {
     const length = bytes.length;
+    const plainRows = this.layout!.metadataColumns === 0;
     while (this.error === null) {
+      if (plainRows) {
+        const next = this.readPlainRow(bytes, start, length);
+        if (next >= 0) {
+          start = next;
+          continue;
+        }
+      }
       // a loop, not indexOf: the builtin's call costs more than the twenty-odd bytes of a row
       let at = start;
       while (at < length && bytes[at] !== 10) at++;
       if (at === length) break;
       this.line++;
-      this.readDataBytes(bytes, start, at > start && bytes[at - 1] === 13 ? at - 1 : at, decode);
+      this.readDataBytes(bytes, start, at, decode);
       start = at + 1;
     }
     return start;
   }
 
-  /** `readDataLine` over the bytes of one line; any line that is not plain data is decoded and read as text. */
-  private readDataBytes(bytes: Uint8Array, start: number, end: number, decode: (bytes: Uint8Array) => string): void {
+  /**
+   * The common row read in one pass, its line end found where its last cell ends: every column
+   * read, each a plain number (as `plainNumber` takes it), the last one followed by LF or CRLF.
+   * Finding the line end first and then reading the cells went over every byte twice.
+   *
+   * @returns where the next line starts; −1 when the row is anything else (another column after
+   *   the last one read, a cell `plainNumber` gives up on, a row not taken, the chunk's end), for
+   *   the line-by-line path to read it again from `start`, as if this had not been tried
+   */
+  private readPlainRow(bytes: Uint8Array, start: number, length: number): number {
+    const separator = this.separatorCode;
+    const slots = this.slots;
+    const lastColumn = this.lastColumn;
+    const row = this.row;
+    const exp10s = this.exp10s;
+    const decimalComma = this.layout!.decimalComma;
+    for (let c = 0; c < row.length; c++) row[c] = Number.NaN;
+    let timeValue = Number.NaN;
+    for (let column = 0, i = start; ; column++) {
+      const slot = slots[column];
+      if (slot === SLOT_NONE) return -1;
+      const cellEnd = plainNumber(bytes, i, length, separator, decimalComma, slot === SLOT_TIME ? this.timeExp10 : exp10s[slot], true);
+      if (cellEnd < 0 || cellEnd === length) return -1;
+      if (slot === SLOT_TIME) timeValue = plainValue[0];
+      else row[slot] = plainValue[0];
+      const code = bytes[cellEnd];
+      if (column < lastColumn) {
+        if (code !== separator) return -1;
+        i = cellEnd + 1;
+        continue;
+      }
+      let next = cellEnd + 1;
+      if (code === 13) {
+        if (next === length || bytes[next] !== 10) return -1;
+        next++;
+      } else if (code !== 10) return -1;
+      this.line++;
+      const taken = this.takeRow(timeValue);
+      if (taken === ROW_TAKEN || taken === ROW_FAILED) return next;
+      this.line--;
+      return -1;
+    }
+  }
+
+  /**
+   * `readDataLine` over the bytes of one line, `lineEnd` at its LF (a CR before it is dropped);
+   * any line that is not plain data is decoded and read as text, CR included, so that the text
+   * reader drops the same one CR it drops from every line.
+   */
+  private readDataBytes(bytes: Uint8Array, start: number, lineEnd: number, decode: (bytes: Uint8Array) => string): void {
+    const end = lineEnd > start && bytes[lineEnd - 1] === 13 ? lineEnd - 1 : lineEnd;
     const layout = this.layout!;
     const separator = this.separatorCode;
     const slots = this.slots;
@@ -105,7 +162,7 @@ export class ByteCaptureParser extends CaptureParser {
       let cellEnd = -1;
       let value = Number.NaN;
       if (slot !== SLOT_NONE) {
-        cellEnd = plainNumber(bytes, i, end, separator, decimalComma, slot === SLOT_TIME ? this.timeExp10 : exp10s[slot]);
+        cellEnd = plainNumber(bytes, i, end, separator, decimalComma, slot === SLOT_TIME ? this.timeExp10 : exp10s[slot], false);
         if (cellEnd >= 0) value = plainValue[0];
       }
       if (cellEnd < 0) {
@@ -129,7 +186,7 @@ export class ByteCaptureParser extends CaptureParser {
     }
     // the rare line: metadata cells, a footer, a bad row, a control character; the text reader has the words for it
     this.line--;
-    const text = decode(bytes.subarray(start, end));
+    const text = decode(bytes.subarray(start, lineEnd));
     const found = text.search(CONTROL);
     if (found >= 0) {
       this.line++;
@@ -165,9 +222,10 @@ const plainValue = new Float64Array(1);
  * ten up to 1e22: one correctly rounded multiply or divide). Anything else (blanks, quotes, long
  * mantissas, huge exponents) gives −1 and is left to `readNumberBytes`.
  *
- * @returns where the cell ends (the separator or the line's end), its value in `plainValue`; −1 when it gave up
+ * @param lineEnds whether a CR or LF also ends the cell (the row read in one pass, `end` then being the chunk's end)
+ * @returns where the cell ends (the separator, the line's end or a line break), its value in `plainValue`; −1 when it gave up
  */
-function plainNumber(bytes: Uint8Array, i: number, end: number, separator: number, decimalComma: boolean, scaleExp10: number): number {
+function plainNumber(bytes: Uint8Array, i: number, end: number, separator: number, decimalComma: boolean, scaleExp10: number, lineEnds: boolean): number {
   const first = i < end ? bytes[i] : -1;
   const negative = first === 45;
   if (negative || first === 43) i++;
@@ -207,7 +265,7 @@ function plainNumber(bytes: Uint8Array, i: number, end: number, separator: numbe
     if (exponentDigits === 0) return -1;
     exp10 += exponentNegative ? -exponent : exponent;
   }
-  if (i < end && code !== separator) return -1;
+  if (i < end && code !== separator && !(lineEnds && (code === 10 || code === 13))) return -1;
   const totalExp10 = exp10 + scaleExp10;
   if (totalExp10 < -22 || totalExp10 > 22) return -1;
   const value = mantissa === 0 ? 0 : totalExp10 < 0 ? mantissa / POW10[-totalExp10] : mantissa * POW10[totalExp10];

@@ -31,8 +31,18 @@ export function faithfulPicture(setup: ResolvedSetup): Predicted {
 export const FAITHFUL_CONFIRM =
   'Measure the same node another way (a meter for a DC level, a second probe on another channel, or the probe on the calibrator first): the same reading confirms the circuit, not the measurement, is doing it.';
 
-/** Words for the faithful hypothesis. */
-export function faithfulWording(setup: ResolvedSetup): { explanation: string; fix: string } {
+/**
+ * Words for the faithful hypothesis. When the recorded setup itself predicts an error on what was
+ * observed (`contradicted`: a 10x probe recorded on a 1x channel), a true trace would need a
+ * recorded value to be wrong, and the words say that instead of vouching for the setup.
+ */
+export function faithfulWording(setup: ResolvedSetup, contradicted: readonly { explanation: string }[] = []): { explanation: string; fix: string } {
+  if (contradicted.length > 0) {
+    return {
+      explanation: `What was seen is what the signal itself would show, but the recorded setup does not allow a true trace. ${contradicted.map((c) => c.explanation).join(' ')} For the trace to be true, a recorded value must be wrong.`,
+      fix: "Check the recorded settings at the bench (the probe's switch, the channel's attenuation and input menus, the generator's load setting), correct the record and diagnose again.",
+    };
+  }
   const system = systemRiseTimeS(setup);
   const chain =
     system === undefined

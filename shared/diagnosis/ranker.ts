@@ -1,11 +1,12 @@
 import type { DiagnosisInput, DiagnosisResult, Hypothesis, HypothesisCause, Predicted, Risk } from '../schemas/diagnosis';
 import type { Candidate, Observed } from './types';
 import { observedOf, resolveSetup } from './defaults';
-import { applicability, compare, summarise, type Comparison } from './scoring';
+import { applicability, compare, summarise, type CompareOptions, type Comparison } from './scoring';
 import { contradictionTerms } from './evidence';
 import { faithfulPicture, faithfulWording, FAITHFUL_CONFIRM } from './faithful';
 import { composePredictions } from './combination';
 import { decideVerdict, fitGate, SIGNIFICANT_IMPROVEMENT } from './verdict';
+import { assertsFromRecord, contradictedAssertions, pictureAsSeen, recordedAssertion, type RecordedAssertion } from './record-consistency';
 import { setupRisks } from './safety-risks';
 import { MODELS } from './models';
 
@@ -36,6 +37,8 @@ interface Scored {
   /** Predicts something the faithful picture does not, beyond the models' accuracy. */
   distinct: boolean;
   fits: boolean;
+  /** Recorded assertions this hypothesis would need to be wrong (`record-consistency.ts`). */
+  contradicted?: RecordedAssertion[];
 }
 
 /**
@@ -47,7 +50,10 @@ interface Scored {
  * prior is the cause's applicability (from the size of the error it predicts) or, for a fitted
  * candidate, how often its hidden parameter is the culprit. A hypothesis fits when its χ² is
  * under the gate (`verdict.ts`) and, for a cause, it predicts something the faithful picture
- * does not. Returned: the faithful reading, the best candidate of each cause, and combined
+ * does not. A cause the recorded settings themselves imply (a 10x probe on a 1x channel) is
+ * charged, on what was observed, to every hypothesis whose picture leaves it out, the true trace
+ * included (`record-consistency.ts`): the record rules such a reading out. Returned: the
+ * faithful reading, the best candidate of each cause, and combined
  * causes that explain materially more than either alone; likelihoods are normalised over all
  * of them. The verdict's leading hypothesis comes first; no other is given more belief than it.
  */
@@ -79,6 +85,17 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
   const anyObserved = faithfulComparison.count > 0;
   const combos = combinations(singles, reference, observed, anyObserved);
   const causeHypotheses = [...bestPerCause.values(), ...combos];
+
+  // what the recorded setup itself says the scope shows where that is not a true trace: a
+  // hypothesis without such a cause (the true trace too) would need a recorded value to be wrong
+  const ideal = pictureAsSeen(reference, false, observed);
+  const assertions = singles.flatMap((s) => {
+    const [m] = s.members;
+    if (m.basis !== 'recorded' || !s.distinct || !assertsFromRecord(m.cause, setup)) return [];
+    const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options: compareOptionsOf(s.members, Boolean(m.overshootUpperBound)), explanation: m.explanation }, ideal);
+    return a ? [a] : [];
+  });
+  for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed);
 
   const verdict = decideVerdict({
     faithfulFits: faithful.fits,
@@ -159,6 +176,30 @@ function distinctFrom(reference: Predicted, predicted: Predicted, deviation: num
   );
 }
 
+/** How a hypothesis of these candidates is compared with what was seen. */
+function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean): CompareOptions {
+  return {
+    overshootUpperBound,
+    amplitudeSigma: Math.max(0, ...members.map((m) => m.amplitudeSigma ?? 0)),
+    predictsClipping: members.some((m) => m.estimates?.screenWindow === 'clipped'),
+  };
+}
+
+/**
+ * Charges a hypothesis for each recorded assertion it contradicts, as if the recorded cause's
+ * effect had been measured against its picture, and judges its fit again.
+ */
+function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[], observed: Observed): void {
+  const seen = pictureAsSeen(h.predicted, compareOptionsOf(h.members, false).predictsClipping ?? false, observed);
+  const contradicted = contradictedAssertions(h.causes, seen, assertions);
+  if (contradicted.length === 0) return;
+  const comparison = summarise([...h.comparison.terms, ...contradicted.flatMap((c) => c.terms)]);
+  h.logScore -= (comparison.chiSquare - h.comparison.chiSquare) / 2;
+  h.comparison = comparison;
+  h.contradicted = contradicted.map((c) => c.assertion);
+  h.fits = (h.causes[0] === 'faithful' || h.distinct) && comparison.chiSquare <= fitGate(comparison.count);
+}
+
 function scoreSingle(candidate: Candidate, reference: Predicted, observed: Observed): Scored {
   const predicted = merge(reference, candidate.predicted);
   return scoreOf([candidate], predicted, Boolean(candidate.overshootUpperBound), reference, observed, Math.log(priorOf(candidate)), candidate.deviation);
@@ -173,9 +214,7 @@ function scoreOf(
   logPrior: number,
   deviation: number,
 ): Scored {
-  const amplitudeSigma = Math.max(0, ...members.map((m) => m.amplitudeSigma ?? 0));
-  const predictsClipping = members.some((m) => m.estimates?.screenWindow === 'clipped');
-  const seen = compare(predicted, observed, { overshootUpperBound, amplitudeSigma, predictsClipping });
+  const seen = compare(predicted, observed, compareOptionsOf(members, overshootUpperBound));
   const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
   const distinct = distinctFrom(reference, predicted, deviation);
   return {
@@ -229,8 +268,8 @@ function combinations(singles: Scored[], reference: Predicted, observed: Observe
 function toHypothesis(h: Scored, likelihood: number, setup: Parameters<typeof faithfulWording>[0]): Hypothesis {
   const residual = h.observedResidual;
   if (h.causes[0] === 'faithful') {
-    const words = faithfulWording(setup);
-    return { cause: 'faithful', causes: ['faithful'], likelihood, residual, fits: h.fits, predicted: h.predicted, confirm: FAITHFUL_CONFIRM, ...words };
+    const words = faithfulWording(setup, h.contradicted);
+    return { cause: 'faithful', causes: ['faithful'], likelihood, residual, fits: h.fits, predicted: h.predicted, confirm: FAITHFUL_CONFIRM, ...words, ...ruledOut(h) };
   }
   const [a, b] = h.members;
   // JSON has no Infinity or NaN: a value a model could not put in numbers is left out
@@ -248,8 +287,11 @@ function toHypothesis(h: Scored, likelihood: number, setup: Parameters<typeof fa
     fix: b ? join(a.fix, b.fix) : a.fix,
     confirm: b ? join(a.confirm, b.confirm) : a.confirm,
     ...(Object.keys(estimates).length ? { estimates } : {}),
+    ...ruledOut(h),
   };
 }
+
+const ruledOut = (h: Scored) => (h.contradicted?.length ? { ruledOutBy: h.contradicted.map((a) => a.cause) } : {});
 
 function dedupe(risks: Risk[]): Risk[] {
   const seen = new Map<string, Risk>();

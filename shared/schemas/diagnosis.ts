@@ -205,6 +205,11 @@ export const hypothesisSchema = z.object({
   estimates: z.record(z.string(), z.union([z.number(), z.string()])).optional(),
   /** Root-sum-square of the log-ratio residuals against what was observed (0 when nothing was compared). */
   residual: z.number(),
+  /**
+   * Causes the recorded settings themselves imply (a 10x probe on a 1x channel) that this
+   * hypothesis leaves out, on what was observed: for it to hold, a recorded value must be wrong.
+   */
+  ruledOutBy: z.array(hypothesisCauseSchema).optional(),
 });
 export type Hypothesis = z.infer<typeof hypothesisSchema>;
 

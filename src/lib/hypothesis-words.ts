@@ -39,6 +39,12 @@ export function readingAgrees(unit: QuantityUnit, predicted: number, observed: n
   return observed !== 0 && Math.abs(predicted / observed - 1) <= 0.15;
 }
 
+/**
+ * How close the true trace must be to what was seen (log-ratio units, all readings together) for
+ * "the record rules it out" to be the whole story: 20 %, a rise time's slack (our choice).
+ */
+const SEEN_AS_TRUE_RESIDUAL = 0.2;
+
 export interface VerdictWords {
   tone: 'agree' | 'caution' | 'plain';
   title: string;
@@ -63,6 +69,11 @@ export function verdictWords(result: DiagnosisResult, observedAny: boolean): Ver
     };
   }
   if (result.verdict === 'unexplained' || !top) {
+    // the true trace fails on the record, not on what was seen: the engine's words say which recorded setting rules it out
+    const faithful = result.hypotheses.find((h) => h.cause === 'faithful');
+    if (faithful?.ruledOutBy?.length && faithful.residual <= SEEN_AS_TRUE_RESIDUAL) {
+      return { tone: 'plain', title: 'The record rules out what was seen', body: faithful.explanation };
+    }
     return {
       tone: 'plain',
       title: 'Nothing we model fits this trace',

@@ -36,6 +36,26 @@ describe.skipIf(skipBrowser)('verdicts, new setup fields and the safety note in 
     }
   });
 
+  it('should not call a trace true that the recorded channel setting rules out', async () => {
+    const { context, page } = await signedInPage(app.browser, app.server.baseUrl, 'engineer@falsetrace.test');
+    await page.goto(`${app.server.baseUrl}/diagnose`);
+    await page.getByRole('heading', { name: 'Diagnose', level: 1 }).waitFor();
+    await page.getByRole('button', { name: 'Consistent setup' }).click();
+    await page.locator('[data-testid="verdict"][data-verdict="faithful"]').waitFor();
+    // the same trace, but the channel recorded at 1x under the 10x probe: the scope would show a tenth
+    await page.getByLabel('Channel attenuation setting', { exact: true }).fill('1x');
+    await page.locator('[data-testid="verdict"][data-verdict="unexplained"]').waitFor();
+    await verdict(page).getByText('The record rules out what was seen').waitFor();
+    await verdict(page).getByText(/The channel assumes 1x but the probe divides by 10/).waitFor();
+    // every cause that leaves the recorded ratio out says so on its card (folded among the unlikely ones)
+    await page.getByText(/^Unlikely here/).click();
+    await page.getByText('ruled out by the record: Attenuation setting mismatch').first().waitFor();
+    await page.getByRole('button', { name: 'Diagnose', exact: true }).click();
+    await page.getByTestId('server-check').getByText(/agrees/).waitFor();
+    await screenshot(page, 'diagnose-record-rules-out');
+    await context.close();
+  });
+
   it('should name both causes of a 10x probe read at 1x that also rings on a 15 cm lead', async () => {
     const { context, page } = await signedInPage(app.browser, app.server.baseUrl, 'engineer@falsetrace.test');
     await page.goto(`${app.server.baseUrl}/diagnose?preset=ten-x-at-one-x-long-lead`);

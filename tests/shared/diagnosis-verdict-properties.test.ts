@@ -75,7 +75,14 @@ describe('verdict properties', () => {
           // channel matches the probe) and the true edge; where the record gives no edge, an
           // ideal one through the chain, its stages in quadrature
           const stages = [riseOf(s.scopeHz), s.attenuation === 1 ? riseOf(ONE_X_BANDWIDTH_HZ) : 0, s.limitHz ? riseOf(s.limitHz) : 0];
-          const riseS = s.signalRiseS ?? Math.sqrt(stages.reduce((a, t) => a + t * t, 0));
+          const chainS = Math.sqrt(stages.reduce((a, t) => a + t * t, 0));
+          // a recorded edge the chain can show as it is (the chain at most half as slow, so shown within 12 %);
+          // a slower chain would make the edge seen here impossible (the next property)
+          fc.pre(!(hasEdges && s.observeEdges && s.signalRiseS !== undefined) || chainS <= s.signalRiseS / 2);
+          // and a signal the chain passes whole: its bandwidth ten times the frequency (a sine then reads 0.5 % low,
+          // a square's settled top is reached); a narrower chain shrinks what is seen (the next property)
+          fc.pre(s.frequencyHz === undefined || Math.log(9) / (2 * Math.PI * chainS) >= 10 * s.frequencyHz);
+          const riseS = s.signalRiseS ?? chainS;
           const observed: NonNullable<DiagnosisInput['observed']> = { amplitudeV: s.amplitudeV };
           if (hasEdges && s.observeEdges) Object.assign(observed, { riseTimeS: riseS, overshootPct: 0 });
           const result = diagnose({
@@ -90,6 +97,49 @@ describe('verdict properties', () => {
         },
       ),
       { numRuns: 300 },
+    );
+  });
+
+  // The recorded setup itself predicts an error on what was observed, yet the trace looks like the
+  // true signal: a true trace would need a recorded value to be wrong, so nothing fits.
+  it('should answer unexplained, not faithful, when what was seen is the true signal but the record says the scope cannot show it', () => {
+    fc.assert(
+      fc.property(
+        fc.record({
+          amplitudeV: fc.double({ min: 1e-2, max: 20, noNaN: true }),
+          frequencyHz: fc.double({ min: 1e3, max: 10e6, noNaN: true }),
+          scopeHz: fc.double({ min: 50e6, max: 1e9, noNaN: true }),
+          // source: single-pole rise time; the chain at least 3x slower than the recorded edge shows it ≥ 3.2x slower
+          edgeShare: fc.double({ min: 0.01, max: 1 / 3, noNaN: true }),
+          which: fc.constantFrom('10x probe on a 1x channel', '1x probe on a 10x channel', '10x probe into 50 Ω', 'edge faster than the chain', 'bandwidth limit below the signal'),
+        }),
+        (s) => {
+          const input: DiagnosisInput = {
+            probe: { attenuation: 10 },
+            scope: { attenuationSetting: 10, bandwidthHz: s.scopeHz },
+            signal: { expectedAmplitudeV: s.amplitudeV, frequencyHz: s.frequencyHz, kind: 'square' },
+            observed: { amplitudeV: s.amplitudeV },
+          };
+          // common practice: the scope shows true × setting ÷ probe ratio; a passive 10x probe into 50 Ω divides by about 180,000 at DC
+          if (s.which === '10x probe on a 1x channel') input.scope!.attenuationSetting = 1;
+          if (s.which === '1x probe on a 10x channel') input.probe!.attenuation = 1;
+          if (s.which === '10x probe into 50 Ω') input.scope!.inputResistanceOhm = 50;
+          if (s.which === 'edge faster than the chain') {
+            const signalRiseS = s.edgeShare * riseOf(s.scopeHz);
+            input.signal!.riseTimeS = signalRiseS;
+            input.observed!.riseTimeS = signalRiseS;
+          }
+          // source: a square through a single pole at f/2 settles to tanh(T/4τ) = tanh(π/4) ≈ 0.66 of its step
+          if (s.which === 'bandwidth limit below the signal') input.scope!.bandwidthLimitHz = s.frequencyHz / 2;
+          const result = diagnose(input);
+          expect(result.verdict).toBe('unexplained');
+          const faithful = result.hypotheses.find((h) => h.cause === 'faithful')!;
+          expect(faithful.fits).toBe(false);
+          expect(faithful.explanation).toMatch(/a recorded value must be wrong/);
+          expect(faithful.explanation).not.toMatch(/probe ratio matches the channel/);
+        },
+      ),
+      { numRuns: 200 },
     );
   });
 

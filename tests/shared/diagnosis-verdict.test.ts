@@ -228,3 +228,61 @@ describe('a chain that slows a recorded edge', () => {
     expect(result.verdict).toBe('faithful');
   });
 });
+
+describe('an observation the recorded setup itself rules out', () => {
+  const squareAt = (amplitudeV: number): DiagnosisInput['signal'] => ({ expectedAmplitudeV: amplitudeV, frequencyHz: 1e3, kind: 'square' });
+
+  it('should not call the trace true when a 10x probe is recorded on a 1x channel and the true amplitude was seen', () => {
+    // common practice: the scope shows true × setting ÷ probe ratio, so 1 V reads 100 mV
+    const result = diagnose({ probe: { attenuation: 10 }, scope: { attenuationSetting: 1 }, signal: squareAt(1), observed: { amplitudeV: 1 } });
+    expect(result.verdict).toBe('unexplained');
+    const faithful = result.hypotheses.find((h) => h.cause === 'faithful')!;
+    expect(faithful.fits).toBe(false);
+    expect(faithful.explanation).toMatch(/100 mV instead of 1 V/);
+    expect(faithful.explanation).not.toMatch(/probe ratio matches the channel/);
+    // and no cause that leaves the recorded ratio out fits either (a ground lead adds ringing, not a factor of ten)
+    expect(result.hypotheses.filter((h) => h.fits)).toEqual([]);
+    expect(result.tags).toEqual([]);
+  });
+
+  it('should still diagnose the mismatch when what was seen is what the record predicts', () => {
+    const result = diagnose({ probe: { attenuation: 10 }, scope: { attenuationSetting: 1 }, signal: squareAt(1), observed: { amplitudeV: 0.1 } });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].cause).toBe('attenuation-mismatch');
+  });
+
+  it('should not call a DC level true through a passive 10x probe recorded into 50 Ω', () => {
+    // source: the DC divider (R_tip + 50 Ω)/50 Ω = 180,001 for a 9 MΩ tip resistor (DESIGN.md, termination mismatch)
+    const result = diagnose({ probe: { attenuation: 10 }, scope: { attenuationSetting: 10, inputResistanceOhm: 50 }, signal: { expectedAmplitudeV: 5, kind: 'dc' }, observed: { amplitudeV: 5 } });
+    expect(result.verdict).toBe('unexplained');
+  });
+
+  it('should take two models of one divider as one effect: a generator set for a high impedance into a recorded 50 Ω input', () => {
+    // source: a 50 Ω source into a 50 Ω load keeps R_L/(R_L + R_out) = 1/2 of its EMF; set for a
+    // high impedance, the EMF is the set amplitude, so 2 V set reads 1 V
+    const result = diagnose({
+      probe: { attenuation: 1 },
+      scope: { attenuationSetting: 1, inputResistanceOhm: 50 },
+      circuit: { sourceResistanceOhm: 50, loadResistanceOhm: 50 },
+      signal: { expectedAmplitudeV: 2, frequencyHz: 1e6, kind: 'sine', generatorLoad: 'high-z' },
+      observed: { amplitudeV: 1 },
+    });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses.filter((h) => h.fits).map((h) => h.cause)).toEqual(expect.arrayContaining(['generator-load', 'termination-mismatch']));
+  });
+
+  it('should not take an assumed value for a recorded one: a generator set for 50 Ω with neither its load nor the input recorded', () => {
+    // the engine assumes a 1 MΩ input (and so 2x), but the generator may drive an unrecorded 50 Ω load: nothing contradicts a true trace
+    const result = diagnose({ probe: { attenuation: 10 }, scope: { attenuationSetting: 10 }, signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'sine', generatorLoad: '50-ohm' }, observed: { amplitudeV: 1 } });
+    expect(result.verdict).toBe('faithful');
+  });
+
+  it('should judge the screen window only with the offset recorded', () => {
+    // common practice: 8 divisions of 1 V about a 0 V centre show −4 V to +4 V, so a 0–5 V square runs off
+    // the top; centred at 2.5 V they show −1.5 V to 6.5 V and it fits
+    const base: DiagnosisInput = { probe: { attenuation: 10 }, scope: { attenuationSetting: 10, voltsPerDiv: 1 }, signal: squareAt(5), observed: { amplitudeV: 5, clipped: false } };
+    expect(diagnose(base).verdict).toBe('faithful');
+    expect(diagnose({ ...base, scope: { ...base.scope, offsetV: 0 } }).verdict).toBe('unexplained');
+    expect(diagnose({ ...base, scope: { ...base.scope, offsetV: 2.5 } }).verdict).toBe('faithful');
+  });
+});

@@ -93,7 +93,7 @@ export function DiagnosisView({ result, observed, limit = 6, afterVerdict }: Dia
                   {i + 1}. {hypothesisName(h)}
                 </span>
                 <span className="mt-1 block">
-                  <FitBadge fits={h.fits} residual={h.residual} compared={judged} />
+                  <FitBadge fits={h.fits} residual={h.residual} compared={judged} ruledOutBy={h.ruledOutBy} />
                 </span>
                 <LikelihoodBar value={h.likelihood} strong={i === 0} />
               </summary>

@@ -39,7 +39,7 @@ export function HypothesisCard({ rank, hypothesis: h, input, lead = false }: Hyp
           {hypothesisName(h)}
         </h3>
         <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
-          <FitBadge fits={h.fits} residual={h.residual} compared={compared} />
+          <FitBadge fits={h.fits} residual={h.residual} compared={compared} ruledOutBy={h.ruledOutBy} />
           {combined && <span className="text-xs text-muted">Two causes at once</span>}
         </div>
         <LikelihoodBar value={h.likelihood} strong={lead} />

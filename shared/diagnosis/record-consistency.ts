@@ -1,0 +1,77 @@
+import type { HypothesisCause, Predicted } from '../schemas/diagnosis';
+import { compare, type CompareOptions, type Term } from './scoring';
+import type { Observed, ResolvedSetup } from './types';
+import { SIGNIFICANT_IMPROVEMENT } from './verdict';
+
+/**
+ * Causes whose prediction from the recorded setup is a fact of the recorded settings, and what
+ * must be recorded for it to be one. Left out: models that lean on a typical value or a bound
+ * rather than the record (compensation takes the probe as trimmed on a typical input, a ground
+ * lead's overshoot is an upper bound, loading rests on a source impedance that is usually an
+ * estimate, hum has no predicted level).
+ */
+const ASSERTS_FROM_RECORD: Partial<Record<HypothesisCause, (setup: ResolvedSetup) => boolean>> = {
+  'attenuation-mismatch': () => true,
+  'termination-mismatch': () => true,
+  // what the generator drives: recorded, or the scope input when its impedance is recorded (else an assumed 1 MΩ)
+  'generator-load': (setup) => setup.loadResistanceOhm !== undefined || !setup.assumed.has('scope.inputResistanceOhm'),
+  // the screen window needs the offset too: a trace moved up or down is seldom recorded
+  clipping: (setup) => setup.offsetV !== undefined,
+  aliasing: () => true,
+  // not through a typical 1x probe's bandwidth taken for an unrecorded one (a matched probe adds no stage)
+  bandwidth: (setup) => !(setup.assumed.has('probe.bandwidthHz') && setup.probeBandwidthHz !== undefined),
+  // the data-sheet corner is assumed unless recorded
+  'ac-coupling': (setup) => setup.acCornerHz !== undefined,
+  'common-mode': (setup) => setup.probeCmrrDb !== undefined,
+};
+
+/** Whether this cause's recorded prediction, for this setup, is something the record itself says. */
+export const assertsFromRecord = (cause: HypothesisCause, setup: ResolvedSetup) => ASSERTS_FROM_RECORD[cause]?.(setup) ?? false;
+
+/** Quantities a picture puts a number on, which an observation can check. */
+const PICTURED = ['amplitudeV', 'riseTimeS', 'overshootPct', 'tiltPct', 'frequencyHz'] as const;
+
+/** A predicted picture as it would read on the screen, limited to what was observed. */
+export function pictureAsSeen(picture: Predicted, clipped: boolean, observed: Observed): Observed {
+  const seen: Observed = {};
+  for (const key of PICTURED) if (observed[key] !== undefined && picture[key] !== undefined) seen[key] = picture[key];
+  if (observed.clipped !== undefined) seen.clipped = clipped;
+  return seen;
+}
+
+/** What the recorded setup itself says the scope shows, through one cause. */
+export interface RecordedAssertion {
+  cause: HypothesisCause;
+  predicted: Predicted;
+  options: CompareOptions;
+  explanation: string;
+}
+
+/**
+ * A cause predicted from the recorded setup alone (no value inferred) that moves an observed
+ * quantity away from the faithful picture beyond the models' accuracy asserts that it does: a
+ * 10x probe recorded on a 1x channel says the scope shows a tenth, whatever was seen.
+ *
+ * @param ideal the faithful picture as seen (`pictureAsSeen`)
+ * @returns the assertion, or undefined when the recorded cause leaves what was observed alone
+ */
+export function recordedAssertion(assertion: RecordedAssertion, ideal: Observed): RecordedAssertion | undefined {
+  return compare(assertion.predicted, ideal, assertion.options).chiSquare > SIGNIFICANT_IMPROVEMENT ? assertion : undefined;
+}
+
+/**
+ * The recorded assertions a hypothesis would need to be wrong, with the residuals charged for
+ * each: those of causes it does not name whose effect its own picture does not show (another
+ * model of the same effect, such as a 50 Ω input and a generator set for a high impedance
+ * halving the same signal, is not a contradiction).
+ *
+ * @param seen the hypothesis's picture as seen (`pictureAsSeen`)
+ */
+export function contradictedAssertions(causes: readonly HypothesisCause[], seen: Observed, assertions: readonly RecordedAssertion[]): { assertion: RecordedAssertion; terms: Term[] }[] {
+  return assertions.flatMap((assertion) => {
+    if (causes.includes(assertion.cause)) return [];
+    const against = compare(assertion.predicted, seen, assertion.options);
+    if (against.chiSquare <= SIGNIFICANT_IMPROVEMENT) return [];
+    return [{ assertion, terms: against.terms.map((t) => ({ ...t, quantity: `recorded ${assertion.cause}: ${t.quantity}` })) }];
+  });
+}

@@ -92,10 +92,10 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
   const assertions = singles.flatMap((s) => {
     const [m] = s.members;
     if (m.basis !== 'recorded' || !s.distinct || !assertsFromRecord(m.cause, setup)) return [];
-    const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options: compareOptionsOf(s.members, Boolean(m.overshootUpperBound)), explanation: m.explanation }, ideal);
+    const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options: compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), explanation: m.explanation }, ideal);
     return a ? [a] : [];
   });
-  for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed);
+  for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed, reference);
 
   const verdict = decideVerdict({
     faithfulFits: faithful.fits,
@@ -177,9 +177,10 @@ function distinctFrom(reference: Predicted, predicted: Predicted, deviation: num
 }
 
 /** How a hypothesis of these candidates is compared with what was seen. */
-function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean): CompareOptions {
+function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean, reference: Predicted): CompareOptions {
   return {
     overshootUpperBound,
+    trueAmplitudeV: reference.amplitudeV,
     amplitudeSigma: Math.max(0, ...members.map((m) => m.amplitudeSigma ?? 0)),
     predictsClipping: members.some((m) => m.estimates?.screenWindow === 'clipped'),
   };
@@ -189,8 +190,8 @@ function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean): C
  * Charges a hypothesis for each recorded assertion it contradicts, as if the recorded cause's
  * effect had been measured against its picture, and judges its fit again.
  */
-function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[], observed: Observed): void {
-  const seen = pictureAsSeen(h.predicted, compareOptionsOf(h.members, false).predictsClipping ?? false, observed);
+function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[], observed: Observed, reference: Predicted): void {
+  const seen = pictureAsSeen(h.predicted, compareOptionsOf(h.members, false, reference).predictsClipping ?? false, observed);
   const contradicted = contradictedAssertions(h.causes, seen, assertions);
   if (contradicted.length === 0) return;
   const comparison = summarise([...h.comparison.terms, ...contradicted.flatMap((c) => c.terms)]);
@@ -214,7 +215,7 @@ function scoreOf(
   logPrior: number,
   deviation: number,
 ): Scored {
-  const seen = compare(predicted, observed, compareOptionsOf(members, overshootUpperBound));
+  const seen = compare(predicted, observed, compareOptionsOf(members, overshootUpperBound, reference));
   const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
   const distinct = distinctFrom(reference, predicted, deviation);
   return {

@@ -12,7 +12,9 @@ import { SIGNIFICANT_IMPROVEMENT } from './verdict';
  */
 const ASSERTS_FROM_RECORD: Partial<Record<HypothesisCause, (setup: ResolvedSetup) => boolean>> = {
   'attenuation-mismatch': () => true,
-  'termination-mismatch': () => true,
+  // a probe with a tip divider; without one (1x) a 50 Ω input only loads the source, which is loading's
+  // estimate, and a generator set for 50 Ω already counts that divider in its set amplitude
+  'termination-mismatch': (setup) => setup.tipResistanceOhm > 0,
   // what the generator drives: recorded, or the scope input when its impedance is recorded (else an assumed 1 MΩ)
   'generator-load': (setup) => setup.loadResistanceOhm !== undefined || !setup.assumed.has('scope.inputResistanceOhm'),
   // the screen window needs the offset too: a trace moved up or down is seldom recorded

@@ -69,18 +69,33 @@ export interface CompareOptions {
   amplitudeSigma?: number;
   /** The hypothesis says the trace runs off the screen (the clipping model's estimate). */
   predictsClipping?: boolean;
+  /** The true amplitude, V: what an amplitude predicted as nothing (a DC level behind AC coupling) is judged against. */
+  trueAmplitudeV?: number;
 }
 
 /**
+ * An amplitude predicted as nothing fits any reading up to this share of the true amplitude (our
+ * choice: a blocked level still reads as a trace's offset and noise); a larger reading is charged
+ * as a ratio to it.
+ */
+export const ZERO_READING_SHARE = 0.05;
+
+/**
  * Log-ratio residuals ln(pred/obs) for each observed quantity the prediction covers; a
- * feature seen (ringing, hum) that the prediction lacks is charged `UNEXPLAINED_FEATURE`.
+ * feature seen (ringing, hum) that the prediction lacks is charged `UNEXPLAINED_FEATURE`, and an
+ * amplitude predicted as nothing is charged for a reading above `ZERO_READING_SHARE` of the true one.
  */
 export function compare(predicted: Predicted, observed: Observed, options: CompareOptions = {}): Comparison {
   const terms: Term[] = [];
   const ratio = (quantity: string, p: number | undefined, o: number | undefined, sigma: number) => {
     if (p !== undefined && o !== undefined && p > 0 && o > 0) terms.push({ quantity, residual: Math.log(p / o), sigma });
   };
-  ratio('amplitudeV', predicted.amplitudeV, observed.amplitudeV, Math.max(SIGMA.amplitude, options.amplitudeSigma ?? 0));
+  const amplitudeSigma = Math.max(SIGMA.amplitude, options.amplitudeSigma ?? 0);
+  ratio('amplitudeV', predicted.amplitudeV, observed.amplitudeV, amplitudeSigma);
+  const zeroReadingV = ZERO_READING_SHARE * (options.trueAmplitudeV ?? Number.NaN);
+  if (predicted.amplitudeV === 0 && observed.amplitudeV !== undefined && observed.amplitudeV > zeroReadingV) {
+    terms.push({ quantity: 'amplitudeV', residual: Math.log(zeroReadingV / observed.amplitudeV), sigma: amplitudeSigma });
+  }
   ratio('riseTimeS', predicted.riseTimeS, observed.riseTimeS, SIGMA.riseTime);
   if (predicted.overshootPct !== undefined && observed.overshootPct !== undefined) {
     const residual = Math.log(level(predicted.overshootPct) / level(observed.overshootPct));

@@ -271,10 +271,36 @@ describe('an observation the recorded setup itself rules out', () => {
     expect(result.hypotheses.filter((h) => h.fits).map((h) => h.cause)).toEqual(expect.arrayContaining(['generator-load', 'termination-mismatch']));
   });
 
+  it('should call the set amplitude true from a generator set for 50 Ω into a recorded 50 Ω input', () => {
+    // source: a generator set for a 50 Ω load raises its EMF to twice the setting, and its 50 Ω output into
+    // 50 Ω keeps half of that: the load sees the set amplitude. A 1x probe has no divider to mismatch.
+    const result = diagnose({
+      probe: { attenuation: 1 },
+      scope: { attenuationSetting: 1, inputResistanceOhm: 50 },
+      circuit: { sourceResistanceOhm: 50 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'sine', generatorLoad: '50-ohm' },
+      observed: { amplitudeV: 1 },
+    });
+    expect(result.verdict).toBe('faithful');
+  });
+
   it('should not take an assumed value for a recorded one: a generator set for 50 Ω with neither its load nor the input recorded', () => {
     // the engine assumes a 1 MΩ input (and so 2x), but the generator may drive an unrecorded 50 Ω load: nothing contradicts a true trace
     const result = diagnose({ probe: { attenuation: 10 }, scope: { attenuationSetting: 10 }, signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'sine', generatorLoad: '50-ohm' }, observed: { amplitudeV: 1 } });
     expect(result.verdict).toBe('faithful');
+  });
+
+  it('should let AC coupling explain a DC level read near zero, and not one read whole', () => {
+    // common practice: AC coupling blocks a DC level, so the trace sits at 0 V
+    const dcLevel = (amplitudeV: number, acCornerHz?: number): DiagnosisInput => ({ probe: { attenuation: 10 }, scope: { attenuationSetting: 10, coupling: 'ac', acCornerHz }, signal: { expectedAmplitudeV: 12, kind: 'dc' }, observed: { amplitudeV } });
+    const nearZero = diagnose(dcLevel(0.05));
+    expect(nearZero.verdict).toBe('measurement-error');
+    expect(nearZero.hypotheses[0].cause).toBe('ac-coupling');
+    const whole = diagnose(dcLevel(12));
+    expect(whole.hypotheses.find((h) => h.cause === 'ac-coupling')!.fits).toBe(false);
+    expect(whole.tags).not.toContain('dc-level-lost');
+    // with the corner recorded the record itself says the level cannot show
+    expect(diagnose(dcLevel(12, 10)).verdict).toBe('unexplained');
   });
 
   it('should judge the screen window only with the offset recorded', () => {

@@ -45,15 +45,15 @@ export async function startServer(config: Config) {
   }
 
   mail.start();
-  void mail.retryDue();
+  void mail.retryDue().catch((err) => logger.error({ err }, 'mail retry failed'));
   // after seeding, so a fresh casebook is indexed; a matching snapshot in DATA_DIR skips the rebuild
   // on its own thread and in the background: the server listens at once, searches wait for it (or 503)
   const searchStarted = performance.now();
   const search = await openCaseSearch(db, { dataDir: config.dataDir, worker: true, background: true });
-  search.ready.then(
-    async () => logger.info(`search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${await search.size()} cases in ${Math.round(performance.now() - searchStarted)} ms`),
-    () => undefined,
-  );
+  // a shutdown may close the worker between the load and this count: that is no error to crash on
+  search.ready
+    .then(async () => logger.info(`search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${await search.size()} cases in ${Math.round(performance.now() - searchStarted)} ms`))
+    .catch(() => undefined);
   const app = createApp({ db, mailer, mail, config, search }, { clientDir: CLIENT_DIR });
   const digestTimer = setInterval(
     () => void runDailyDigestIfDue({ db, mailer, mail, config }).catch((err) => logger.error({ err }, 'digest failed')),

@@ -95,7 +95,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options: compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), explanation: m.explanation }, ideal);
     return a ? [a] : [];
   });
-  for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed, reference);
+  for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed);
 
   const verdict = decideVerdict({
     faithfulFits: faithful.fits,
@@ -176,13 +176,16 @@ function distinctFrom(reference: Predicted, predicted: Predicted, deviation: num
   );
 }
 
+/** The hypothesis says the trace runs off the screen (the clipping model's estimate). */
+const predictsClipping = (members: Candidate[]) => members.some((m) => m.estimates?.screenWindow === 'clipped');
+
 /** How a hypothesis of these candidates is compared with what was seen. */
 function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean, reference: Predicted): CompareOptions {
   return {
     overshootUpperBound,
     trueAmplitudeV: reference.amplitudeV,
     amplitudeSigma: Math.max(0, ...members.map((m) => m.amplitudeSigma ?? 0)),
-    predictsClipping: members.some((m) => m.estimates?.screenWindow === 'clipped'),
+    predictsClipping: predictsClipping(members),
   };
 }
 
@@ -190,8 +193,8 @@ function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean, re
  * Charges a hypothesis for each recorded assertion it contradicts, as if the recorded cause's
  * effect had been measured against its picture, and judges its fit again.
  */
-function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[], observed: Observed, reference: Predicted): void {
-  const seen = pictureAsSeen(h.predicted, compareOptionsOf(h.members, false, reference).predictsClipping ?? false, observed);
+function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[], observed: Observed): void {
+  const seen = pictureAsSeen(h.predicted, predictsClipping(h.members), observed);
   const contradicted = contradictedAssertions(h.causes, seen, assertions);
   if (contradicted.length === 0) return;
   const comparison = summarise([...h.comparison.terms, ...contradicted.flatMap((c) => c.terms)]);

@@ -52,8 +52,9 @@ export function amplitudeSpectrum(volts: Series, sampleIntervalS: number): { spe
     input[k] = (input[k] - mean) * w;
     windowSum += w;
   }
-  const fft = new FFT(size);
-  const out = fft.createComplexArray() as number[];
+  const fft = fftOfSize(size);
+  // a typed array, not fft.js's plain one: no boxing, no change of element kind as it fills
+  const out = new Float64Array(2 * size);
   fft.realTransform(out, input);
   const bins = size / 2;
   const amplitudesV = new Float64Array(bins + 1);
@@ -108,6 +109,15 @@ function plotPoints(amplitudesV: Float64Array, binHz: number): CaptureSpectrum['
     values.push(amplitudesV[best]);
   }
   return { frequenciesHz, amplitudesV: values };
+}
+
+// An FFT's tables of sines and cosines (1 MB at 65,536 points) are built once per size and kept:
+// at most 13 sizes, one capture at a time per thread.
+const ffts = new Map<number, FFT>();
+function fftOfSize(size: number): FFT {
+  let fft = ffts.get(size);
+  if (!fft) ffts.set(size, (fft = new FFT(size)));
+  return fft;
 }
 
 function nextPowerOfTwo(value: number): number {

@@ -13,6 +13,10 @@
  *           with hysteresis, rise/fall time and period: less work than the app does.
  * The app's child runs with the heap limits the server gives its capture worker thread
  * (capture-pool.ts: a 2 MB semi-space, i.e. a 6 MB young generation, and the old-space cap).
+ * It runs twice over: warm, after the same warm-up the server's worker runs before its first
+ * upload (warm-up.ts; the server keeps that worker, so this is what every upload gets), and
+ * cold, a fresh process's first capture (a server run with CAPTURE_WARM_UP=0, whose worker
+ * starts with the upload). The target is judged on the warm figure; both are printed.
  * Figures: wall time from opening the file to the result, inside each process (start-up and
  * imports excluded on both sides), median of the runs; the app's peak resident set size
  * (getrusage maxRSS of its child process, a high-water mark no sampler can miss); the app's
@@ -30,6 +34,7 @@ import { fileURLToPath } from 'node:url';
 import { performance } from 'node:perf_hooks';
 import { analyzeCaptureFile } from '../server/captures/analyze-file';
 import { CAPTURE_WORKER_HEAP_MB, CAPTURE_WORKER_YOUNG_MB } from '../server/captures/capture-pool';
+import { warmUpCaptureAnalysis } from '../server/captures/warm-up';
 import { gaussian, mulberry32, secondOrderStep, squareWaveform } from '../shared/capture/synthetic';
 
 const SIZES = [1_000_000, 10_000_000];
@@ -78,7 +83,8 @@ async function writeCapture(file: string, samples: number): Promise<void> {
   await once(out, 'finish');
 }
 
-async function child(file: string): Promise<void> {
+async function child(file: string, warm: boolean): Promise<void> {
+  if (warm) await warmUpCaptureAnalysis();
   const gcProfiler = new GCProfiler();
   gcProfiler.start();
   const t0 = performance.now();
@@ -109,11 +115,11 @@ async function child(file: string): Promise<void> {
   process.stdout.write(`${JSON.stringify(report)}\n`);
 }
 
-function runApp(file: string): Report {
+function runApp(file: string, warm: boolean): Report {
   const script = fileURLToPath(import.meta.url);
   // the capture worker's resourceLimits, as V8 flags: V8 makes the young generation three semi-spaces
   const limits = [`--max-semi-space-size=${CAPTURE_WORKER_YOUNG_MB / 3}`, `--max-old-space-size=${CAPTURE_WORKER_HEAP_MB}`];
-  const run = spawnSync(process.execPath, [...limits, ...process.execArgv, script, 'child', file], { encoding: 'utf8', maxBuffer: 1 << 24 });
+  const run = spawnSync(process.execPath, [...limits, ...process.execArgv, script, 'child', file, warm ? 'warm' : 'cold'], { encoding: 'utf8', maxBuffer: 1 << 24 });
   if (run.status !== 0) throw new Error(`app run failed: ${run.stderr}`);
   return JSON.parse(run.stdout.trim().split('\n').pop()!) as Report;
 }
@@ -137,18 +143,22 @@ async function benchSize(samples: number, dir: string): Promise<{ ratio: number 
   await writeCapture(file, samples);
   console.log(`\n${samples.toLocaleString('en')} samples: ${fmt(statSync(file).size / 2 ** 20, 1)} MB of CSV`);
   const app: Report[] = [];
+  const cold: Report[] = [];
   const loadtxt: Report[] = [];
   const fromstring: Report[] = [];
   for (let run = 0; run < RUNS; run++) {
-    app.push(runApp(file));
+    app.push(runApp(file, true));
+    cold.push(runApp(file, false));
     const a = runNumpy(file, 'loadtxt');
     const b = runNumpy(file, 'fromstring');
     if (a) loadtxt.push(a);
     if (b) fromstring.push(b);
   }
   const ours = median(app);
-  const rssMB = Math.max(...app.map((r) => r.peakRssMB ?? 0));
-  console.log(`  app:   ${fmt(ours.totalS)} s (parse to binary columns + full analysis), peak rss ${fmt(rssMB, 0)} MB, ${ours.gc?.count} collections taking ${fmt(ours.gc?.ms ?? 0, 0)} ms`);
+  const first = median(cold);
+  const rssMB = Math.max(...[...app, ...cold].map((r) => r.peakRssMB ?? 0));
+  console.log(`  app:   ${fmt(ours.totalS)} s warm (parse to binary columns + full analysis), peak rss ${fmt(rssMB, 0)} MB, ${ours.gc?.count} collections taking ${fmt(ours.gc?.ms ?? 0, 0)} ms`);
+  console.log(`         ${fmt(first.totalS)} s cold (a fresh process's first capture, code not yet optimised)`);
   if (loadtxt.length === 0 && fromstring.length === 0) {
     console.log('  numpy: not available (install python3-numpy); no ratio');
     return { ratio: null, rssMB };
@@ -159,7 +169,7 @@ async function benchSize(samples: number, dir: string): Promise<{ ratio: number 
   }
   const numpy = candidates.reduce((best, c) => (c.totalS < best.totalS ? c : best));
   const ratio = ours.totalS / numpy.totalS;
-  console.log(`  ratio app/numpy (fastest numpy reader, ${numpy.reader}): ${fmt(ratio)}×`);
+  console.log(`  ratio app/numpy (fastest numpy reader, ${numpy.reader}): ${fmt(ratio)}× warm, ${fmt(first.totalS / numpy.totalS)}× cold`);
   const a = ours.analysis;
   const b = numpy.analysis;
   console.log(`  app   measured: base ${fmt(a.baseV ?? 0, 5)} V, top ${fmt(a.topV ?? 0, 5)} V, rise ${ns(a.riseTimeS)}, fall ${ns(a.fallTimeS)}, period ${ns(a.periodS)}, ${a.edges} edges`);
@@ -183,7 +193,7 @@ async function main(): Promise<void> {
       const timeOk = r.ratio !== null && r.ratio <= TARGET_RATIO;
       const rssOk = r.samples < 10_000_000 || r.rssMB <= TARGET_RSS_MB;
       console.log(
-        `capture ${r.samples.toLocaleString('en')} samples: ratio ${r.ratio === null ? 'n/a' : `${fmt(r.ratio)}×`} (target ≤ ${TARGET_RATIO}×) ${timeOk ? 'met' : 'MISSED'}; ` +
+        `capture ${r.samples.toLocaleString('en')} samples: ratio ${r.ratio === null ? 'n/a' : `${fmt(r.ratio)}×`} warm (target ≤ ${TARGET_RATIO}×) ${timeOk ? 'met' : 'MISSED'}; ` +
           `rss ${fmt(r.rssMB, 0)} MB${r.samples >= 10_000_000 ? ` (target ≤ ${TARGET_RSS_MB} MB) ${rssOk ? 'met' : 'MISSED'}` : ''}`,
       );
     }
@@ -192,5 +202,5 @@ async function main(): Promise<void> {
   }
 }
 
-if (process.argv[2] === 'child') await child(process.argv[3]);
+if (process.argv[2] === 'child') await child(process.argv[3], process.argv[4] === 'warm');
 else await main();

@@ -24,6 +24,8 @@ export interface Config {
   uploadsDir?: string;
   /** CAPTURE_LIMIT_BYTES: the largest capture upload (attachments and analysis); default 2 GiB. */
   captureLimitBytes?: number;
+  /** CAPTURE_WARM_UP (default on): keep the capture worker running and warmed up, so uploads run in optimised code. */
+  captureWarmUp?: boolean;
 }
 
 /** Captures from deep-memory scopes run to hundreds of megabytes of CSV; they stream to disk, so the limit is the disk's. */
@@ -79,5 +81,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     metricsToken: metricsTokenFrom(env.METRICS_TOKEN),
     uploadsDir: env.UPLOADS_DIR?.trim() ? path.resolve(env.UPLOADS_DIR.trim()) : undefined,
     captureLimitBytes: byteLimit('CAPTURE_LIMIT_BYTES', env.CAPTURE_LIMIT_BYTES, DEFAULT_CAPTURE_LIMIT_BYTES),
+    captureWarmUp: !isOff(env.CAPTURE_WARM_UP),
   };
 }

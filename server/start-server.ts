@@ -54,6 +54,17 @@ export async function startServer(config: Config) {
   search.ready
     .then(async () => logger.info(`search index ${search.origin === 'snapshot' ? 'restored from snapshot' : 'built'}: ${await search.size()} cases in ${Math.round(performance.now() - searchStarted)} ms`))
     .catch(() => undefined);
+  // after the index, so the warm-up does not slow the start on 2 cores
+  let stopping = false;
+  if (config.captureWarmUp) {
+    void search.ready
+      .catch(() => undefined)
+      // a server stopped before its index was ready starts no worker
+      .then(() => (stopping ? null : captureWorkers.keepWarm()))
+      .then((ms) => ms !== null && logger.info(`capture worker warmed up in ${Math.round(ms)} ms`))
+      // a shutdown during the warm-up closes the pool under it (no failure); a real one is logged, and uploads still work cold
+      .catch((err) => stopping || logger.warn({ err }, 'capture worker warm-up failed'));
+  }
   const app = createApp({ db, mailer, mail, config, search }, { clientDir: CLIENT_DIR });
   const digestTimer = setInterval(
     () => void runDailyDigestIfDue({ db, mailer, mail, config }).catch((err) => logger.error({ err }, 'digest failed')),
@@ -65,9 +76,11 @@ export async function startServer(config: Config) {
   const server: Server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, (err?: Error) => (err ? reject(err) : resolve(s)));
   }).catch(async (err: NodeJS.ErrnoException) => {
+    stopping = true;
     clearInterval(digestTimer);
     mail.stop();
     await search.close();
+    await captureWorkers.close();
     mailer.close();
     await fake?.close();
     await db.destroy();
@@ -80,6 +93,7 @@ export async function startServer(config: Config) {
    * them), and closes everything else. Idle keep-alive connections are closed as they go idle.
    */
   async function close(graceMs = 0) {
+    stopping = true;
     const closed = new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeIdleConnections();
     const sweep = setInterval(() => server.closeIdleConnections(), 100);

@@ -20,13 +20,17 @@ export const CAPTURE_WORKER_YOUNG_MB = 6;
 export const CAPTURE_QUEUE = 8;
 
 let pool: Piscina | undefined;
+// set by `keepWarm`: the worker warms up as it starts and stays for the server's life
+let warm = false;
 
 function thePool(): Piscina {
+  const entry = workerEntry('capture-worker', new URL('./capture-worker.ts', import.meta.url));
   pool ??= new Piscina({
-    ...workerEntry('capture-worker', new URL('./capture-worker.ts', import.meta.url)),
+    ...entry,
+    workerData: { ...entry.workerData, warmUp: warm },
     // one capture at a time: on 2 cores the other one stays with requests
     maxThreads: 1,
-    minThreads: 0,
+    minThreads: warm ? 1 : 0,
     idleTimeout: 30_000,
     maxQueue: CAPTURE_QUEUE,
     resourceLimits: { maxOldGenerationSizeMb: CAPTURE_WORKER_HEAP_MB, maxYoungGenerationSizeMb: CAPTURE_WORKER_YOUNG_MB },
@@ -54,9 +58,26 @@ export const captureWorkers = {
     run<{ ok: true; analysis: CaptureAnalysis } | { ok: false; message: string }>({ op: 'analyze', file, options, plotDir: output.plotDir }),
   /** As `buildPlotStore`. */
   buildPlotStore: (file: string, dir: string) => run<{ ok: true } | { ok: false; message: string }>({ op: 'plot', file, dir }),
+  /**
+   * Starts the worker the server keeps: it runs the warm-up (warm-up.ts) before its first task
+   * and is not let go when idle (a new one, should it die, warms up again), so every upload runs
+   * in optimised code. Resolves with the warm-up's time, ms.
+   */
+  async keepWarm(): Promise<number> {
+    if (!warm) {
+      warm = true;
+      // a cold worker started by an upload before this finishes what it has, and goes
+      const cold = pool;
+      pool = undefined;
+      void cold?.close();
+    }
+    const { warmUpMs } = await run<{ warmUpMs: number | null }>({ op: 'warm-up' });
+    return warmUpMs ?? 0;
+  },
   async close() {
     const p = pool;
     pool = undefined;
+    warm = false;
     await p?.destroy();
   },
 };

@@ -1,14 +1,22 @@
 // Runs in a capture worker thread (see capture-pool.ts): parsing and analysing a capture file
 // is long CPU work that would otherwise hold every request behind it.
+import { workerData } from 'node:worker_threads';
 import type { CaptureParseOptions } from '../../shared/capture/types';
 import { analyzeCaptureFile } from './analyze-file';
 import { buildPlotStore } from './capture-store';
+import { warmUpCaptureAnalysis } from './warm-up';
 
 export type CaptureTask =
   | { op: 'analyze'; file: string; options: Pick<CaptureParseOptions, 'channel'>; plotDir?: string }
-  | { op: 'plot'; file: string; dir: string };
+  | { op: 'plot'; file: string; dir: string }
+  | { op: 'warm-up' };
+
+// A worker the server keeps warm runs the warm-up before it takes its first task (the pool
+// hands it none until this module has loaded).
+const warmUpMs: number | null = (workerData as { warmUp?: boolean } | undefined)?.warmUp ? await warmUpCaptureAnalysis() : null;
 
 export default async function run(task: CaptureTask) {
   if (task.op === 'analyze') return analyzeCaptureFile(task.file, task.options, { plotDir: task.plotDir });
+  if (task.op === 'warm-up') return { warmUpMs };
   return buildPlotStore(task.file, task.dir);
 }

@@ -54,7 +54,8 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
   let server: RunningServer;
   let browser: Browser;
   beforeAll(async () => {
-    [server, browser] = await Promise.all([startRealServer(), launchBrowser()]);
+    // with its log, to see the capture worker warmed up before the first upload
+    [server, browser] = await Promise.all([startRealServer({ LOG_LEVEL: 'info' }), launchBrowser()]);
   });
   afterAll(async () => {
     await browser?.close();
@@ -82,6 +83,8 @@ describe.skipIf(skipBrowser)('capture plots in a real browser', () => {
       await page.getByLabel('Kind', { exact: true }).selectOption('pulse');
       await page.getByLabel('Amplitude', { exact: true }).fill('1 V');
 
+      // the server warms its capture worker once search is ready, and the upload runs on that worker
+      await expect.poll(() => server.log(), { timeout: 60_000 }).toMatch(/capture worker warmed up in \d+ ms/);
       await dropFile(page, 'clock-edge.csv', ringingCsv());
       const offer = page.getByRole('region', { name: 'Observed values from clock-edge.csv' });
       await offer.waitFor();

@@ -43,5 +43,8 @@ describe('the capture upload limit', () => {
     expect(loadConfig({ DATA_DIR: dataDir }).captureLimitBytes).toBeGreaterThanOrEqual(1e9);
     expect(loadConfig({ DATA_DIR: dataDir, CAPTURE_LIMIT_BYTES: '5000000000' }).captureLimitBytes).toBe(5e9);
     expect(() => loadConfig({ DATA_DIR: dataDir, CAPTURE_LIMIT_BYTES: '1.5GB' })).toThrow(/CAPTURE_LIMIT_BYTES/);
+    // and the capture worker is kept warm unless CAPTURE_WARM_UP turns it off
+    expect(loadConfig({ DATA_DIR: dataDir }).captureWarmUp).toBe(true);
+    expect(loadConfig({ DATA_DIR: dataDir, CAPTURE_WARM_UP: '0' }).captureWarmUp).toBe(false);
   });
 });

@@ -1,10 +1,11 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { Piscina } from 'piscina';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { analyzeCaptureFile } from '../../server/captures/analyze-file';
 import { captureWorkers } from '../../server/captures/capture-pool';
+import { warmUpCaptureAnalysis } from '../../server/captures/warm-up';
 import { stepCsv } from './helpers/fixtures';
 import { createTestContext, signedIn, type TestContext } from './helpers/test-context';
 
@@ -65,6 +66,29 @@ describe('capture analysis on the worker pool', () => {
     expect(here.ok).toBe(true);
     const res = await eng.upload('/api/captures/analyze', csv, 'edge.csv', 'text/csv').expect(200);
     expect(res.body).toEqual(JSON.parse(JSON.stringify(here.ok && here.analysis)));
+  });
+
+  it('should keep one worker, warmed up before its first capture, and analyse on it exactly as before', async () => {
+    const warmUps = () => readdirSync(tmpdir()).filter((name) => name.startsWith('falsetrace-warm-up-')).length;
+    const before = warmUps();
+    const warmUpMs = await captureWorkers.keepWarm();
+    expect(warmUpMs).toBeGreaterThan(0);
+    // the same worker answers again: a new one would have run (and timed) a warm-up of its own
+    expect(await captureWorkers.keepWarm()).toBe(warmUpMs);
+    expect(warmUps()).toBe(before);
+    const csv = stepCsv(5000);
+    const file = path.join(dir, 'warm-edge.csv');
+    writeFileSync(file, csv);
+    const here = await analyzeCaptureFile(file);
+    const res = await eng.upload('/api/captures/analyze', csv, 'edge.csv', 'text/csv').expect(200);
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(here.ok && here.analysis)));
+    expect(await captureWorkers.keepWarm()).toBe(warmUpMs);
+  });
+
+  it('should run the warm-up through parse, analysis and plot store, and leave nothing behind', async () => {
+    const before = readdirSync(tmpdir()).filter((name) => name.startsWith('falsetrace-warm-up-')).length;
+    expect(await warmUpCaptureAnalysis(2000, 1)).toBeGreaterThan(0);
+    expect(readdirSync(tmpdir()).filter((name) => name.startsWith('falsetrace-warm-up-')).length).toBe(before);
   });
 
   it('should refuse with a 503 and say so when the queue of captures is full', async () => {

@@ -92,7 +92,9 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
   const assertions = singles.flatMap((s) => {
     const [m] = s.members;
     if (m.basis !== 'recorded' || !s.distinct || !assertsFromRecord(m.cause, setup)) return [];
-    const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options: compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), explanation: m.explanation }, ideal);
+    // what the setup allows is its flat level: a needle as tall as the true step is no true trace
+    const options = { ...compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), needleReadings: false };
+    const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options, explanation: m.explanation }, ideal);
     return a ? [a] : [];
   });
   for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed);
@@ -186,6 +188,7 @@ function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean, re
     trueAmplitudeV: reference.amplitudeV,
     amplitudeSigma: Math.max(0, ...members.map((m) => m.amplitudeSigma ?? 0)),
     predictsClipping: predictsClipping(members),
+    needleReadings: true,
   };
 }
 

@@ -71,6 +71,21 @@ export interface CompareOptions {
   predictsClipping?: boolean;
   /** The true amplitude, V: what an amplitude predicted as nothing (a DC level behind AC coupling) is judged against. */
   trueAmplitudeV?: number;
+  /**
+   * Where the prediction is a train of needles (`spikeV`: a passive probe into 50 Ω), an amplitude
+   * read off it may be the flat level between them, one needle's height or, for a periodic signal,
+   * the needles' peak to peak (up at one edge, down at the next): the reading nearest the
+   * observation is compared. Off where the question is what a setup allows, not how it was read.
+   */
+  needleReadings?: boolean;
+}
+
+/** The amplitude readings a needle train allows, as `needleReadings` says. */
+function amplitudeReadingsV(predicted: Predicted): number[] {
+  const spikeV = predicted.spikeV;
+  const flat = predicted.amplitudeV === undefined ? [] : [predicted.amplitudeV];
+  if (spikeV === undefined || !(spikeV > 0)) return flat;
+  return [...flat, spikeV, ...(predicted.frequencyHz === undefined ? [] : [2 * spikeV])];
 }
 
 /**
@@ -91,7 +106,10 @@ export function compare(predicted: Predicted, observed: Observed, options: Compa
     if (p !== undefined && o !== undefined && p > 0 && o > 0) terms.push({ quantity, residual: Math.log(p / o), sigma });
   };
   const amplitudeSigma = Math.max(SIGMA.amplitude, options.amplitudeSigma ?? 0);
-  ratio('amplitudeV', predicted.amplitudeV, observed.amplitudeV, amplitudeSigma);
+  const observedV = observed.amplitudeV;
+  const readings = options.needleReadings && observedV !== undefined && observedV > 0 ? amplitudeReadingsV(predicted).filter((v) => v > 0) : [];
+  const nearestV = readings.length ? readings.reduce((a, b) => (Math.abs(Math.log(b / observedV!)) < Math.abs(Math.log(a / observedV!)) ? b : a)) : predicted.amplitudeV;
+  ratio('amplitudeV', nearestV, observedV, amplitudeSigma);
   const zeroReadingV = ZERO_READING_SHARE * (options.trueAmplitudeV ?? Number.NaN);
   if (predicted.amplitudeV === 0 && observed.amplitudeV !== undefined && observed.amplitudeV > zeroReadingV) {
     terms.push({ quantity: 'amplitudeV', residual: Math.log(zeroReadingV / observed.amplitudeV), sigma: amplitudeSigma });

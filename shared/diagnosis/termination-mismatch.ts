@@ -2,6 +2,7 @@ import type { Risk } from '../schemas/diagnosis';
 import type { Candidate, ModelContext, ResolvedSetup } from './types';
 import { eng, factor, percent } from './wording';
 import { add, complex, divide, magnitude, resistorParallelCapacitor } from './complex';
+import { shownRiseTimeS } from './bandwidth';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -129,10 +130,13 @@ export function terminationPicture(setup: ResolvedSetup, inputResistanceOhm = se
   const edge = terminationEdge(d);
   const gain = setup.probeAttenuation;
   const f = setup.frequencyHz;
+  // a needle a few ns wide is cut by the edge that makes it and by the chain that shows it:
+  // both in quadrature, as for any edge on the screen
+  const edgeRiseS = shownRiseTimeS(setup);
   if (setup.hasEdges) {
     const halfPeriodS = f === undefined ? Infinity : 1 / (2 * f);
     if (halfPeriodS >= FLAT_TOP_TIME_CONSTANTS * edge.timeConstantS) {
-      const spike = edge.jump > edge.settle * 1.01 ? edge.jump * spikeEdgeFactor(edge.timeConstantS, setup.signalRiseTimeS) * gain : undefined;
+      const spike = edge.jump > edge.settle * 1.01 ? edge.jump * spikeEdgeFactor(edge.timeConstantS, edgeRiseS) * gain : undefined;
       return { ratio: edge.settle * gain, spikeRatio: spike, edge };
     }
     if (edge.timeConstantS > 0 && edge.jump > edge.settle * 1.01) {
@@ -140,7 +144,7 @@ export function terminationPicture(setup: ResolvedSetup, inputResistanceOhm = se
       // steady state swings 2·g·A/(1 + e^(−T/2τ)) peak to peak (g = C1/(C1+C2)); its needles are
       // what the screen shows. source: first-order high-pass step response, steady state
       const x = halfPeriodS / edge.timeConstantS;
-      const spikeFactor = spikeEdgeFactor(edge.timeConstantS, setup.signalRiseTimeS);
+      const spikeFactor = spikeEdgeFactor(edge.timeConstantS, edgeRiseS);
       const peakToPeak = (2 * edge.jump * spikeFactor) / (1 + Math.exp(-x));
       return { ratio: peakToPeak * gain, spikeRatio: edge.jump * spikeFactor * gain, edge };
     }

@@ -124,3 +124,66 @@ describe('termination as a complex divider', () => {
     expect(result.verdict).toBe('measurement-error');
   });
 });
+
+describe('needles on a passive probe into 50 Ω, as read', () => {
+  // a 10x probe with 10 pF at the tip, compensated: C1 = n·C_tip/(n − 1), C2 = n·C_tip (DESIGN, termination)
+  const c1 = (10 * 10e-12) / 9;
+  const c2 = 10 * 10e-12;
+  const tauS = ((9e6 * 50) / (9e6 + 50)) * (c1 + c2);
+  const square = (scopeHz: number, observedV: number): DiagnosisInput => ({
+    probe: { attenuation: 10, tipCapacitanceF: 10e-12, tipResistanceOhm: 9e6 },
+    scope: { attenuationSetting: 10, inputResistanceOhm: 50, bandwidthHz: scopeHz },
+    signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, kind: 'square' },
+    observed: { amplitudeV: observedV },
+  });
+
+  /**
+   * Peak of a jump decaying with τ, seen through an edge of 10–90 % time t_r: a ramp of t_r/0.8
+   * convolved, by sums over a fine grid, with e^(−t/τ). source: convolution of the edge with the
+   * divider's step response (charge sharing, then the R·C decay), done numerically here.
+   */
+  function needleShare(riseS: number): number {
+    const rampS = riseS / 0.8;
+    const dt = rampS / 1000;
+    let peak = 0;
+    for (let t = 0; t < rampS + 5 * tauS; t += 20 * dt) {
+      let sum = 0;
+      for (let s = 0; s < Math.min(t, rampS); s += dt) sum += Math.exp(-(t - s) / tauS) * (dt / rampS);
+      peak = Math.max(peak, sum);
+    }
+    return peak;
+  }
+
+  it('should read an amplitude as tall as the step as the needles, not as a true trace', () => {
+    // a 1 GHz chain (0.35 ns) barely cuts a 5.6 ns needle: on the screen's scale it stands about the full 1 V
+    const result = diagnose(square(1e9, 0.97));
+    expect(result.verdict).toBe('measurement-error');
+    const top = result.hypotheses[0];
+    expect(top.cause).toBe('termination-mismatch');
+    // source: single-pole rise time 0.35/BW, then the numerical needle above
+    expect(top.predicted.spikeV!).toBeCloseTo(needleShare(Math.log(9) / (2 * Math.PI * 1e9)), 2);
+    expect(result.hypotheses.find((h) => h.cause === 'faithful')!.fits).toBe(false);
+  });
+
+  it('should shrink the needles through a slow chain, and read a peak to peak of two of them', () => {
+    // 50 MHz: a 7 ns edge on a 5.6 ns needle leaves about half of it
+    const share = needleShare(Math.log(9) / (2 * Math.PI * 50e6));
+    expect(share).toBeGreaterThan(0.45);
+    expect(share).toBeLessThan(0.55);
+    const one = diagnose(square(50e6, share));
+    expect(one.hypotheses[0].predicted.spikeV!).toBeCloseTo(share, 2);
+    expect(one.verdict).toBe('measurement-error');
+    // up at one edge, down at the next: a scope's peak to peak of the needle train
+    expect(diagnose(square(50e6, 2 * share)).verdict).toBe('measurement-error');
+    // a full 1 V read there is neither one needle nor two, and no true trace either
+    expect(diagnose(square(50e6, 1.5 * share)).verdict).toBe('unexplained');
+  });
+
+  it('should not take a needle for the amplitude where the record says what the setup allows', () => {
+    // the flat level is what rules a true trace out: the faithful reading is charged even when
+    // its amplitude equals the needles' height
+    const result = diagnose(square(1e9, 0.97));
+    const faithful = result.hypotheses.find((h) => h.cause === 'faithful')!;
+    expect(faithful.explanation).toMatch(/a recorded value must be wrong/);
+  });
+});

@@ -6,7 +6,7 @@ import { contradictionTerms } from './evidence';
 import { faithfulPicture, faithfulWording, FAITHFUL_CONFIRM } from './faithful';
 import { composePredictions } from './combination';
 import { decideVerdict, fitGate, SIGNIFICANT_IMPROVEMENT } from './verdict';
-import { assertsFromRecord, contradictedAssertions, pictureAsSeen, recordedAssertion, type RecordedAssertion } from './record-consistency';
+import { assertsFromRecord, contradictedAssertions, pictureAsSeen, predictsFromRecord, recordedAssertion, type RecordedAssertion } from './record-consistency';
 import { setupRisks } from './safety-risks';
 import { MODELS } from './models';
 
@@ -83,6 +83,8 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     if (!current || s.logScore > current.logScore) bestPerCause.set(s.causes[0], s);
   }
   const anyObserved = faithfulComparison.count > 0;
+  // a recorded cause that moves the trace on the record alone, not on a typical value standing in for one
+  const predictedByRecord = (s: Scored) => s.distinct && s.members.every((m) => m.basis === 'recorded' && predictsFromRecord(m.cause, setup));
   const combos = combinations(singles, reference, observed, anyObserved);
   const causeHypotheses = [...bestPerCause.values(), ...combos];
 
@@ -104,7 +106,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     faithfulChiSquare: faithful.comparison.chiSquare,
     fittingCauseChiSquares: causeHypotheses.filter((h) => h.fits).map((h) => h.comparison.chiSquare),
     observed: anyObserved,
-    setupPredictsError: singles.some((s) => s.members[0].basis === 'recorded' && s.distinct),
+    setupPredictsError: singles.some(predictedByRecord),
   });
 
   const all = [faithful, ...causeHypotheses];
@@ -128,9 +130,16 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     );
 
   const hypotheses: Hypothesis[] = ranked.map(({ h, likelihood }) => toHypothesis(h, likelihood, setup));
+  // a cause tags the case only where it explains what a true trace does not: when the true trace
+  // does not fit, or the cause fits significantly better; with nothing observed, where the record
+  // itself predicts it (the verdict's own tests). A cause whose telling prediction was not observed
+  // (the ringing of an assumed lead, with no overshoot read) fits as well as the true trace, and
+  // says nothing about this case
+  const explainsMore = (h: Scored) =>
+    anyObserved ? !faithful.fits || faithful.comparison.chiSquare - h.comparison.chiSquare > SIGNIFICANT_IMPROVEMENT : predictedByRecord(h);
   const tags = new Set<string>();
   for (const { h } of ranked) {
-    if (!h.fits || h.causes[0] === 'faithful') continue;
+    if (!h.fits || h.causes[0] === 'faithful' || !explainsMore(h)) continue;
     for (const cause of h.causes) tags.add(cause);
     for (const m of h.members) {
       m.detailTags.forEach((t) => tags.add(t));

@@ -30,6 +30,21 @@ const ASSERTS_FROM_RECORD: Partial<Record<HypothesisCause, (setup: ResolvedSetup
 /** Whether this cause's recorded prediction, for this setup, is something the record itself says. */
 export const assertsFromRecord = (cause: HypothesisCause, setup: ResolvedSetup) => ASSERTS_FROM_RECORD[cause]?.(setup) ?? false;
 
+/**
+ * With nothing observed, what the recorded setup says the scope will show: the assertions
+ * above, and the models whose estimate is an upper bound or an estimate of a value that was
+ * recorded (a recorded ground lead will ring, whatever damps it; a recorded source impedance
+ * is loaded). A lead or a source impedance taken as typical predicts nothing about this setup.
+ */
+const PREDICTS_FROM_RECORD: Partial<Record<HypothesisCause, (setup: ResolvedSetup) => boolean>> = {
+  ...ASSERTS_FROM_RECORD,
+  'ground-lead': (setup) => !setup.assumed.has('probe.groundLeadM') || !setup.assumed.has('probe.groundKind'),
+  loading: (setup) => !setup.assumed.has('circuit.sourceResistanceOhm'),
+};
+
+/** Whether the recorded setup alone, with nothing observed, says this cause moves the trace. */
+export const predictsFromRecord = (cause: HypothesisCause, setup: ResolvedSetup) => PREDICTS_FROM_RECORD[cause]?.(setup) ?? false;
+
 /** Quantities a picture puts a number on, which an observation can check. */
 const PICTURED = ['amplitudeV', 'riseTimeS', 'overshootPct', 'tiltPct', 'frequencyHz'] as const;
 

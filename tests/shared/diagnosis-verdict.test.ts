@@ -312,3 +312,55 @@ describe('an observation the recorded setup itself rules out', () => {
     expect(diagnose({ ...base, scope: { ...base.scope, offsetV: 2.5 } }).verdict).toBe('faithful');
   });
 });
+
+describe('tags name only what explains the trace', () => {
+  it('should tag no cause on a trace it calls true, however an unrecorded lead would ring', () => {
+    // common practice: a 10x probe on a 10x channel shows the 5 V square at 5 V; no lead, no overshoot recorded
+    const result = diagnose({
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 10 },
+      signal: { expectedAmplitudeV: 5, frequencyHz: 1e3, kind: 'square' },
+      observed: { amplitudeV: 5 },
+    });
+    expect(result.verdict).toBe('faithful');
+    expect(result.tags).toEqual([]);
+    // the typical 15 cm lead still fits (nothing contradicts it) and is listed, untagged
+    expect(result.hypotheses.find((h) => h.cause === 'ground-lead')!.fits).toBe(true);
+  });
+
+  it('should tag the cause that explains the corners, not a lead that merely fits as well as a true trace', () => {
+    // source: compensated divider; corners 3 % short of the settled level on a 1 kHz square mean a trimmer off by 3 %
+    const result = diagnose({
+      probe: { attenuation: 10, tipCapacitanceF: 11e-12 },
+      scope: { attenuationSetting: 10, inputCapacitanceF: 20e-12, bandwidthHz: 100e6 },
+      signal: { expectedAmplitudeV: 5, frequencyHz: 1e3, kind: 'square' },
+      observed: { amplitudeV: 5, overshootPct: -3 },
+    });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.tags).toContain('compensation');
+    expect(result.tags).not.toContain('ground-lead');
+  });
+
+  it('should, with nothing observed, predict an error only from what was recorded, not from a typical lead', () => {
+    const plain: DiagnosisInput = {
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 10, bandwidthHz: 1e9 },
+      signal: { expectedAmplitudeV: 3.3, frequencyHz: 10e6, riseTimeS: 1e-9, kind: 'square' },
+    };
+    const typical = diagnose(plain);
+    expect(typical.verdict).toBe('faithful');
+    expect(typical.tags).toEqual([]);
+    // a recorded 20 cm lead with 10 pF rings near 1/(2π√(LC)) on a 1 ns edge: the record predicts it
+    const recorded = diagnose({ ...plain, probe: { attenuation: 10, groundLeadM: 0.2, tipCapacitanceF: 10e-12 } });
+    expect(recorded.verdict).toBe('measurement-error');
+    expect(recorded.tags).toContain('ground-lead');
+    const ringHz = 1 / (2 * Math.PI * Math.sqrt(wireH(0.2) * 10e-12));
+    const lead = recorded.hypotheses.find((h) => h.cause === 'ground-lead')!;
+    expect(Math.abs(Math.log(lead.predicted.ringingFrequencyHz! / ringHz))).toBeLessThan(0.15);
+    // common practice: a 10x probe on a 1x channel shows a tenth, recorded or not observed
+    const mismatch = diagnose({ ...plain, scope: { attenuationSetting: 1, bandwidthHz: 1e9 } });
+    expect(mismatch.verdict).toBe('measurement-error');
+    expect(mismatch.tags).toEqual(expect.arrayContaining(['attenuation-mismatch', '10x-at-1x']));
+    expect(mismatch.tags).not.toContain('ground-lead');
+  });
+});

@@ -80,12 +80,23 @@ export interface CompareOptions {
   needleReadings?: boolean;
 }
 
-/** The amplitude readings a needle train allows, as `needleReadings` says. */
-function amplitudeReadingsV(predicted: Predicted): number[] {
+/** How an amplitude was read off a prediction: its level, one needle, or the needles' peak to peak. */
+export type AmplitudeReading = 'level' | 'needle' | 'needles-peak-to-peak';
+
+/**
+ * The reading of a prediction nearest an observed amplitude, as `needleReadings` says: without
+ * needles (`spikeV`), the predicted amplitude itself.
+ */
+export function nearestAmplitudeReading(predicted: Predicted, observedV: number): { kind: AmplitudeReading; valueV: number } | undefined {
   const spikeV = predicted.spikeV;
-  const flat = predicted.amplitudeV === undefined ? [] : [predicted.amplitudeV];
-  if (spikeV === undefined || !(spikeV > 0)) return flat;
-  return [...flat, spikeV, ...(predicted.frequencyHz === undefined ? [] : [2 * spikeV])];
+  const readings: { kind: AmplitudeReading; valueV: number }[] = [];
+  if (predicted.amplitudeV !== undefined) readings.push({ kind: 'level', valueV: predicted.amplitudeV });
+  if (spikeV !== undefined && spikeV > 0) {
+    readings.push({ kind: 'needle', valueV: spikeV });
+    if (predicted.frequencyHz !== undefined) readings.push({ kind: 'needles-peak-to-peak', valueV: 2 * spikeV });
+  }
+  const distance = (v: number) => (v > 0 && observedV > 0 ? Math.abs(Math.log(v / observedV)) : Infinity);
+  return readings.reduce<(typeof readings)[number] | undefined>((best, r) => (best === undefined || distance(r.valueV) < distance(best.valueV) ? r : best), undefined);
 }
 
 /**
@@ -107,9 +118,8 @@ export function compare(predicted: Predicted, observed: Observed, options: Compa
   };
   const amplitudeSigma = Math.max(SIGMA.amplitude, options.amplitudeSigma ?? 0);
   const observedV = observed.amplitudeV;
-  const readings = options.needleReadings && observedV !== undefined && observedV > 0 ? amplitudeReadingsV(predicted).filter((v) => v > 0) : [];
-  const nearestV = readings.length ? readings.reduce((a, b) => (Math.abs(Math.log(b / observedV!)) < Math.abs(Math.log(a / observedV!)) ? b : a)) : predicted.amplitudeV;
-  ratio('amplitudeV', nearestV, observedV, amplitudeSigma);
+  const readV = options.needleReadings && observedV !== undefined ? nearestAmplitudeReading(predicted, observedV)?.valueV : predicted.amplitudeV;
+  ratio('amplitudeV', readV, observedV, amplitudeSigma);
   const zeroReadingV = ZERO_READING_SHARE * (options.trueAmplitudeV ?? Number.NaN);
   if (predicted.amplitudeV === 0 && observed.amplitudeV !== undefined && observed.amplitudeV > zeroReadingV) {
     terms.push({ quantity: 'amplitudeV', residual: Math.log(zeroReadingV / observed.amplitudeV), sigma: amplitudeSigma });

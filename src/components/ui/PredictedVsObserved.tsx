@@ -1,3 +1,4 @@
+import { nearestAmplitudeReading } from '../../../shared/diagnosis/scoring';
 import type { Hypothesis } from '../../../shared/schemas/diagnosis';
 import { PREDICTED_ROWS, readingAgrees } from '../../lib/hypothesis-words';
 import { showQuantity } from '../../lib/quantity';
@@ -16,6 +17,10 @@ export function PredictedVsObserved({ hypothesis, observed, dense = false }: Pre
     return typeof v === 'number' ? v : undefined;
   };
   const rows = PREDICTED_ROWS.filter((r) => hypothesis.predicted[r.key] !== undefined || obs(r.key) !== undefined);
+  // a needle train (a passive probe into 50 Ω) is compared on the reading nearest what was seen
+  const observedV = obs('amplitudeV');
+  const reading = hypothesis.predicted.spikeV !== undefined && observedV !== undefined ? nearestAmplitudeReading(hypothesis.predicted, observedV) : undefined;
+  const needleRead = reading && reading.kind !== 'level' ? reading : undefined;
   if (rows.length === 0) return null;
   const pad = dense ? 'py-0.5' : 'py-1';
   return (
@@ -36,13 +41,14 @@ export function PredictedVsObserved({ hypothesis, observed, dense = false }: Pre
       </thead>
       <tbody className="font-mono">
         {rows.map((r) => {
-          const p = hypothesis.predicted[r.key];
+          const p = r.key === 'amplitudeV' && needleRead ? needleRead.valueV : hypothesis.predicted[r.key];
           const o = r.predictedOnly ? undefined : obs(r.key);
+          const label = r.key === 'amplitudeV' && needleRead ? `Amplitude, read as ${needleRead.kind === 'needle' ? 'one needle' : "the needles' peak to peak"}` : r.label;
           const verdict = p !== undefined && o !== undefined ? readingAgrees(r.unit, p, o) : undefined;
           return (
             <tr key={r.key} className="border-t border-rule/70">
               <th scope="row" className={`${pad} text-left font-sans font-normal`}>
-                {r.label}
+                {label}
               </th>
               <td className={`${pad} text-right ${verdict === true ? 'text-agree' : verdict === false ? 'text-caution' : ''}`}>
                 {p !== undefined ? showQuantity(p, r.unit) : '—'}

@@ -45,7 +45,7 @@ On a **50 Ω** input the bottom of the divider becomes 50 Ω ∥ C2, and the div
 
 - At DC and low frequency the resistors set it: 50 Ω / (9 MΩ + 50 Ω), about 1/180 000, while the channel still multiplies by 10.
 - Above a few kHz, C1's reactance replaces the 9 MΩ and the ratio rises with frequency.
-- A fast edge passes the capacitive divider $C_1/(C_1+C_2)$, about a tenth, and then decays through the 50 Ω with $\\tau = 50\\,\\Omega \\cdot (C_1 + C_2)$, about 6 ns. An edge slower than τ gives a lower needle.
+- A fast edge passes the capacitive divider $C_1/(C_1+C_2)$, about a tenth, and then decays through the 50 Ω with $\\tau = 50\\,\\Omega \\cdot (C_1 + C_2)$, about 6 ns. An edge slower than τ, or a probe and scope slower than τ, gives a lower needle. An amplitude read off such a trace may be the flat level, one needle or the needles' peak to peak (up at one edge, down at the next); the engine compares the reading nearest what you entered, and the table names which one it took.
 
 A 50 Ω input also has a power limit: it dissipates V²/50 Ω, and typical inputs are rated about 5 V rms (half a watt). A passive probe does not make it safe: the needles put a tenth of every edge across the 50 Ω — 40 V for a 400 V switch node — and at a high switching rate they add up to real power. A direct cable from a strong source can damage the input outright.`,
   formulas: [

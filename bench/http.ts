@@ -65,7 +65,8 @@ async function benchOne(label: string, open: (dataDir: string) => Db, env: Recor
     const base = `http://127.0.0.1:${port}`;
     const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/index.ts')], {
       cwd: root,
-      env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), SEED_DEMO: '0', DEMO_PASSWORD: PASSWORD, LOG_LEVEL: 'warn', ...env },
+      // no capture warm-up: it runs once, just after ready, and would share the cores with the first load here
+      env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), SEED_DEMO: '0', DEMO_PASSWORD: PASSWORD, LOG_LEVEL: 'warn', CAPTURE_WARM_UP: '0', ...env },
       stdio: ['ignore', 'ignore', 'inherit'],
     });
     const stopped = new Promise((r) => server.once('exit', r));

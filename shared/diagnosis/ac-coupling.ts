@@ -73,6 +73,8 @@ const PLAUSIBLE_CORNER_HZ = { low: 0.05, high: 2e3 } as const;
 /** Tilt below this (%) is within the reading of a flat top (our threshold). */
 const VISIBLE_TILT_PCT = 0.5;
 // our estimates: how often an unrecorded coupling or corner explains droop
+/** A menu setting read off the channel is judged as an input resistance is (evidence.ts): ±10 %. */
+const RECORDED_MENU_TOLERANCE_LN = 0.1;
 const HIDDEN_COUPLING_PRIOR = { acCornerUnrecorded: 0.5, acCornerRecorded: 0.2, dcRecordedOrUnsaid: 0.15 } as const;
 
 /** AC-coupling candidates: the recorded coupling, and a corner implied by observed droop or sine loss. */
@@ -109,6 +111,9 @@ function fittedCorner(setup: ResolvedSetup, tiltPct: number | undefined, seenV: 
       ? HIDDEN_COUPLING_PRIOR.acCornerUnrecorded
       : HIDDEN_COUPLING_PRIOR.acCornerRecorded;
   const contradicts = ac && recordedCorner !== undefined && Math.abs(Math.log(recordedCorner / scopeCornerHz)) > Math.log(1.5);
+  // DC coupling read off the channel menu is a corner of 0 Hz: a fit needing a corner of hertz
+  // contradicts it as a recorded 1 MΩ input contradicts a hidden 50 Ω one
+  const recordedDc = !ac && setup.couplingRecorded;
   return {
     cause: 'ac-coupling',
     basis: 'fitted',
@@ -118,11 +123,16 @@ function fittedCorner(setup: ResolvedSetup, tiltPct: number | undefined, seenV: 
     explanation:
       `${what[0].toUpperCase()}${what.slice(1)} fits a high-pass at ${eng(effectiveHz, 'Hz')}: an AC-coupled channel with a corner of about ${eng(scopeCornerHz, 'Hz')} for a low-impedance source` +
       (setup.probeKind === 'passive' && setup.tipResistanceOhm > 0 ? `, lowered by the probe's ${eng(setup.tipResistanceOhm, 'Ω')} tip resistor` : '') +
-      (ac ? '.' : ' — if the channel was in fact AC-coupled (the case says DC coupling or does not say). A coupling capacitor in the circuit itself droops the same way.'),
+      (ac
+        ? '.'
+        : recordedDc
+          ? ' — but the channel is recorded as DC-coupled, so only if that record is wrong. A coupling capacitor in the circuit itself droops the same way, and then the trace is true.'
+          : ' — if the channel was in fact AC-coupled (the case does not say). A coupling capacitor in the circuit itself droops the same way.'),
     confirm: CONFIRM,
     fix: FIX,
     estimates: { impliedEffectiveCornerHz: effectiveHz, impliedAcCornerHz: scopeCornerHz },
     ...(contradicts ? { contradictions: [{ field: 'scope.acCornerHz', recorded: recordedCorner as number, implied: scopeCornerHz }] } : {}),
+    ...(recordedDc ? { contradictions: [{ field: 'scope.coupling', recorded: 0, implied: scopeCornerHz, toleranceLn: RECORDED_MENU_TOLERANCE_LN }] } : {}),
     detailTags: predicted.tiltPct !== undefined ? ['ac-coupling-droop'] : ['ac-coupled'],
   };
 }

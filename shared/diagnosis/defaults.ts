@@ -193,6 +193,7 @@ export function resolveSetup(input: DiagnosisInput): {
     probeCmrrDb: probe.cmrrDb ?? undefined,
     scopeRiseTimeS: scope.riseTimeS ?? undefined,
     coupling: scope.coupling ?? 'dc',
+    couplingRecorded: scope.coupling !== undefined && scope.coupling !== null,
     acCornerHz: scope.acCornerHz ?? undefined,
     sampleRateHz: scope.sampleRateHz ?? undefined,
     voltsPerDiv: scope.voltsPerDiv ?? undefined,

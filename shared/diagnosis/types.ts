@@ -32,6 +32,8 @@ export interface ResolvedSetup {
   /** The scope's own 10–90 % rise time from its data sheet, when recorded. */
   scopeRiseTimeS?: number;
   coupling: Coupling;
+  /** The coupling was recorded (else DC is taken, the usual setting). */
+  couplingRecorded: boolean;
   /** AC-coupling corner with a low-impedance source, Hz. */
   acCornerHz?: number;
   sampleRateHz?: number;

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { DiagnosisInput } from '../../shared/schemas/diagnosis';
 import { observedOf, resolveSetup } from '../../shared/diagnosis/defaults';
+import { diagnose } from '../../shared/diagnosis/ranker';
 import {
   assessAcCoupling,
   cornerForTiltHz,
@@ -109,5 +110,27 @@ describe('AC coupling', () => {
     const [c] = run({ signal: { frequencyHz: 100, kind: 'square' } });
     expect(c.predicted).toEqual({});
     expect(c.deviation).toBe(0);
+  });
+
+  it('should not blame AC coupling for droop on a channel recorded as DC-coupled', () => {
+    // a 10 Hz square drooping 15 %: behind a 10x probe that needs an AC corner near 9.6 Hz
+    // (the closed form checked above against the stepped simulation)
+    const droop = (coupling?: 'dc'): DiagnosisInput => ({
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 10, ...(coupling ? { coupling } : {}) },
+      signal: { expectedAmplitudeV: 5, frequencyHz: 10, kind: 'square' },
+      observed: { amplitudeV: 5, tiltPct: 15 },
+    });
+    // unsaid: a channel left on AC is a fair guess
+    const unsaid = diagnose(droop());
+    expect(unsaid.verdict).toBe('measurement-error');
+    expect(unsaid.hypotheses[0].cause).toBe('ac-coupling');
+    // recorded DC off the channel menu: the droop is the circuit's or a wrong record, not a cause the engine can name
+    const recorded = diagnose(droop('dc'));
+    expect(recorded.verdict).toBe('unexplained');
+    const ac = recorded.hypotheses.find((h) => h.cause === 'ac-coupling')!;
+    expect(ac.fits).toBe(false);
+    expect(ac.explanation).toMatch(/DC-coupled/);
+    expect(recorded.tags).toEqual([]);
   });
 });

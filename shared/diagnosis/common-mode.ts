@@ -109,7 +109,8 @@ function leakCandidate(setup: ResolvedSetup, referenceV: number, cmrrDb: number,
 
 /**
  * A single-ended probe's ground is protective earth through the scope: on a node away from
- * earth it is a short, never a measurement. Returned as a risk, with no prediction to fit.
+ * earth it is a short, never a measurement. Returned as a risk, with no prediction to fit; the
+ * ranker takes it as the record ruling out any true trace (`notAMeasurement`).
  */
 function groundedAwayFromEarth(setup: ResolvedSetup): Candidate {
   const referenceV = setup.referenceV;
@@ -138,6 +139,7 @@ function groundedAwayFromEarth(setup: ResolvedSetup): Candidate {
     confirm: 'Do not repeat it to check: measure the node with a differential probe, or an isolated channel, referenced to the point you need.',
     fix: 'Use a differential probe (or an isolated input) rated for the voltage; never float the scope by lifting its protective earth.',
     estimates: { referenceV },
+    notAMeasurement: true,
     detailTags: ['ground-clip-short', 'floating-reference'],
     risks: [
       {

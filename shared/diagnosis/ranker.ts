@@ -84,15 +84,16 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
   }
   const anyObserved = faithfulComparison.count > 0;
   // a recorded cause that moves the trace on the record alone, not on a typical value standing in for one
-  const predictedByRecord = (s: Scored) => s.distinct && s.members.every((m) => m.basis === 'recorded' && predictsFromRecord(m.cause, setup));
+  const predictedByRecord = (s: Scored) => s.distinct && s.members.every((m) => m.basis === 'recorded' && (m.notAMeasurement || predictsFromRecord(m.cause, setup)));
   const combos = combinations(singles, reference, observed, anyObserved);
   const causeHypotheses = [...bestPerCause.values(), ...combos];
 
   // what the recorded setup itself says the scope shows where that is not a true trace: a
   // hypothesis without such a cause (the true trace too) would need a recorded value to be wrong
   const ideal = pictureAsSeen(reference, false, observed);
-  const assertions = singles.flatMap((s) => {
+  const assertions = singles.flatMap((s): RecordedAssertion[] => {
     const [m] = s.members;
+    if (m.basis === 'recorded' && m.notAMeasurement) return [{ cause: m.cause, predicted: s.predicted, options: {}, explanation: m.explanation, notAMeasurement: true }];
     if (m.basis !== 'recorded' || !s.distinct || !assertsFromRecord(m.cause, setup)) return [];
     // what the setup allows is its flat level: a needle as tall as the true step is no true trace
     const options = { ...compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), needleReadings: false };
@@ -156,7 +157,11 @@ const tieRank = (cause: HypothesisCause) => {
 
 const best = (list: Scored[]) => list.reduce<Scored | undefined>((a, h) => (a && a.logScore >= h.logScore ? a : h), undefined);
 
+/** Prior of a recorded fact that voids the measurement: as applicable as a cause gets (our choice). */
+const NOT_A_MEASUREMENT_PRIOR = 0.9;
+
 function priorOf(c: Candidate): number {
+  if (c.notAMeasurement) return NOT_A_MEASUREMENT_PRIOR;
   return c.basis === 'fitted' ? (c.hiddenPrior ?? 0.1) : applicability(c.deviation);
 }
 
@@ -232,7 +237,8 @@ function scoreOf(
 ): Scored {
   const seen = compare(predicted, observed, compareOptionsOf(members, overshootUpperBound, reference));
   const comparison = summarise([...seen.terms, ...members.flatMap((m) => contradictionTerms(m.contradictions))]);
-  const distinct = distinctFrom(reference, predicted, deviation);
+  // a cause that voids the measurement stands apart from a true trace without a number to show it
+  const distinct = members.some((m) => m.notAMeasurement) || distinctFrom(reference, predicted, deviation);
   return {
     causes: [...new Set(members.flatMap((m) => [m.cause, ...(m.alsoCauses ?? [])]))],
     observedResidual: seen.residual ?? 0,
@@ -270,8 +276,11 @@ function combinations(singles: Scored[], reference: Predicted, observed: Observe
       const logPrior = Math.log(priorOf(a)) + Math.log(priorOf(b)) - COMBINATION_LOG_PENALTY;
       const combo = scoreOf([a, b], predicted, overshootUpperBound, reference, observed, logPrior, Math.hypot(a.deviation, b.deviation));
       if (anyObserved) {
+        // beside a cause that voids the measurement, any explanation of the numbers needs it too:
+        // the member alone is ruled out by the record (charged later), so no margin is asked
+        const voids = a.notAMeasurement || b.notAMeasurement;
         const margin = Math.min(first.comparison.chiSquare, second.comparison.chiSquare) - combo.comparison.chiSquare;
-        if (!combo.fits || margin <= SIGNIFICANT_IMPROVEMENT) continue;
+        if (!combo.fits || (!voids && margin <= SIGNIFICANT_IMPROVEMENT)) continue;
       }
       const key = [a.cause, b.cause].sort().join('+');
       const current = bestPerPair.get(key);

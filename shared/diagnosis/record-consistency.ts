@@ -62,7 +62,16 @@ export interface RecordedAssertion {
   predicted: Predicted;
   options: CompareOptions;
   explanation: string;
+  /** The record says the screen is no measurement at all (`Candidate.notAMeasurement`): every hypothesis without the cause is wrong, whatever it pictures. */
+  notAMeasurement?: boolean;
 }
+
+/**
+ * What a hypothesis is charged for leaving out a cause that makes the screen no measurement:
+ * a factor of ten at the ringing spread, (ln 10/0.3)² ≈ 59 in χ², beyond the fit gate for
+ * any number of readings a case records (our choice).
+ */
+const NOT_A_MEASUREMENT_TERM = { residual: Math.log(10), sigma: 0.3 } as const;
 
 /**
  * A cause predicted from the recorded setup alone (no value inferred) that moves an observed
@@ -87,6 +96,7 @@ export function recordedAssertion(assertion: RecordedAssertion, ideal: Observed)
 export function contradictedAssertions(causes: readonly HypothesisCause[], seen: Observed, assertions: readonly RecordedAssertion[]): { assertion: RecordedAssertion; terms: Term[] }[] {
   return assertions.flatMap((assertion) => {
     if (causes.includes(assertion.cause)) return [];
+    if (assertion.notAMeasurement) return [{ assertion, terms: [{ quantity: `recorded ${assertion.cause}: no measurement`, ...NOT_A_MEASUREMENT_TERM }] }];
     const against = compare(assertion.predicted, seen, assertion.options);
     if (against.chiSquare <= SIGNIFICANT_IMPROVEMENT) return [];
     return [{ assertion, terms: against.terms.map((t) => ({ ...t, quantity: `recorded ${assertion.cause}: ${t.quantity}` })) }];

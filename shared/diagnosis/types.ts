@@ -118,6 +118,12 @@ export interface Candidate {
    * `causes` and tagged with it.
    */
   alsoCauses?: Cause[];
+  /**
+   * The recorded setup makes the screen no measurement of the circuit as it runs (a
+   * single-ended probe's ground clip on a node away from earth shorts that node): no number to
+   * fit, but the cause stands, and every hypothesis without it is ruled out by the record.
+   */
+  notAMeasurement?: boolean;
   estimates?: Record<string, number | string>;
   detailTags: string[];
   risks?: Risk[];

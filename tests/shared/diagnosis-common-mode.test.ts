@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { DiagnosisInput } from '../../shared/schemas/diagnosis';
 import { observedOf, resolveSetup } from '../../shared/diagnosis/defaults';
 import { assessCommonMode, cmrrForLeakDb, commonModeLeakV, commonModeShare } from '../../shared/diagnosis/common-mode';
+import { diagnose } from '../../shared/diagnosis/ranker';
 
 const run = (input: DiagnosisInput) => assessCommonMode({ setup: resolveSetup(input).setup, observed: observedOf(input) });
 
@@ -49,5 +50,45 @@ describe('common mode', () => {
     const [c] = run({ probe: { kind: 'differential', cmrrDb: 60 }, circuit: { referenceV: 0 } });
     expect(c.predicted).toEqual({});
     expect(c.risks ?? []).toEqual([]);
+  });
+
+  describe('a single-ended probe grounded away from earth, in the verdict', () => {
+    // DESIGN, common mode: a passive probe's ground clip on a node away from earth shorts it to
+    // earth through the scope — a hazard, never a measurement (protective earth bonding, common practice)
+    const clipped = (probe: DiagnosisInput['probe'], observed?: DiagnosisInput['observed']): DiagnosisInput => ({
+      probe,
+      scope: { attenuationSetting: probe?.attenuation ?? 10 },
+      circuit: { referenceV: 325, mainsConnected: true },
+      signal: { expectedAmplitudeV: 10, frequencyHz: 50e3, kind: 'square' },
+      ...(observed ? { observed } : {}),
+    });
+
+    it('should never call the trace true, however right it reads', () => {
+      const result = diagnose(clipped({ attenuation: 10 }, { amplitudeV: 10 }));
+      expect(result.verdict).toBe('measurement-error');
+      expect(result.hypotheses[0].cause).toBe('common-mode');
+      expect(result.tags).toEqual(expect.arrayContaining(['common-mode', 'ground-clip-short']));
+      const faithful = result.hypotheses.find((h) => h.cause === 'faithful')!;
+      expect(faithful.fits).toBe(false);
+      expect(faithful.ruledOutBy).toContain('common-mode');
+      expect(faithful.explanation).toMatch(/a recorded value must be wrong/);
+      expect(result.risks.map((r) => r.id)).toContain('ground-clip-off-earth');
+      // nothing observed: the record alone says so
+      expect(diagnose(clipped({ attenuation: 10 })).verdict).toBe('measurement-error');
+    });
+
+    it('should explain other errors only together with the short', () => {
+      // common practice: a 1x probe on a 10x channel shows ten times the signal
+      const result = diagnose({ ...clipped({ attenuation: 1 }, { amplitudeV: 100 }), scope: { attenuationSetting: 10 } });
+      expect(result.verdict).toBe('measurement-error');
+      expect(result.hypotheses[0].causes).toEqual(expect.arrayContaining(['attenuation-mismatch', 'common-mode']));
+      expect(result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'attenuation-mismatch')!.fits).toBe(false);
+    });
+
+    it('should leave a differential probe on the same node alone', () => {
+      const result = diagnose(clipped({ attenuation: 100, kind: 'differential', cmrrDb: 80 }, { amplitudeV: 10 }));
+      expect(result.verdict).toBe('faithful');
+      expect(result.tags).toEqual([]);
+    });
   });
 });

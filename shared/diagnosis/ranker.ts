@@ -222,7 +222,8 @@ function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[
 }
 
 function scoreSingle(candidate: Candidate, reference: Predicted, observed: Observed): Scored {
-  const predicted = merge(reference, candidate.predicted);
+  // a screen that is no measurement predicts no reading at all, the true one included
+  const predicted = candidate.notAMeasurement ? {} : merge(reference, candidate.predicted);
   return scoreOf([candidate], predicted, Boolean(candidate.overshootUpperBound), reference, observed, Math.log(priorOf(candidate)), candidate.deviation);
 }
 

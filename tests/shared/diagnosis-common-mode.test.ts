@@ -77,12 +77,18 @@ describe('common mode', () => {
       expect(diagnose(clipped({ attenuation: 10 })).verdict).toBe('measurement-error');
     });
 
-    it('should explain other errors only together with the short', () => {
+    it('should predict no reading through the short, and explain other errors only together with it', () => {
       // common practice: a 1x probe on a 10x channel shows ten times the signal
       const result = diagnose({ ...clipped({ attenuation: 1 }, { amplitudeV: 100 }), scope: { attenuationSetting: 10 } });
       expect(result.verdict).toBe('measurement-error');
-      expect(result.hypotheses[0].causes).toEqual(expect.arrayContaining(['attenuation-mismatch', 'common-mode']));
+      // what a shorted circuit shows is no reading of it: the short alone predicts none, the true one included
+      expect(result.hypotheses[0].cause).toBe('common-mode');
+      expect(result.hypotheses[0].predicted.amplitudeV).toBeUndefined();
+      const paired = result.hypotheses.find((h) => h.causes.includes('attenuation-mismatch') && h.causes.includes('common-mode'))!;
+      expect(paired.fits).toBe(true);
+      expect(paired.predicted.amplitudeV).toBeCloseTo(100, 6);
       expect(result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'attenuation-mismatch')!.fits).toBe(false);
+      expect(result.tags).toEqual(expect.arrayContaining(['attenuation-mismatch', 'common-mode']));
     });
 
     it('should leave a differential probe on the same node alone', () => {

@@ -99,6 +99,8 @@ export function contradictedAssertions(causes: readonly HypothesisCause[], seen:
     if (assertion.notAMeasurement) return [{ assertion, terms: [{ quantity: `recorded ${assertion.cause}: no measurement`, ...NOT_A_MEASUREMENT_TERM }] }];
     const against = compare(assertion.predicted, seen, assertion.options);
     if (against.chiSquare <= SIGNIFICANT_IMPROVEMENT) return [];
-    return [{ assertion, terms: against.terms.map((t) => ({ ...t, quantity: `recorded ${assertion.cause}: ${t.quantity}` })) }];
+    // one assertion is one test, charged its χ² whole: its quantities repeat ones already compared
+    // with the observation, and a term each (most of them agreeing) would only widen the fit gate
+    return [{ assertion, terms: [{ quantity: `recorded ${assertion.cause}`, residual: Math.sqrt(against.chiSquare), sigma: 1 }] }];
   });
 }

@@ -364,3 +364,26 @@ describe('tags name only what explains the trace', () => {
     expect(mismatch.tags).not.toContain('ground-lead');
   });
 });
+
+describe('a recorded assertion charged as one test', () => {
+  it('should not let the agreeing readings of an assertion widen the gate for the true trace', () => {
+    // source: single-pole rise time 0.35/BW and root-sum-square stages: a 300 MHz scope shows a
+    // 1 ns edge as √(1² + 1.17²) ≈ 1.54 ns; 1.5 ns was read, the amplitude right
+    const result = diagnose({
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 10, bandwidthHz: 300e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 10e6, riseTimeS: 1e-9, kind: 'square' },
+      observed: { amplitudeV: 1, riseTimeS: 1.5e-9 },
+    });
+    const shownS = Math.hypot(1e-9, riseOf(300e6));
+    expect(shownS).toBeGreaterThan(1.5e-9);
+    expect(shownS).toBeLessThan(1.6e-9);
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].cause).toBe('bandwidth');
+    // the true trace misses the reading by 2σ and the record by 2σ more: two tests failed, not four quantities compared
+    const faithful = result.hypotheses.find((h) => h.cause === 'faithful')!;
+    expect(faithful.ruledOutBy).toEqual(['bandwidth']);
+    expect(faithful.fits).toBe(false);
+  });
+});
+

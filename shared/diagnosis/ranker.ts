@@ -100,7 +100,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options, explanation: m.explanation }, ideal);
     return a ? [a] : [];
   });
-  for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed);
+  for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed, ideal);
 
   const verdict = decideVerdict({
     faithfulFits: faithful.fits,
@@ -210,8 +210,13 @@ function compareOptionsOf(members: Candidate[], overshootUpperBound: boolean, re
  * Charges a hypothesis for each recorded assertion it contradicts, as if the recorded cause's
  * effect had been measured against its picture, and judges its fit again.
  */
-function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[], observed: Observed): void {
-  const seen = pictureAsSeen(h.predicted, predictsClipping(h.members), observed);
+function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[], observed: Observed, ideal: Observed): void {
+  // a hypothesis with an inferred value was fitted to the reading, which the recorded cause may
+  // already explain: its picture then agrees with the assertion by construction, while the record
+  // says that cause acts on top of it. It is judged as the true trace would be; only recorded
+  // pictures may be two models of one effect (a 50 Ω input and a generator's load setting)
+  const fitted = h.members.some((m) => m.basis === 'fitted');
+  const seen = fitted ? ideal : pictureAsSeen(h.predicted, predictsClipping(h.members), observed);
   const contradicted = contradictedAssertions(h.causes, seen, assertions);
   if (contradicted.length === 0) return;
   const comparison = summarise([...h.comparison.terms, ...contradicted.flatMap((c) => c.terms)]);

@@ -387,3 +387,23 @@ describe('a recorded assertion charged as one test', () => {
   });
 });
 
+describe('a fitted cause beside a recorded one', () => {
+  it('should not let a value fitted to the reading stand in for the recorded cause that explains it', () => {
+    // common practice: a 10x probe on a 1x channel shows a tenth. A 90 MΩ source would also
+    // divide 12 V to 1.2 V against the probe's 10 MΩ, but the recorded mismatch acts on top of
+    // any such load: loading alone would need the record to be wrong
+    const result = diagnose({
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 1 },
+      signal: { expectedAmplitudeV: 12, kind: 'dc' },
+      observed: { amplitudeV: 1.2 },
+    });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].cause).toBe('attenuation-mismatch');
+    const loading = result.hypotheses.find((h) => h.cause === 'loading')!;
+    expect(loading.fits).toBe(false);
+    expect(loading.ruledOutBy).toEqual(['attenuation-mismatch']);
+    expect(result.tags).not.toContain('loading');
+  });
+});
+

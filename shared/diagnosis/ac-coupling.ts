@@ -73,8 +73,6 @@ const PLAUSIBLE_CORNER_HZ = { low: 0.05, high: 2e3 } as const;
 /** Tilt below this (%) is within the reading of a flat top (our threshold). */
 const VISIBLE_TILT_PCT = 0.5;
 // our estimates: how often an unrecorded coupling or corner explains droop
-/** A menu setting read off the channel is judged as an input resistance is (evidence.ts): ±10 %. */
-const RECORDED_MENU_TOLERANCE_LN = 0.1;
 const HIDDEN_COUPLING_PRIOR = { acCornerUnrecorded: 0.5, acCornerRecorded: 0.2, dcRecordedOrUnsaid: 0.15 } as const;
 
 /** AC-coupling candidates: the recorded coupling, and a corner implied by observed droop or sine loss. */
@@ -132,7 +130,7 @@ function fittedCorner(setup: ResolvedSetup, tiltPct: number | undefined, seenV: 
     fix: FIX,
     estimates: { impliedEffectiveCornerHz: effectiveHz, impliedAcCornerHz: scopeCornerHz },
     ...(contradicts ? { contradictions: [{ field: 'scope.acCornerHz', recorded: recordedCorner as number, implied: scopeCornerHz }] } : {}),
-    ...(recordedDc ? { contradictions: [{ field: 'scope.coupling', recorded: 0, implied: scopeCornerHz, toleranceLn: RECORDED_MENU_TOLERANCE_LN }] } : {}),
+    ...(recordedDc ? { contradictions: [{ field: 'scope.coupling', recorded: 0, implied: scopeCornerHz }] } : {}),
     detailTags: predicted.tiltPct !== undefined ? ['ac-coupling-droop'] : ['ac-coupled'],
   };
 }

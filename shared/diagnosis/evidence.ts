@@ -11,6 +11,8 @@ export const CONTRADICTION_TOLERANCE_LN: Record<string, number> = {
   'probe.groundLeadM': 0.5,
   'circuit.sourceResistanceOhm': 0.5,
   'scope.inputResistanceOhm': 0.1,
+  // DC coupling off the channel menu, as a corner of 0 Hz: read off a menu as the input resistance is
+  'scope.coupling': 0.1,
   // a switchable probe's position is the value most often recorded wrongly
   'probe.attenuation': Math.log(10),
   'probe.tipCapacitanceF': 0.3,

@@ -73,7 +73,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     logScore: Math.log(FAITHFUL_PRIOR) - faithfulComparison.chiSquare / 2,
     deviation: 0,
     distinct: false,
-    fits: faithfulComparison.chiSquare <= fitGate(faithfulComparison.count),
+    fits: passesGate(faithfulComparison),
   };
 
   const singles = candidates.map((c) => scoreSingle(c, reference, observed));
@@ -91,13 +91,12 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
   // what the recorded setup itself says the scope shows where that is not a true trace: a
   // hypothesis without such a cause (the true trace too) would need a recorded value to be wrong
   const ideal = pictureAsSeen(reference, false, observed);
-  const assertions = singles.flatMap((s): RecordedAssertion[] => {
+  const assertions = singles.flatMap((s) => {
     const [m] = s.members;
-    if (m.basis === 'recorded' && m.notAMeasurement) return [{ cause: m.cause, predicted: s.predicted, options: {}, explanation: m.explanation, notAMeasurement: true }];
-    if (m.basis !== 'recorded' || !s.distinct || !assertsFromRecord(m.cause, setup)) return [];
+    if (m.basis !== 'recorded' || !s.distinct || !(m.notAMeasurement || assertsFromRecord(m.cause, setup))) return [];
     // what the setup allows is its flat level: a needle as tall as the true step is no true trace
     const options = { ...compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), needleReadings: false };
-    const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options, explanation: m.explanation }, ideal);
+    const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options, explanation: m.explanation, notAMeasurement: m.notAMeasurement }, ideal);
     return a ? [a] : [];
   });
   for (const h of [faithful, ...causeHypotheses]) chargeContradictions(h, assertions, observed, ideal);
@@ -154,6 +153,9 @@ const tieRank = (cause: HypothesisCause) => {
   const i = TIE_ORDER.indexOf(cause);
   return i < 0 ? TIE_ORDER.length : i;
 };
+
+/** χ² under the fit gate for the number of quantities compared (`verdict.ts`). */
+const passesGate = (c: Comparison) => c.chiSquare <= fitGate(c.count);
 
 const best = (list: Scored[]) => list.reduce<Scored | undefined>((a, h) => (a && a.logScore >= h.logScore ? a : h), undefined);
 
@@ -223,7 +225,7 @@ function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[
   h.logScore -= (comparison.chiSquare - h.comparison.chiSquare) / 2;
   h.comparison = comparison;
   h.contradicted = contradicted.map((c) => c.assertion);
-  h.fits = (h.causes[0] === 'faithful' || h.distinct) && comparison.chiSquare <= fitGate(comparison.count);
+  h.fits = (h.causes[0] === 'faithful' || h.distinct) && passesGate(comparison);
 }
 
 function scoreSingle(candidate: Candidate, reference: Predicted, observed: Observed): Scored {
@@ -254,7 +256,7 @@ function scoreOf(
     logScore: logPrior - comparison.chiSquare / 2,
     deviation,
     distinct,
-    fits: distinct && comparison.chiSquare <= fitGate(comparison.count),
+    fits: distinct && passesGate(comparison),
   };
 }
 

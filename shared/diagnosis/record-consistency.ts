@@ -76,12 +76,15 @@ const NOT_A_MEASUREMENT_TERM = { residual: Math.log(10), sigma: 0.3 } as const;
 /**
  * A cause predicted from the recorded setup alone (no value inferred) that moves an observed
  * quantity away from the faithful picture beyond the models' accuracy asserts that it does: a
- * 10x probe recorded on a 1x channel says the scope shows a tenth, whatever was seen.
+ * 10x probe recorded on a 1x channel says the scope shows a tenth, whatever was seen. A cause
+ * that makes the screen no measurement (`notAMeasurement`) always asserts.
  *
  * @param ideal the faithful picture as seen (`pictureAsSeen`)
  * @returns the assertion, or undefined when the recorded cause leaves what was observed alone
  */
 export function recordedAssertion(assertion: RecordedAssertion, ideal: Observed): RecordedAssertion | undefined {
+  // a screen that is no measurement rules out any reading, whatever it would show
+  if (assertion.notAMeasurement) return assertion;
   return compare(assertion.predicted, ideal, assertion.options).chiSquare > SIGNIFICANT_IMPROVEMENT ? assertion : undefined;
 }
 

@@ -19,7 +19,7 @@ export function PredictedVsObserved({ hypothesis, observed, dense = false }: Pre
   const rows = PREDICTED_ROWS.filter((r) => hypothesis.predicted[r.key] !== undefined || obs(r.key) !== undefined);
   // a needle train (a passive probe into 50 Ω) is compared on the reading nearest what was seen
   const observedV = obs('amplitudeV');
-  const reading = hypothesis.predicted.spikeV !== undefined && observedV !== undefined ? nearestAmplitudeReading(hypothesis.predicted, observedV) : undefined;
+  const reading = observedV !== undefined ? nearestAmplitudeReading(hypothesis.predicted, observedV) : undefined;
   const needleRead = reading && reading.kind !== 'level' ? reading : undefined;
   if (rows.length === 0) return null;
   const pad = dense ? 'py-0.5' : 'py-1';

@@ -4,6 +4,9 @@ import { cascadeRiseTimeS, riseTimeFromTimeConstantS, squareWaveAmplitudeRatio }
 import { shownRiseTimeS } from './bandwidth';
 import { eng, percent } from './wording';
 import { clampPlausible } from './plausibility';
+import { CONTRADICTION_TOLERANCE_LN } from './evidence';
+import { SIGMA } from './scoring';
+import { SIGNIFICANT_DEVIATION, SIGNIFICANT_IMPROVEMENT } from './verdict';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -94,6 +97,7 @@ const HIDDEN_SOURCE_PRIOR = 0.25; // our estimate: node impedances are often unk
 /** Loading candidates: the recorded source impedance, and one inferred from the amplitude. */
 export function assessLoading({ setup, observed }: ModelContext): Candidate[] {
   const candidates = [loadingCandidate(setup, loadingParamsOf(setup), 'recorded')];
+  if (!setup.assumed.has('circuit.sourceResistanceOhm')) candidates[0].recordSpread = recordedSourceSpread(setup);
   const expected = setup.expectedAmplitudeV;
   if (expected !== undefined && observed.amplitudeV !== undefined) {
     const ratio = observed.amplitudeV / expected;
@@ -121,14 +125,54 @@ export function assessLoading({ setup, observed }: ModelContext): Candidate[] {
   return candidates;
 }
 
+/**
+ * Whether the load on the recorded source moves the trace beyond that estimate's spread: the
+ * level it keeps and the edge it slows, each against the trace without the load (the chain's
+ * own edge is the bandwidth's to assert), at the spread `recordedSourceSpread` gives.
+ */
+export function loadMovesTrace(setup: ResolvedSetup): boolean {
+  const p = loadingParamsOf(setup);
+  const { amplitudeSigma, riseTimeSigma } = recordedSourceSpread(setup);
+  const unloadedRiseS = shownRiseTimeS(setup);
+  const loadedRiseS = setup.hasEdges && unloadedRiseS ? cascadeRiseTimeS([unloadedRiseS, loadedRiseTimeS(p)]) : undefined;
+  const amplitudeTerm = Math.log(loadedAmplitudeRatio(setup, p)) / amplitudeSigma;
+  const riseTerm = loadedRiseS && unloadedRiseS ? Math.log(loadedRiseS / unloadedRiseS) / riseTimeSigma : 0;
+  return amplitudeTerm ** 2 > SIGNIFICANT_IMPROVEMENT || riseTerm ** 2 > SIGNIFICANT_IMPROVEMENT;
+}
+
+/**
+ * How far the loaded picture moves when the recorded source impedance is off by its usual
+ * tolerance (e^±0.5, `evidence.ts`): the spread of each predicted quantity, taken in
+ * quadrature with a reading's. A recorded impedance is usually an estimate, so what the record
+ * asserts through it is judged with that spread.
+ */
+function recordedSourceSpread(setup: ResolvedSetup): { amplitudeSigma: number; riseTimeSigma: number } {
+  const tolerance = CONTRADICTION_TOLERANCE_LN['circuit.sourceResistanceOhm'];
+  const at = (factor: number) => {
+    const p = loadingParamsOf(setup, setup.sourceResistanceOhm * factor);
+    const reference = shownRiseTimeS(setup) ?? 0;
+    return { ratio: loadedAmplitudeRatio(setup, p), riseS: cascadeRiseTimeS([reference, loadedRiseTimeS(p)]) };
+  };
+  const middle = at(1);
+  const ends = [at(Math.exp(-tolerance)), at(Math.exp(tolerance))];
+  const spread = (pick: (v: typeof middle) => number) => Math.max(...ends.map((end) => (pick(end) > 0 && pick(middle) > 0 ? Math.abs(Math.log(pick(end) / pick(middle))) : 0)));
+  return {
+    amplitudeSigma: Math.hypot(SIGMA.amplitude, spread((v) => v.ratio)),
+    riseTimeSigma: Math.hypot(SIGMA.riseTime, spread((v) => v.riseS)),
+  };
+}
+
 function loadingCandidate(setup: ResolvedSetup, p: LoadingParams, basis: Candidate['basis']): Candidate {
   const ratio = loadedAmplitudeRatio(setup, p);
   const dc = dcLoadingRatio(p);
   const corner = loadingCornerHz(p);
   const loadRise = loadedRiseTimeS(p);
   const reference = shownRiseTimeS(setup);
-  const riseTimeS = setup.hasEdges ? cascadeRiseTimeS([reference ?? 0, loadRise]) : undefined;
-  const riseDeviation = edgeDeviation(setup, riseTimeS, reference);
+  const loadedEdgeS = setup.hasEdges ? cascadeRiseTimeS([reference ?? 0, loadRise]) : undefined;
+  // a load that barely slows what the chain shows leaves the edge to the chain (the bandwidth's
+  // picture): predicting the chain's edge here would let loading stand in for bandwidth
+  const riseTimeS = loadedEdgeS !== undefined && reference && Math.log(loadedEdgeS / reference) <= SIGNIFICANT_DEVIATION ? undefined : loadedEdgeS;
+  const riseDeviation = edgeDeviation(setup, loadedEdgeS, reference);
   const expected = setup.expectedAmplitudeV;
   const oneX = setup.probeAttenuation === 1;
 

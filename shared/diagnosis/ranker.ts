@@ -5,7 +5,7 @@ import { applicability, compare, summarise, type CompareOptions, type Comparison
 import { contradictionTerms } from './evidence';
 import { faithfulPicture, faithfulWording, FAITHFUL_CONFIRM } from './faithful';
 import { composePredictions } from './combination';
-import { decideVerdict, fitGate, SIGNIFICANT_IMPROVEMENT } from './verdict';
+import { decideVerdict, fitGate, SIGNIFICANT_DEVIATION, SIGNIFICANT_IMPROVEMENT } from './verdict';
 import { assertsFromRecord, contradictedAssertions, pictureAsSeen, predictsFromRecord, recordedAssertion, type RecordedAssertion } from './record-consistency';
 import { setupRisks } from './safety-risks';
 import { MODELS } from './models';
@@ -95,7 +95,7 @@ export function diagnose(input: DiagnosisInput): DiagnosisResult {
     const [m] = s.members;
     if (m.basis !== 'recorded' || !s.distinct || !(m.notAMeasurement || assertsFromRecord(m.cause, setup))) return [];
     // what the setup allows is its flat level: a needle as tall as the true step is no true trace
-    const options = { ...compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), needleReadings: false };
+    const options = { ...compareOptionsOf(s.members, Boolean(m.overshootUpperBound), reference), needleReadings: false, ...m.recordSpread };
     const a = recordedAssertion({ cause: m.cause, predicted: s.predicted, options, explanation: m.explanation, notAMeasurement: m.notAMeasurement }, ideal);
     return a ? [a] : [];
   });
@@ -178,12 +178,6 @@ function merge(reference: Predicted, own: Predicted): Predicted {
   return merged;
 }
 
-/**
- * A predicted error this large (log units, about 10 %) counts even where the prediction cannot
- * be put in numbers, e.g. a ×10 mismatch with no expected amplitude recorded (our threshold).
- */
-const SIGNIFICANT_DEVIATION = Math.log(1.1);
-
 /** Whether a prediction differs from the faithful picture beyond the models' accuracy. */
 function distinctFrom(reference: Predicted, predicted: Predicted, deviation: number): boolean {
   const asSeen: Observed = { ...predicted };
@@ -225,7 +219,9 @@ function chargeContradictions(h: Scored, assertions: readonly RecordedAssertion[
   h.logScore -= (comparison.chiSquare - h.comparison.chiSquare) / 2;
   h.comparison = comparison;
   h.contradicted = contradicted.map((c) => c.assertion);
-  h.fits = (h.causes[0] === 'faithful' || h.distinct) && passesGate(comparison);
+  // each assertion charged is a significant contradiction of the record on its own (χ² > 3.84 on one
+  // degree of freedom): whatever the readings that agree would add to the gate, the hypothesis is ruled out
+  h.fits = false;
 }
 
 function scoreSingle(candidate: Candidate, reference: Predicted, observed: Observed): Scored {

@@ -2,13 +2,14 @@ import type { HypothesisCause, Predicted } from '../schemas/diagnosis';
 import { compare, type CompareOptions, type Term } from './scoring';
 import type { Observed, ResolvedSetup } from './types';
 import { SIGNIFICANT_IMPROVEMENT } from './verdict';
+import { loadMovesTrace } from './loading';
 
 /**
  * Causes whose prediction from the recorded setup is a fact of the recorded settings, and what
  * must be recorded for it to be one. Left out: models that lean on a typical value or a bound
  * rather than the record (compensation takes the probe as trimmed on a typical input, a ground
- * lead's overshoot is an upper bound, loading rests on a source impedance that is usually an
- * estimate, hum has no predicted level).
+ * lead's overshoot is an upper bound, hum has no predicted level). Loading asserts on a
+ * recorded source impedance, judged with that estimate's spread (`Candidate.recordSpread`).
  */
 const ASSERTS_FROM_RECORD: Partial<Record<HypothesisCause, (setup: ResolvedSetup) => boolean>> = {
   'attenuation-mismatch': () => true,
@@ -25,6 +26,11 @@ const ASSERTS_FROM_RECORD: Partial<Record<HypothesisCause, (setup: ResolvedSetup
   // the data-sheet corner is assumed unless recorded
   'ac-coupling': (setup) => setup.acCornerHz !== undefined,
   'common-mode': (setup) => setup.probeCmrrDb !== undefined,
+  // through a passive probe, whose tip and the scope input are the load the model knows (an active or
+  // differential probe loads with its own input); a generator's load setting says its set amplitude is
+  // already the loaded one, its divider being generator-load's
+  loading: (setup) =>
+    setup.probeKind === 'passive' && !setup.assumed.has('circuit.sourceResistanceOhm') && setup.generatorLoad === undefined && loadMovesTrace(setup),
 };
 
 /** Whether this cause's recorded prediction, for this setup, is something the record itself says. */
@@ -32,14 +38,12 @@ export const assertsFromRecord = (cause: HypothesisCause, setup: ResolvedSetup) 
 
 /**
  * With nothing observed, what the recorded setup says the scope will show: the assertions
- * above, and the models whose estimate is an upper bound or an estimate of a value that was
- * recorded (a recorded ground lead will ring, whatever damps it; a recorded source impedance
- * is loaded). A lead or a source impedance taken as typical predicts nothing about this setup.
+ * above, and a recorded ground lead, whose ringing is predicted even though its overshoot is
+ * only a bound. A lead or a source impedance taken as typical predicts nothing about this setup.
  */
 const PREDICTS_FROM_RECORD: Partial<Record<HypothesisCause, (setup: ResolvedSetup) => boolean>> = {
   ...ASSERTS_FROM_RECORD,
   'ground-lead': (setup) => !setup.assumed.has('probe.groundLeadM') || !setup.assumed.has('probe.groundKind'),
-  loading: (setup) => !setup.assumed.has('circuit.sourceResistanceOhm'),
 };
 
 /** Whether the recorded setup alone, with nothing observed, says this cause moves the trace. */

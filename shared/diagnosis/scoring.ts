@@ -67,6 +67,8 @@ export interface CompareOptions {
   overshootUpperBound?: boolean;
   /** The model's own amplitude accuracy when it is looser than a reading's (log units). */
   amplitudeSigma?: number;
+  /** The model's own rise-time accuracy when it is looser than a reading's (log units). */
+  riseTimeSigma?: number;
   /** The hypothesis says the trace runs off the screen (the clipping model's estimate). */
   predictsClipping?: boolean;
   /** The true amplitude, V: what an amplitude predicted as nothing (a DC level behind AC coupling) is judged against. */
@@ -124,7 +126,7 @@ export function compare(predicted: Predicted, observed: Observed, options: Compa
   if (predicted.amplitudeV === 0 && observed.amplitudeV !== undefined && observed.amplitudeV > zeroReadingV) {
     terms.push({ quantity: 'amplitudeV', residual: Math.log(zeroReadingV / observed.amplitudeV), sigma: amplitudeSigma });
   }
-  ratio('riseTimeS', predicted.riseTimeS, observed.riseTimeS, SIGMA.riseTime);
+  ratio('riseTimeS', predicted.riseTimeS, observed.riseTimeS, Math.max(SIGMA.riseTime, options.riseTimeSigma ?? 0));
   if (predicted.overshootPct !== undefined && observed.overshootPct !== undefined) {
     const residual = Math.log(level(predicted.overshootPct) / level(observed.overshootPct));
     const below = options.overshootUpperBound && residual > 0;

@@ -100,6 +100,12 @@ export interface Candidate {
    * shape and the channel's bandwidth, which a lumped model only approximates.
    */
   amplitudeSigma?: number;
+  /**
+   * How far this recorded prediction may be off because a recorded value it rests on is an
+   * estimate (log units, one standard deviation, the reading's own spread included): widens
+   * the test of what the record asserts against other hypotheses, not this one's own fit.
+   */
+  recordSpread?: { amplitudeSigma: number; riseTimeSigma: number };
   /** One bench action that tells this cause from the others. */
   confirm: string;
   /**

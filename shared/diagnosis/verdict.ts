@@ -31,6 +31,12 @@ export function fitGate(count: number): number {
  */
 export const SIGNIFICANT_IMPROVEMENT = CHI_SQUARE_95[0];
 
+/**
+ * A predicted error this large (log units, about 10 %) counts even where the prediction cannot
+ * be put in numbers, e.g. a ×10 mismatch with no expected amplitude recorded (our threshold).
+ */
+export const SIGNIFICANT_DEVIATION = Math.log(1.1);
+
 export interface Fitness {
   /** The faithful hypothesis passes the gate. */
   faithfulFits: boolean;

@@ -111,3 +111,69 @@ describe('loading from a recorded source impedance in the ranking', () => {
     expect(result.hypotheses[0].causes).toEqual(['loading']);
   });
 });
+
+// A recorded source impedance is an estimate (e^±0.5 by evidence.ts), but a load that moves the
+// trace far beyond that spread is a fact of the record: a trace the load cannot give is no true one.
+describe('what a recorded source impedance asserts', () => {
+  // source: the loaded node is a single pole, τ = (R_s ∥ R_in)·C; its 10–90 % edge is ln 9·τ
+  // (IEEE Std 181-2011, transition duration of a first-order step), and edges add in quadrature
+  const tauS = ((100e3 * 10e6) / (100e3 + 10e6)) * 10e-12;
+  const loadedEdgeS = Math.hypot(Math.log(9) * tauS, 10e-9);
+  const setup = {
+    probe: { attenuation: 10, tipCapacitanceF: 10e-12 },
+    scope: { attenuationSetting: 10 },
+    circuit: { sourceResistanceOhm: 100e3 },
+    signal: { expectedAmplitudeV: 5, frequencyHz: 10e3, riseTimeS: 10e-9, kind: 'square' as const },
+  };
+
+  it('should blame the load, and nothing else, for the slow edge it predicts', () => {
+    const result = diagnose({ ...setup, observed: { amplitudeV: 4.95, riseTimeS: loadedEdgeS } });
+    expect(loadedEdgeS).toBeCloseTo(2.18e-6, 8);
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].causes).toEqual(['loading']);
+    // a hidden bandwidth limit would give the same edge, but the record says the load acts anyway
+    const bandwidth = result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'bandwidth')!;
+    expect(bandwidth.fits).toBe(false);
+    expect(bandwidth.ruledOutBy).toContain('loading');
+    expect(result.tags).not.toContain('bandwidth');
+  });
+
+  it('should find nothing that fits an edge a hundred times faster than the recorded load allows', () => {
+    const result = diagnose({ ...setup, observed: { amplitudeV: 4.95, riseTimeS: 20e-9 } });
+    expect(result.verdict).toBe('unexplained');
+    expect(result.hypotheses.some((h) => h.fits)).toBe(false);
+    expect(result.hypotheses.find((h) => h.cause === 'faithful')!.ruledOutBy).toContain('loading');
+  });
+
+  it('should call a DC level read in full off a 5 MΩ node through 10 MΩ no true trace, and the divided one loading', () => {
+    // source: voltage-divider rule, 10 MΩ/(5 MΩ + 10 MΩ) = 2/3
+    const dc = { probe: { attenuation: 10 }, scope: { attenuationSetting: 10 }, circuit: { sourceResistanceOhm: 5e6 }, signal: { expectedAmplitudeV: 3, kind: 'dc' as const } };
+    expect(diagnose({ ...dc, observed: { amplitudeV: 3 } }).verdict).toBe('unexplained');
+    const divided = diagnose({ ...dc, observed: { amplitudeV: 2 } });
+    expect(divided.verdict).toBe('measurement-error');
+    expect(divided.hypotheses[0].causes).toEqual(['loading']);
+  });
+
+  it('should leave a load within the estimate’s spread to the reading: 9 % off a 1 MΩ node through 10 MΩ', () => {
+    // source: voltage-divider rule, 10/11 = 0.909; a source of e^0.5 × 1 MΩ would keep 0.858
+    const result = diagnose({ probe: { attenuation: 10 }, scope: { attenuationSetting: 10 }, circuit: { sourceResistanceOhm: 1e6 }, signal: { expectedAmplitudeV: 3, kind: 'dc' }, observed: { amplitudeV: 3 } });
+    expect(result.verdict).toBe('faithful');
+  });
+});
+
+describe('a load too light to move the trace', () => {
+  it('should leave the slow edge of a 20 MHz limit to the bandwidth, not tag loading beside it', () => {
+    // source: single pole t_r = ln 9/(2π·20 MHz) = 17.5 ns; a 50 Ω source on 12 pF adds ln 9·0.6 ns = 1.3 ns,
+    // under 1 % once edges add in quadrature, so the load explains nothing the chain does not
+    const result = diagnose({
+      probe: { attenuation: 10 },
+      scope: { attenuationSetting: 10, bandwidthHz: 200e6, bandwidthLimitHz: 20e6 },
+      signal: { expectedAmplitudeV: 3.3, frequencyHz: 5e6, riseTimeS: 1e-9, kind: 'square' },
+      observed: { amplitudeV: 3.3, riseTimeS: 17.6e-9 },
+    });
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].causes).toEqual(['bandwidth']);
+    expect(result.tags).not.toContain('loading');
+    expect(result.hypotheses.filter((h) => h.fits && h.causes.includes('loading'))).toEqual([]);
+  });
+});

@@ -60,7 +60,8 @@ describe('verdict properties', () => {
           attenuation: fc.constantFrom(1, 10, 100),
           groundKind: fc.constantFrom('spring' as const, 'clip-lead' as const),
           leadM: fc.option(fc.double({ min: 0.005, max: 0.3, noNaN: true }), { nil: undefined }),
-          sourceOhm: fc.double({ min: 0, max: 1e5, noNaN: true }),
+          // the source as a share of the most the probe can load without moving the trace (below)
+          sourceShare: fc.double({ min: 0, max: 1, noNaN: true }),
           scopeHz: fc.double({ min: 20e6, max: 2e9, noNaN: true }),
           limitHz: fc.option(fc.double({ min: 1e6, max: 100e6, noNaN: true }), { nil: undefined }),
           frequencyHz: fc.option(fc.double({ min: 10, max: 50e6, noNaN: true }), { nil: undefined }),
@@ -83,12 +84,22 @@ describe('verdict properties', () => {
           // a square's settled top is reached); a narrower chain shrinks what is seen (the next property)
           fc.pre(s.frequencyHz === undefined || Math.log(9) / (2 * Math.PI * chainS) >= 10 * s.frequencyHz);
           const riseS = s.signalRiseS ?? chainS;
+          // a source the probe barely loads: the load's own edge, ln 9·R_s·C, a third of the edge seen at most
+          // (shown within 6 %, edges in quadrature), its RC corner ten times the frequency, and at least 97 %
+          // of the level kept by R_in/(R_s + R_in)
+          // common practice: a 10x or 100x probe puts about 12 pF on the tip (9 or 99 MΩ into 1 MΩ), a 1x probe about 100 pF
+          const tipF = s.attenuation === 1 ? 100e-12 : 12e-12;
+          const probeOhm = s.attenuation === 1 ? 1e6 : s.attenuation * 1e6;
+          const limits = [1e5, (0.03 / 0.97) * probeOhm];
+          if (hasEdges && s.observeEdges) limits.push(riseS / (3 * Math.log(9) * tipF));
+          if (s.frequencyHz !== undefined) limits.push(1 / (2 * Math.PI * tipF * 10 * s.frequencyHz));
+          const sourceOhm = s.sourceShare * Math.min(...limits);
           const observed: NonNullable<DiagnosisInput['observed']> = { amplitudeV: s.amplitudeV };
           if (hasEdges && s.observeEdges) Object.assign(observed, { riseTimeS: riseS, overshootPct: 0 });
           const result = diagnose({
             probe: { attenuation: s.attenuation, groundKind: s.groundKind, groundLeadM: s.leadM },
             scope: { attenuationSetting: s.attenuation, inputResistanceOhm: 1e6, bandwidthHz: s.scopeHz, bandwidthLimitHz: s.limitHz },
-            circuit: { sourceResistanceOhm: s.sourceOhm },
+            circuit: { sourceResistanceOhm: sourceOhm },
             signal: { expectedAmplitudeV: s.amplitudeV, frequencyHz: s.frequencyHz, kind: s.kind, riseTimeS: s.signalRiseS },
             observed,
           });

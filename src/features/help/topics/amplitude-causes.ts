@@ -89,7 +89,9 @@ export const LOADING_TOPIC: HelpTopic = {
 - Oscillators shift frequency or **stop** when touched; the circuit behaves differently with the probe on.`,
   physics: `The probe is not a window but a component: a resistance in parallel with a capacitance, hung on the node. A 10x passive probe is about **10 MΩ ∥ 10–15 pF**; a 1x probe is the scope's 1 MΩ with the cable's capacitance, around **100 pF**.
 
-Whatever drives the node has its own (Thevenin) resistance R_s. The probe and R_s form a divider. At DC only the resistances matter; at higher frequencies the probe's capacitance takes over and the divider falls with frequency, with a corner where the capacitance's reactance equals the parallel resistance. The same RC slows edges.`,
+Whatever drives the node has its own (Thevenin) resistance R_s. The probe and R_s form a divider. At DC only the resistances matter; at higher frequencies the probe's capacitance takes over and the divider falls with frequency, with a corner where the capacitance's reactance equals the parallel resistance. The same RC slows edges.
+
+A source impedance you record is read as an estimate, good to a factor of about 1.6. Where even that spread leaves the load moving the trace, the record says so: a passive probe on a recorded 100 kΩ node cannot show a 20 ns edge, so such a reading is **unexplained** (check the recorded impedance), not put down to some other cause.`,
   formulas: [
     { tex: String.raw`\frac{V_\text{shown}}{V_\text{true}} = \frac{R_\text{in}}{R_s + R_\text{in}}`, meaning: 'DC divider' },
     { tex: String.raw`\left\lvert \frac{Z_p}{R_s + Z_p} \right\rvert,\quad Z_p = R_\text{in} \parallel \frac{1}{j\,2\pi f C}`, meaning: 'AC divider at frequency f' },

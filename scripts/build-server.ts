@@ -2,6 +2,7 @@ import { copyFileSync, cpSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { build } from 'esbuild';
+import { engineRevisionFromSource } from '../server/services/engine-revision';
 
 // npm run build:server → dist-server/: the server as plain JavaScript for `node dist-server/index.mjs`,
 // so production runs without tsx or npm between the process manager's signals and the server.
@@ -12,7 +13,9 @@ rmSync(out, { recursive: true, force: true });
 mkdirSync(path.join(out, 'migrations'), { recursive: true });
 
 const common = { platform: 'node', format: 'esm', target: 'node20', packages: 'external', sourcemap: true, logLevel: 'warning' } as const;
-await build({ ...common, entryPoints: [path.join(root, 'server/index.ts')], bundle: true, outfile: path.join(out, 'index.mjs') });
+// the bundle has no engine source beside it to fingerprint: the revision goes in as a constant
+const define = { 'process.env.FALSETRACE_ENGINE_REVISION': JSON.stringify(engineRevisionFromSource()) };
+await build({ ...common, entryPoints: [path.join(root, 'server/index.ts')], bundle: true, define, outfile: path.join(out, 'index.mjs') });
 // the search index's thread, found by the server beside its bundle
 await build({ ...common, entryPoints: [path.join(root, 'server/search/search-worker.ts')], bundle: true, outfile: path.join(out, 'search-worker.mjs') });
 await build({

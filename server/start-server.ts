@@ -16,6 +16,7 @@ import { startLocalSmtpFake } from './mail/local-smtp-fake';
 import { createMailQueue } from './mail/mail-queue';
 import { resolvePasswordResetRequests } from './services/auth';
 import { createMailer } from './mail/mailer';
+import { rediagnoseCasebook } from './services/rediagnose';
 import { openCaseSearch } from './search/case-search';
 import { seedDemoCasebook } from './seed/demo/seed-casebook';
 import { runDailyDigestIfDue } from './services/digest';
@@ -56,6 +57,12 @@ export async function startServer(config: Config) {
     .catch(() => undefined);
   // after the index, so the warm-up does not slow the start on 2 cores
   let stopping = false;
+  // stored diagnoses from an older engine are brought up to this one, once, after the index (it re-indexes what changed)
+  void search.ready
+    .catch(() => undefined)
+    .then(() => (stopping ? null : rediagnoseCasebook({ db, search })))
+    .then((done) => done && logger.info(done, `stored diagnoses brought up to this engine: ${done.updated} of ${done.checked} cases changed`))
+    .catch((err) => stopping || logger.error({ err }, 're-diagnosis of the stored cases failed'));
   if (config.captureWarmUp) {
     void search.ready
       .catch(() => undefined)

@@ -6,6 +6,7 @@ import type { AuditLogTable, CasesTable, CommentsTable, CaseRevisionsTable, Case
 import { isPostgres } from '../../db/dialect';
 import { insertMany } from '../../db/repositories/bulk-insert';
 import { recomputeDiagnosis, type StoredDiagnosis } from '../../services/case-diagnosis';
+import { markDiagnosesCurrent } from '../../services/rediagnose';
 import { DEMO_CASES } from '../demo/seed-casebook';
 import { mulberry32 } from '../demo/prng';
 import { benchPeople } from './people';
@@ -164,6 +165,8 @@ export async function seedBenchCasebook(db: Db, options: BenchSeedOptions): Prom
   // explicit ids, so the next case created would collide with case 1 unless it is set here.
   if (isPostgres(db)) await sql`select setval(pg_get_serial_sequence('cases', 'id'), (select max(id) from cases))`.execute(db);
   await pinLessons(db, moderators[0]);
+  // every diagnosis was just computed by this engine: no re-diagnosis at the next start
+  await markDiagnosesCurrent(db);
   return result;
 }
 

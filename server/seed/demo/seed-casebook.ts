@@ -1,4 +1,5 @@
 import { writeFile } from 'node:fs/promises';
+import { markDiagnosesCurrent } from '../../services/rediagnose';
 import path from 'node:path';
 import type { User } from '../../../shared/schemas/auth';
 import { caseCreateSchema, casePatchSchema } from '../../../shared/schemas/case';
@@ -181,5 +182,7 @@ export async function seedDemoCasebook(deps: AppDeps, password: string): Promise
       await backdateCase(deps.db, created.id, before, step.at);
     }
   }
+  // every diagnosis was just computed by this engine: no re-diagnosis at the next start
+  await markDiagnosesCurrent(deps.db);
   return { people: people.size, cases: DEMO_CASES.length, attachments, ids };
 }

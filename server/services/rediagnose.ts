@@ -1,3 +1,4 @@
+import { performance } from 'node:perf_hooks';
 import { setImmediate as yieldToRequests } from 'node:timers/promises';
 import type { CaseSetup } from '../../shared/schemas/case';
 import type { StatedCause } from '../../shared/schemas/case';
@@ -10,8 +11,10 @@ import { engineRevision } from './engine-revision';
 
 /** The `app_state` key holding the engine revision every stored diagnosis was last computed by. */
 export const ENGINE_REVISION_KEY = 'engine_revision';
-/** Cases read and recomputed at a time, between which requests get the event loop back. */
+/** Cases read at a time. */
 const BATCH = 100;
+/** The engine takes about a millisecond a case: the event loop goes back to requests this often (ms). */
+const SLICE_MS = 10;
 
 /** Records that every stored diagnosis is the current engine's (after a seed computed them all). */
 export async function markDiagnosesCurrent(db: Db, revision = engineRevision()): Promise<void> {
@@ -27,8 +30,8 @@ export async function markDiagnosesCurrent(db: Db, revision = engineRevision()):
  * verdict, engine cause, the cause it is filed under, its disagreement flag and its engine tags
  * were computed when it was last saved, and a newer engine may answer differently. Only cases
  * whose answer changed are written (not their update time: nobody edited them) and re-indexed.
- * Reads a batch at a time and yields between batches, so requests are served meanwhile. Several
- * instances starting at once may each run it; the result is the same.
+ * Reads a batch at a time and yields every few milliseconds, so requests are served meanwhile.
+ * Several instances starting at once may each run it; the result is the same.
  */
 export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, revision = engineRevision()): Promise<{ checked: number; updated: number } | null> {
   const { db } = deps;
@@ -36,11 +39,16 @@ export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, r
   if (stored?.value === revision) return null;
   let checked = 0;
   let updated = 0;
+  let sliceStarted = performance.now();
   for (let after = 0; ; ) {
     const rows = await db.selectFrom('cases').select(['id', 'setup', 'stated_cause', 'diagnosis']).where('id', '>', after).orderBy('id').limit(BATCH).execute();
     if (rows.length === 0) break;
     after = rows[rows.length - 1].id;
     for (const row of rows) {
+      if (performance.now() - sliceStarted > SLICE_MS) {
+        await yieldToRequests();
+        sliceStarted = performance.now();
+      }
       checked++;
       const d = recomputeDiagnosis(JSON.parse(row.setup) as CaseSetup, row.stated_cause as StatedCause | null);
       const diagnosis = d.diagnosis ? JSON.stringify(d.diagnosis) : null;
@@ -56,7 +64,6 @@ export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, r
       await caseChanged(deps, row.id);
       updated++;
     }
-    await yieldToRequests();
   }
   await markDiagnosesCurrent(db, revision);
   return { checked, updated };

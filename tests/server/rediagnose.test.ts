@@ -78,6 +78,25 @@ describe('stored diagnoses brought up to the current engine', () => {
     expect(await rediagnoseCasebook({ db: ctx.db, search: ctx.search })).toEqual({ checked: 2, updated: 0 });
   });
 
+  it('should give the event loop back while it works through many cases', async () => {
+    // six hundred more cases, each costing the engine about half a millisecond or more
+    const { id: _id, ...copy } = await ctx.db.selectFrom('cases').selectAll().where('id', '=', currentId).executeTakeFirstOrThrow();
+    await ctx.db.insertInto('cases').values(Array.from({ length: 600 }, () => copy)).execute();
+    await markDiagnosesCurrent(ctx.db, 'yet another');
+    let turns = 0;
+    let counting = true;
+    const count = () => {
+      turns++;
+      if (counting) setImmediate(count);
+    };
+    setImmediate(count);
+    const done = await rediagnoseCasebook({ db: ctx.db, search: ctx.search });
+    counting = false;
+    expect(done).toEqual({ checked: 602, updated: 0 });
+    // a sweep holding the loop throughout would let the counter run once at most
+    expect(turns).toBeGreaterThan(2);
+  });
+
   it('should fingerprint the engine source, the same each time', () => {
     expect(engineRevisionFromSource()).toMatch(/^[0-9a-f]{16}$/);
     expect(engineRevisionFromSource()).toBe(engineRevision());

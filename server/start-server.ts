@@ -1,3 +1,4 @@
+import { rmSync } from 'node:fs';
 import type { Server } from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -16,7 +17,8 @@ import { startLocalSmtpFake } from './mail/local-smtp-fake';
 import { createMailQueue } from './mail/mail-queue';
 import { resolvePasswordResetRequests } from './services/auth';
 import { createMailer } from './mail/mailer';
-import { rediagnoseCasebook } from './services/rediagnose';
+import { rediagnoseCasebook, rediagnosisInterrupted } from './services/rediagnose';
+import { snapshotPath } from './search/snapshot';
 import { openCaseSearch } from './search/case-search';
 import { seedDemoCasebook } from './seed/demo/seed-casebook';
 import { runDailyDigestIfDue } from './services/digest';
@@ -50,6 +52,11 @@ export async function startServer(config: Config) {
   // after seeding, so a fresh casebook is indexed; a matching snapshot in DATA_DIR skips the rebuild
   // on its own thread and in the background: the server listens at once, searches wait for it (or 503)
   const searchStarted = performance.now();
+  if (await rediagnosisInterrupted(db)) {
+    // its rewrites keep their edit time, so the snapshot would still look current: build from the database
+    rmSync(snapshotPath(config.dataDir), { force: true });
+    logger.warn('a re-diagnosis of the stored cases was cut short: the search index is rebuilt, and the re-diagnosis runs again');
+  }
   const search = await openCaseSearch(db, { dataDir: config.dataDir, worker: true, background: true });
   // a shutdown may close the worker between the load and this count: that is no error to crash on
   search.ready

@@ -11,6 +11,11 @@ import { engineRevision } from './engine-revision';
 
 /** The `app_state` key holding the engine revision every stored diagnosis was last computed by. */
 export const ENGINE_REVISION_KEY = 'engine_revision';
+/**
+ * Set while a re-diagnosis runs: rows it rewrote keep their edit time, so a search snapshot taken
+ * before it still matches the database; after a crash mid-sweep that snapshot must not be trusted.
+ */
+export const SWEEP_MARKER_KEY = 'engine_revision_sweep';
 /** Cases read at a time. */
 const BATCH = 100;
 /** The engine takes about a millisecond a case: the event loop goes back to requests this often (ms). */
@@ -18,11 +23,7 @@ const SLICE_MS = 10;
 
 /** Records that every stored diagnosis is the current engine's (after a seed computed them all). */
 export async function markDiagnosesCurrent(db: Db, revision = engineRevision()): Promise<void> {
-  await db
-    .insertInto('app_state')
-    .values({ key: ENGINE_REVISION_KEY, value: revision })
-    .onConflict((oc) => oc.column('key').doUpdateSet({ value: revision }))
-    .execute();
+  await setState(db, ENGINE_REVISION_KEY, revision);
 }
 
 /**
@@ -36,7 +37,12 @@ export async function markDiagnosesCurrent(db: Db, revision = engineRevision()):
 export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, revision = engineRevision()): Promise<{ checked: number; updated: number } | null> {
   const { db } = deps;
   const stored = await db.selectFrom('app_state').select('value').where('key', '=', ENGINE_REVISION_KEY).executeTakeFirst();
-  if (stored?.value === revision) return null;
+  if (stored?.value === revision) {
+    // a mark left by a sweep that died after marking its revision: the index was rebuilt at this start
+    await db.deleteFrom('app_state').where('key', '=', SWEEP_MARKER_KEY).execute();
+    return null;
+  }
+  await setState(db, SWEEP_MARKER_KEY, revision);
   let checked = 0;
   let updated = 0;
   let sliceStarted = performance.now();
@@ -65,6 +71,22 @@ export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, r
       updated++;
     }
   }
+  // the index now holds the rewritten cases: on disk too, before the sweep counts as done
+  if (updated > 0 && deps.search) await deps.search.saveSnapshot();
   await markDiagnosesCurrent(db, revision);
+  await db.deleteFrom('app_state').where('key', '=', SWEEP_MARKER_KEY).execute();
   return { checked, updated };
+}
+
+/** Whether a re-diagnosis was cut short (the process died): the search snapshot may predate its rewrites. */
+export async function rediagnosisInterrupted(db: Db): Promise<boolean> {
+  return (await db.selectFrom('app_state').select('key').where('key', '=', SWEEP_MARKER_KEY).executeTakeFirst()) !== undefined;
+}
+
+async function setState(db: Db, key: string, value: string): Promise<void> {
+  await db
+    .insertInto('app_state')
+    .values({ key, value })
+    .onConflict((oc) => oc.column('key').doUpdateSet({ value }))
+    .execute();
 }

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ENGINE_REVISION_KEY, markDiagnosesCurrent, rediagnoseCasebook } from '../../server/services/rediagnose';
+import { ENGINE_REVISION_KEY, markDiagnosesCurrent, rediagnoseCasebook, rediagnosisInterrupted, SWEEP_MARKER_KEY } from '../../server/services/rediagnose';
+import { openCaseSearch } from '../../server/search/case-search';
 import { engineRevision, engineRevisionFromSource } from '../../server/services/engine-revision';
 import { createTestContext, signedIn, type TestContext } from './helpers/test-context';
 
@@ -70,6 +71,24 @@ describe('stored diagnoses brought up to the current engine', () => {
     const found = await foundUnderMismatch();
     expect(found).toContain(staleId);
     expect(found).not.toContain(currentId);
+  });
+
+  it('should leave a search snapshot that holds the rewritten case, and no mark of a sweep in progress', async () => {
+    // the rewrite kept the case's edit time, so only a snapshot saved after it can be current
+    const restored = await openCaseSearch(ctx.db, { dataDir: ctx.config.dataDir });
+    expect(restored.origin).toBe('snapshot');
+    const found = await restored.search({ id: 2, role: 'moderator' }, { q: 'reset line tenth', cause: 'attenuation-mismatch', page: 1, pageSize: 20 });
+    expect(found.results.map((r) => r.id)).toContain(staleId);
+    restored.close();
+    expect(await rediagnosisInterrupted(ctx.db)).toBe(false);
+  });
+
+  it('should say a sweep was cut short when its mark is left behind', async () => {
+    await ctx.db.insertInto('app_state').values({ key: SWEEP_MARKER_KEY, value: 'x' }).execute();
+    expect(await rediagnosisInterrupted(ctx.db)).toBe(true);
+    // cut short after its revision was recorded: the next start's sweep has nothing to do but clear the mark
+    expect(await rediagnoseCasebook({ db: ctx.db, search: ctx.search })).toBeNull();
+    expect(await rediagnosisInterrupted(ctx.db)).toBe(false);
   });
 
   it('should do nothing again under the same engine', async () => {

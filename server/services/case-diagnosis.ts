@@ -26,6 +26,11 @@ export function clearTopCause(diagnosis: DiagnosisResult | null): Cause | null {
   return top.cause;
 }
 
+/** A stored diagnosis as the columns of its case row. */
+export function diagnosisColumns(d: StoredDiagnosis) {
+  return { diagnosis: d.diagnosis ? JSON.stringify(d.diagnosis) : null, engine_cause: d.engineCause, cause: d.cause, disagrees: d.disagrees ? 1 : 0 };
+}
+
 /** The server's own recomputation on every save, so a stored diagnosis never trusts the client. */
 export function recomputeDiagnosis(setup: CaseSetup, statedCause: StatedCause | null | undefined): StoredDiagnosis {
   let diagnosis: DiagnosisResult | null = null;

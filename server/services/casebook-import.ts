@@ -23,7 +23,7 @@ import {
 import type { AppDeps } from '../deps';
 import { AppError } from '../errors';
 import { storagePaths } from '../storage';
-import { recomputeDiagnosis } from './case-diagnosis';
+import { diagnosisColumns, recomputeDiagnosis } from './case-diagnosis';
 import { MAX_IMAGE_PIXELS, reencodeImage, sniffImage } from './image-intake';
 import { allCasesChanged } from '../search/change-log';
 import { renumberCaseReferences } from '../../shared/cases/case-references';
@@ -218,10 +218,7 @@ async function insertRecords(trx: Db, d: Awaited<ReturnType<typeof decide>>, sto
       safety_note: c.safetyNote ?? null,
       origin_key: d.keyOf.get(c.id)!,
       status: c.status,
-      diagnosis: diagnosis.diagnosis ? JSON.stringify(diagnosis.diagnosis) : null,
-      engine_cause: diagnosis.engineCause,
-      cause: diagnosis.cause,
-      disagrees: diagnosis.disagrees ? 1 : 0,
+      ...diagnosisColumns(diagnosis),
       review_note: c.reviewNote,
       duplicate_of: null,
       retired_reason: c.retiredReason,

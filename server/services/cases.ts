@@ -10,7 +10,7 @@ import type { AppDeps } from '../deps';
 import { AppError, forbidden, notFound } from '../errors';
 import { recordAudit } from '../db/repositories/audit-log';
 import { watchCase } from '../db/repositories/watches';
-import { recomputeDiagnosis } from './case-diagnosis';
+import { diagnosisColumns, recomputeDiagnosis } from './case-diagnosis';
 import { moderatorIds, notifyUsers } from './notifications';
 import { canonicalTags } from './tags';
 import { toCase, toCaseSummary } from './case-mapper';
@@ -74,10 +74,7 @@ export async function createCase({ db, search }: AppDeps, actor: Actor, input: C
       lesson_summary: input.lessonSummary ?? null,
       lesson_detail: input.lessonDetail ?? null,
       safety_note: input.safetyNote ?? null,
-      diagnosis: d.diagnosis ? JSON.stringify(d.diagnosis) : null,
-      engine_cause: d.engineCause,
-      cause: d.cause,
-      disagrees: d.disagrees ? 1 : 0,
+      ...diagnosisColumns(d),
       created_at: now,
       updated_at: now,
     });
@@ -129,10 +126,7 @@ export async function updateCase({ db, search }: AppDeps, actor: Actor, id: numb
       ...(input.statedCauseOther !== undefined && { stated_cause_other: input.statedCauseOther }),
       setup: JSON.stringify(setup),
       stated_cause: statedCause ?? null,
-      diagnosis: d.diagnosis ? JSON.stringify(d.diagnosis) : null,
-      engine_cause: d.engineCause,
-      cause: d.cause,
-      disagrees: d.disagrees ? 1 : 0,
+      ...diagnosisColumns(d),
       updated_at: now,
     });
     if (tags) await replaceCaseTags(trx, id, 'author', tags);

@@ -1,12 +1,11 @@
 import { performance } from 'node:perf_hooks';
 import { setImmediate as yieldToRequests } from 'node:timers/promises';
-import type { CaseSetup } from '../../shared/schemas/case';
-import type { StatedCause } from '../../shared/schemas/case';
+import type { CaseSetup, StatedCause } from '../../shared/schemas/case';
 import { replaceCaseTags } from '../db/repositories/case-tags';
 import type { Db } from '../db/database';
 import type { AppDeps } from '../deps';
 import { caseChanged } from '../search/change-log';
-import { recomputeDiagnosis } from './case-diagnosis';
+import { diagnosisColumns, recomputeDiagnosis } from './case-diagnosis';
 import { engineRevision } from './engine-revision';
 
 /** The `app_state` key holding the engine revision every stored diagnosis was last computed by. */
@@ -39,7 +38,7 @@ export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, r
   const stored = await db.selectFrom('app_state').select('value').where('key', '=', ENGINE_REVISION_KEY).executeTakeFirst();
   if (stored?.value === revision) {
     // a mark left by a sweep that died after marking its revision: the index was rebuilt at this start
-    await db.deleteFrom('app_state').where('key', '=', SWEEP_MARKER_KEY).execute();
+    await clearSweepMark(db);
     return null;
   }
   await setState(db, SWEEP_MARKER_KEY, revision);
@@ -57,14 +56,10 @@ export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, r
       }
       checked++;
       const d = recomputeDiagnosis(JSON.parse(row.setup) as CaseSetup, row.stated_cause as StatedCause | null);
-      const diagnosis = d.diagnosis ? JSON.stringify(d.diagnosis) : null;
-      if (diagnosis === row.diagnosis) continue;
+      const columns = diagnosisColumns(d);
+      if (columns.diagnosis === row.diagnosis) continue;
       await db.transaction().execute(async (trx) => {
-        await trx
-          .updateTable('cases')
-          .set({ diagnosis, engine_cause: d.engineCause, cause: d.cause, disagrees: d.disagrees ? 1 : 0 })
-          .where('id', '=', row.id)
-          .execute();
+        await trx.updateTable('cases').set(columns).where('id', '=', row.id).execute();
         await replaceCaseTags(trx, row.id, 'engine', d.engineTags);
       });
       await caseChanged(deps, row.id);
@@ -74,13 +69,17 @@ export async function rediagnoseCasebook(deps: Pick<AppDeps, 'db' | 'search'>, r
   // the index now holds the rewritten cases: on disk too, before the sweep counts as done
   if (updated > 0 && deps.search) await deps.search.saveSnapshot();
   await markDiagnosesCurrent(db, revision);
-  await db.deleteFrom('app_state').where('key', '=', SWEEP_MARKER_KEY).execute();
+  await clearSweepMark(db);
   return { checked, updated };
 }
 
 /** Whether a re-diagnosis was cut short (the process died): the search snapshot may predate its rewrites. */
 export async function rediagnosisInterrupted(db: Db): Promise<boolean> {
   return (await db.selectFrom('app_state').select('key').where('key', '=', SWEEP_MARKER_KEY).executeTakeFirst()) !== undefined;
+}
+
+async function clearSweepMark(db: Db): Promise<void> {
+  await db.deleteFrom('app_state').where('key', '=', SWEEP_MARKER_KEY).execute();
 }
 
 async function setState(db: Db, key: string, value: string): Promise<void> {

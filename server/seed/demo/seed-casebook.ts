@@ -1,5 +1,4 @@
 import { writeFile } from 'node:fs/promises';
-import { markDiagnosesCurrent } from '../../services/rediagnose';
 import path from 'node:path';
 import type { User } from '../../../shared/schemas/auth';
 import { caseCreateSchema, casePatchSchema } from '../../../shared/schemas/case';
@@ -10,6 +9,7 @@ import type { AppDeps } from '../../deps';
 import type { MailQueue } from '../../mail/mail-queue';
 import { addAttachment } from '../../services/attachments';
 import { createCase, submitCase, updateCase } from '../../services/cases';
+import { markDiagnosesCurrent } from '../../services/rediagnose';
 import { addComment } from '../../services/comments';
 import { pinLesson } from '../../services/lessons';
 import { reviewCase } from '../../services/review';

@@ -131,12 +131,11 @@ export function assessLoading({ setup, observed }: ModelContext): Candidate[] {
  * own edge is the bandwidth's to assert), at the spread `recordedSourceSpread` gives.
  */
 export function loadMovesTrace(setup: ResolvedSetup): boolean {
-  const p = loadingParamsOf(setup);
+  const { ratio, riseS } = loadedPictureAt(setup, 1);
   const { amplitudeSigma, riseTimeSigma } = recordedSourceSpread(setup);
   const unloadedRiseS = shownRiseTimeS(setup);
-  const loadedRiseS = setup.hasEdges && unloadedRiseS ? cascadeRiseTimeS([unloadedRiseS, loadedRiseTimeS(p)]) : undefined;
-  const amplitudeTerm = Math.log(loadedAmplitudeRatio(setup, p)) / amplitudeSigma;
-  const riseTerm = loadedRiseS && unloadedRiseS ? Math.log(loadedRiseS / unloadedRiseS) / riseTimeSigma : 0;
+  const amplitudeTerm = Math.log(ratio) / amplitudeSigma;
+  const riseTerm = setup.hasEdges && unloadedRiseS ? Math.log(riseS / unloadedRiseS) / riseTimeSigma : 0;
   return amplitudeTerm ** 2 > SIGNIFICANT_IMPROVEMENT || riseTerm ** 2 > SIGNIFICANT_IMPROVEMENT;
 }
 
@@ -148,18 +147,19 @@ export function loadMovesTrace(setup: ResolvedSetup): boolean {
  */
 function recordedSourceSpread(setup: ResolvedSetup): { amplitudeSigma: number; riseTimeSigma: number } {
   const tolerance = CONTRADICTION_TOLERANCE_LN['circuit.sourceResistanceOhm'];
-  const at = (factor: number) => {
-    const p = loadingParamsOf(setup, setup.sourceResistanceOhm * factor);
-    const reference = shownRiseTimeS(setup) ?? 0;
-    return { ratio: loadedAmplitudeRatio(setup, p), riseS: cascadeRiseTimeS([reference, loadedRiseTimeS(p)]) };
-  };
-  const middle = at(1);
-  const ends = [at(Math.exp(-tolerance)), at(Math.exp(tolerance))];
+  const middle = loadedPictureAt(setup, 1);
+  const ends = [loadedPictureAt(setup, Math.exp(-tolerance)), loadedPictureAt(setup, Math.exp(tolerance))];
   const spread = (pick: (v: typeof middle) => number) => Math.max(...ends.map((end) => (pick(end) > 0 && pick(middle) > 0 ? Math.abs(Math.log(pick(end) / pick(middle))) : 0)));
   return {
     amplitudeSigma: Math.hypot(SIGMA.amplitude, spread((v) => v.ratio)),
     riseTimeSigma: Math.hypot(SIGMA.riseTime, spread((v) => v.riseS)),
   };
+}
+
+/** The level kept and the edge shown with the recorded source impedance scaled by `factor`. */
+function loadedPictureAt(setup: ResolvedSetup, factor: number): { ratio: number; riseS: number } {
+  const p = loadingParamsOf(setup, setup.sourceResistanceOhm * factor);
+  return { ratio: loadedAmplitudeRatio(setup, p), riseS: cascadeRiseTimeS([shownRiseTimeS(setup) ?? 0, loadedRiseTimeS(p)]) };
 }
 
 function loadingCandidate(setup: ResolvedSetup, p: LoadingParams, basis: Candidate['basis']): Candidate {

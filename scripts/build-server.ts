@@ -27,6 +27,8 @@ await build({
 });
 // the capture worker, likewise
 await build({ ...common, entryPoints: [path.join(root, 'server/captures/capture-worker.ts')], bundle: true, outfile: path.join(out, 'capture-worker.mjs') });
+// the capture worker's second thread for large files, likewise
+await build({ ...common, entryPoints: [path.join(root, 'server/captures/back-half-worker.ts')], bundle: true, outfile: path.join(out, 'back-half-worker.mjs') });
 // the zip worker, likewise
 await build({ ...common, entryPoints: [path.join(root, 'server/casebook/zip-worker.ts')], bundle: true, outfile: path.join(out, 'zip-worker.mjs') });
 // the image worker is plain JavaScript already; its pool finds it beside the bundle

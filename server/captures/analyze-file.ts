@@ -14,7 +14,8 @@ export type CaptureAnalysis = Measured & {
 /**
  * Measures the chosen channel of a capture file (1-based among the signal columns, or a
  * column's name; the first when none is given) in passes with constant memory: one streaming
- * parse into binary columns beside the file, then the analysis reading those a block at a time.
+ * parse into binary columns beside the file (a large file's back half read by a second thread,
+ * `tuning.splitMinBytes` setting how large), then the analysis reading those a block at a time.
  * With `plotDir`, the compact samples for plots are also kept there. Errors come back as data,
  * with the reader's message.
  */
@@ -22,10 +23,11 @@ export async function analyzeCaptureFile(
   file: string,
   options: Pick<CaptureParseOptions, 'channel'> = {},
   output: { plotDir?: string } = {},
+  tuning: { splitMinBytes?: number } = {},
 ): Promise<{ ok: true; analysis: CaptureAnalysis } | { ok: false; message: string }> {
   const dir = scratchDirFor(file, 'samples');
   try {
-    const parsed = await readCaptureToStore(file, dir, options);
+    const parsed = await readCaptureToStore(file, dir, options, tuning);
     if (!parsed.ok) return parsed;
     const { columns, store } = parsed;
     try {

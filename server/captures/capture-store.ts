@@ -4,11 +4,12 @@ import path from 'node:path';
 import { ByteCaptureParser } from '../../shared/capture/parse-bytes';
 import type { ParsedColumns } from '../../shared/capture/parse';
 import type { CaptureParseOptions } from '../../shared/capture/types';
-import { feedCaptureStream } from './read-capture-stream';
+import { BackHalfSplit } from './back-half';
+import { feedCaptureStream, SkippedBytes } from './read-capture-stream';
 import { openStore, SampleFileWriter, writePlotStore, type OpenStore } from './sample-store';
 
 // Large reads: fewer trips through the stream machinery for a file of a gigabyte.
-const READ_CHUNK_BYTES = 1 << 19;
+export const READ_CHUNK_BYTES = 1 << 19;
 
 /**
  * The bytes of a file, a chunk at a time, read into two buffers used in turn: the next chunk is
@@ -17,27 +18,49 @@ const READ_CHUNK_BYTES = 1 << 19;
  * freed only when the heap is next collected, and with little else to collect they piled up
  * into tens of MB of resident memory. Each chunk is valid until the next is asked for; the
  * reader copies what it keeps.
+ *
+ * With a `split`, after the first chunk the back half of a large file may go to a second thread:
+ * the chunks then stop at the split, and go on from where the other thread's rows end (the
+ * bytes between are announced as `SkippedBytes`).
  */
-async function* fileChunks(file: string): AsyncGenerator<Buffer> {
+async function* fileChunks(file: string, split?: BackHalfSplit): AsyncGenerator<Buffer | SkippedBytes> {
   const handle = await open(file, 'r');
   const buffers = [Buffer.allocUnsafe(READ_CHUNK_BYTES), Buffer.allocUnsafe(READ_CHUNK_BYTES)];
+  const size = split ? (await handle.stat()).size : Number.POSITIVE_INFINITY;
+  let limit = size; // this thread reads up to here
   let position = 0;
   let which = 0;
-  let reading: Promise<{ bytesRead: number }> | null = handle.read(buffers[which], 0, READ_CHUNK_BYTES, position);
+  const readNext = () => (position < limit ? handle.read(buffers[which], 0, Math.min(READ_CHUNK_BYTES, limit - position), position) : Promise.resolve({ bytesRead: 0 }));
+  let reading: Promise<{ bytesRead: number }> | null = readNext();
   try {
     for (;;) {
       const { bytesRead } = await reading;
       reading = null;
-      if (bytesRead === 0) return;
+      if (bytesRead === 0) {
+        if (limit === size) return;
+        // at the split: everything before it is parsed
+        const { resumeByte, skippedBytes } = await split!.join();
+        if (skippedBytes > 0) yield new SkippedBytes(skippedBytes);
+        position = resumeByte;
+        limit = size;
+        reading = readNext();
+        continue;
+      }
       const chunk = buffers[which].subarray(0, bytesRead);
       position += bytesRead;
       which = 1 - which;
-      reading = handle.read(buffers[which], 0, READ_CHUNK_BYTES, position);
+      reading = readNext();
       yield chunk;
+      if (split && !split.tried) {
+        // the chunk read now ends at position + READ_CHUNK_BYTES at most: split after it
+        const at = await split.start(handle, position + READ_CHUNK_BYTES, size);
+        if (at !== null) limit = at;
+      }
     }
   } finally {
     // a caller that stops early leaves a read in flight: let it land before the file is closed
     await reading?.catch(() => undefined);
+    await split?.settle();
     await handle.close();
   }
 }
@@ -56,10 +79,12 @@ export async function readCaptureToStore(
   file: string,
   dir: string,
   options: CaptureParseOptions = {},
+  tuning: { splitMinBytes?: number } = {},
 ): Promise<{ ok: true; columns: ParsedColumns; store: OpenStore } | { ok: false; message: string }> {
   let writer: SampleFileWriter | null = null;
   const parser = new ByteCaptureParser(options, (count) => (writer = new SampleFileWriter(dir, count)));
-  const fed = await feedCaptureStream(fileChunks(file), parser);
+  const split = new BackHalfSplit(file, dir, parser, () => writer, tuning.splitMinBytes);
+  const fed = await feedCaptureStream(fileChunks(file, split), parser);
   const w = writer as SampleFileWriter | null;
   if (fed.error !== null) {
     w?.abandon();

@@ -3,6 +3,7 @@
 import { workerData } from 'node:worker_threads';
 import type { CaptureParseOptions } from '../../shared/capture/types';
 import { analyzeCaptureFile } from './analyze-file';
+import { keepBackHalfThread } from './back-half';
 import { buildPlotStore } from './capture-store';
 import { warmUpCaptureAnalysis } from './warm-up';
 
@@ -13,7 +14,10 @@ export type CaptureTask =
 
 // A worker the server keeps warm runs the warm-up before it takes its first task (the pool
 // hands it none until this module has loaded).
-const warmUpMs: number | null = (workerData as { warmUp?: boolean } | undefined)?.warmUp ? await warmUpCaptureAnalysis() : null;
+const keptWarm = (workerData as { warmUp?: boolean } | undefined)?.warmUp === true;
+// it keeps the thread that reads the back half of large files, warmed up with it
+if (keptWarm) keepBackHalfThread();
+const warmUpMs: number | null = keptWarm ? await warmUpCaptureAnalysis() : null;
 
 export default async function run(task: CaptureTask) {
   if (task.op === 'analyze') return analyzeCaptureFile(task.file, task.options, { plotDir: task.plotDir });

@@ -35,6 +35,11 @@ class ChunkDecoder {
     return this.decode(bytes, true);
   }
 
+  /** Counts bytes of plain ASCII rows read elsewhere, so later byte positions stay right. */
+  skip(length: number): void {
+    this.offset += length;
+  }
+
   get encodingName(): Encoding | null {
     return this.encoding;
   }
@@ -108,19 +113,28 @@ class ChunkDecoder {
 }
 
 /**
+ * Bytes of the stream that another reader has taken the rows of (see `BackHalfSplit`): they are
+ * counted, not read.
+ */
+export class SkippedBytes {
+  constructor(readonly length: number) {}
+}
+
+/**
  * Feeds a capture from a byte stream (an upload on disk, a socket) to a parser chunk by chunk,
  * so the file never sits in memory as text. Until the data rows start the bytes are decoded to
  * text; from then on, while the file is ASCII-compatible (UTF-8 or Latin-1) with LF line ends,
  * the parser reads the rows straight from the bytes. Stops reading as soon as the file is
  * known to be unreadable. Never rejects: returns the decoder's or the reader's error, if any.
  */
-export async function feedCaptureStream(stream: NodeJS.ReadableStream | Readable | AsyncIterable<Buffer>, parser: ByteCaptureParser): Promise<{ error: CaptureParseError | null; note: string | null }> {
+export async function feedCaptureStream(stream: NodeJS.ReadableStream | Readable | AsyncIterable<Buffer | SkippedBytes>, parser: ByteCaptureParser): Promise<{ error: CaptureParseError | null; note: string | null }> {
   const decoder = new ChunkDecoder();
   const decodeLine = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length).toString(decoder.encodingName === 'latin1' ? 'latin1' : 'utf8');
   let bytesMode = false;
   try {
-    for await (const chunk of stream as AsyncIterable<Buffer | string>) {
-      if (typeof chunk === 'string') parser.push(chunk);
+    for await (const chunk of stream as AsyncIterable<Buffer | string | SkippedBytes>) {
+      if (chunk instanceof SkippedBytes) decoder.skip(chunk.length);
+      else if (typeof chunk === 'string') parser.push(chunk);
       else if (bytesMode) {
         if (decoder.check(chunk)) parser.pushBytes(chunk, decodeLine);
       } else {

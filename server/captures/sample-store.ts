@@ -26,26 +26,56 @@ export interface StoreMeta {
   channelExp10s: number[];
   /** Set when the times are start + i·interval (within a millionth of the interval), and no time file is kept. */
   uniformTime?: { startS: number; intervalS: number };
+  /**
+   * An analysis store written in parts (two threads read halves of the file): per part its rows
+   * and the suffix of its column files (`time.f64<suffix>`…), in order. Absent: one part, no suffix.
+   */
+  parts?: { rows: number; suffix: string }[];
+}
+
+/** A part of a store another writer wrote: its file suffix, rows, and first and last times. */
+export interface WrittenPart {
+  suffix: string;
+  rows: number;
+  firstTimeS: number;
+  lastTimeS: number;
 }
 
 const WRITE_ROWS = 1 << 16;
 
-/** Rows from the parser, straight to one file per column, a block at a time. */
+const columnNames = (channelCount: number) => ['time.f64', ...Array.from({ length: channelCount }, (_, c) => `ch${c + 1}.f64`)];
+
+/**
+ * Rows from the parser, straight to one file per column, a block at a time. Rows another writer
+ * put in files of their own (with a suffix) can be taken in between (`appendPart`): the store
+ * then lists its parts, and this writer goes on in new files after them.
+ */
 export class SampleFileWriter implements RowSink {
   length = 0;
+  private first = Number.NaN;
   private last = Number.NEGATIVE_INFINITY;
-  private readonly fds: number[];
+  private fds: number[];
   private readonly blocks: Float64Array[];
   private fill = 0;
+  private readonly parts: { rows: number; suffix: string }[] = [];
+  private partStart = 0;
+  private suffix: string;
 
+  /** @param suffix of the column files (a part written beside another writer's) */
   constructor(
     readonly dir: string,
     readonly channelCount: number,
+    suffix = '',
   ) {
     mkdirSync(dir, { recursive: true });
-    const names = ['time.f64', ...Array.from({ length: channelCount }, (_, c) => `ch${c + 1}.f64`)];
-    this.fds = names.map((name) => openSync(path.join(dir, name), 'w'));
-    this.blocks = names.map(() => new Float64Array(WRITE_ROWS));
+    this.suffix = suffix;
+    this.fds = this.openFiles();
+    this.blocks = this.fds.map(() => new Float64Array(WRITE_ROWS));
+  }
+
+  /** Time of the first row, NaN before any. */
+  firstTimeS(): number {
+    return this.first;
   }
 
   lastTimeS(): number {
@@ -56,17 +86,49 @@ export class SampleFileWriter implements RowSink {
     const at = this.fill;
     this.blocks[0][at] = timeS;
     for (let c = 0; c < this.channelCount; c++) this.blocks[c + 1][at] = values[c];
+    if (this.length === 0) this.first = timeS;
     this.last = timeS;
     this.length++;
     if (++this.fill === WRITE_ROWS) this.flush();
   }
 
+  /**
+   * Takes the rows of a part another writer wrote in this directory as the rows that follow
+   * those written so far; later rows go to new files.
+   */
+  appendPart(part: WrittenPart): void {
+    this.endPart();
+    this.parts.push({ rows: part.rows, suffix: part.suffix });
+    if (this.length === 0) this.first = part.firstTimeS;
+    this.length += part.rows;
+    this.last = part.lastTimeS;
+    this.suffix = `.after${this.parts.length}`;
+    this.fds = this.openFiles();
+    this.partStart = this.length;
+  }
+
   /** Writes what is buffered and closes the files; then the store can be opened. */
-  close(meta: Omit<StoreMeta, 'rows' | 'channelCount' | 'precision'>): void {
+  close(meta: Omit<StoreMeta, 'rows' | 'channelCount' | 'precision' | 'parts'>): void {
+    this.endPart();
+    const parts = this.parts.filter((part) => part.rows > 0);
+    const single = parts.length === 0 || (parts.length === 1 && parts[0].suffix === '');
+    writeMeta(this.dir, { ...meta, rows: this.length, channelCount: this.channelCount, precision: 'f64', ...(single ? {} : { parts }) });
+  }
+
+  /** Writes what is buffered and closes the files, without a store's description (a part for another writer). */
+  closeFiles(): void {
+    this.endPart();
+  }
+
+  private openFiles(): number[] {
+    return columnNames(this.channelCount).map((name) => openSync(path.join(this.dir, `${name}${this.suffix}`), 'w'));
+  }
+
+  private endPart(): void {
     this.flush();
     for (const fd of this.fds) closeSync(fd);
-    this.fds.length = 0;
-    writeMeta(this.dir, { ...meta, rows: this.length, channelCount: this.channelCount, precision: 'f64' });
+    this.fds = [];
+    this.parts.push({ rows: this.length - this.partStart, suffix: this.suffix });
   }
 
   /** Closes the files without a usable store (the parse failed). */
@@ -113,13 +175,25 @@ export class FileSeries implements Series {
   private readonly divisor: number;
 
   /** @param decimals for 'i32': the stored integers are the values times 10^decimals */
+  private readonly fds: number[];
+  // first row of each part, and the rows in all
+  private readonly partStarts: number[];
+
+  /**
+   * @param files the column's file, or its parts in order with their rows
+   * @param decimals for 'i32': the stored integers are the values times 10^decimals
+   */
   constructor(
-    private readonly fd: number,
+    files: number | { fd: number; rows: number }[],
     readonly length: number,
     private readonly format: 'f64' | 'f32' | 'i32',
     private readonly exp10: number,
     decimals = 0,
   ) {
+    const parts = typeof files === 'number' ? [{ fd: files, rows: length }] : files;
+    this.fds = parts.map((part) => part.fd);
+    this.partStarts = [0];
+    for (const part of parts) this.partStarts.push(this.partStarts[this.partStarts.length - 1] + part.rows);
     this.divisor = 10 ** decimals;
     for (let k = 0; k < PAGES_KEPT; k++) this.pages.push(new Float64Array(PAGE));
   }
@@ -170,15 +244,26 @@ export class FileSeries implements Series {
   private read(from: number, to: number, out: Float64Array): void {
     const count = to - from;
     if (this.format === 'f64') {
-      readAll(this.fd, new Uint8Array(out.buffer, out.byteOffset, count * 8), from * 8);
+      this.readParts(from, to, new Uint8Array(out.buffer, out.byteOffset, count * 8), 8);
     } else {
       if (this.raw === null || this.raw.length < count) this.raw = this.format === 'f32' ? new Float32Array(Math.max(count, PAGE)) : new Int32Array(Math.max(count, PAGE));
       const raw = this.raw;
-      readAll(this.fd, new Uint8Array(raw.buffer, 0, count * 4), from * 4);
+      this.readParts(from, to, new Uint8Array(raw.buffer, 0, count * 4), 4);
       if (this.format === 'f32') for (let k = 0; k < count; k++) out[k] = raw[k];
       else for (let k = 0; k < count; k++) out[k] = raw[k] / this.divisor;
     }
     if (this.exp10 !== 0) for (let k = 0; k < count; k++) out[k] = scaleValue(out[k], this.exp10);
+  }
+
+  /** The stored bytes of samples [from, to) into `bytes` (`size` bytes a sample), from whichever parts hold them. */
+  private readParts(from: number, to: number, bytes: Uint8Array, size: number): void {
+    const starts = this.partStarts;
+    for (let p = 0, at = from; p < this.fds.length && at < to; p++) {
+      const end = Math.min(to, starts[p + 1]);
+      if (at >= end) continue;
+      readAll(this.fds[p], bytes.subarray((at - from) * size, (end - from) * size), (at - starts[p]) * size);
+      at = end;
+    }
   }
 }
 
@@ -232,9 +317,11 @@ export function openStore(dir: string): OpenStore {
     fds.push(fd);
     return fd;
   };
+  // a column's file, or its parts' files
+  const files = (name: string) => (meta.parts ? meta.parts.map((part) => ({ fd: open(`${name}${part.suffix}`), rows: part.rows })) : open(name));
   const timesS = meta.uniformTime
     ? new UniformSeries(meta.rows, meta.uniformTime.startS, meta.uniformTime.intervalS)
-    : new FileSeries(open('time.f64'), meta.rows, 'f64', meta.timeExp10);
+    : new FileSeries(files('time.f64'), meta.rows, 'f64', meta.timeExp10);
   const channels = new Map<number, Series>();
   return {
     meta,
@@ -244,7 +331,7 @@ export function openStore(dir: string): OpenStore {
       if (!series) {
         const decimals = meta.channelDecimals?.[n - 1] ?? null;
         const format = meta.precision === 'f64' ? 'f64' : decimals === null ? 'f32' : 'i32';
-        series = new FileSeries(open(`ch${n}.${format}`), meta.rows, format, meta.channelExp10s[n - 1] ?? 0, decimals ?? 0);
+        series = new FileSeries(files(`ch${n}.${format}`), meta.rows, format, meta.channelExp10s[n - 1] ?? 0, decimals ?? 0);
         channels.set(n, series);
       }
       return series;

@@ -1,3 +1,5 @@
+import type { DataLayout } from './data-layout';
+import type { RowSink } from './sample-buffer';
 import { CaptureParser, MAX_LINE_CHARS, ROW_FAILED, ROW_TAKEN, SLOT_NONE, SLOT_TIME } from './parse';
 import { readNumberBytes } from './read-number';
 import { CONTROL } from './separators';
@@ -20,6 +22,18 @@ export class ByteCaptureParser extends CaptureParser {
    */
   get acceptsBytes(): boolean {
     return this.layout !== null && this.lineEnd === '\n' && this.error === null;
+  }
+
+  override get atLineStart(): boolean {
+    return this.pendingBytes === null && super.atLineStart;
+  }
+
+  /**
+   * Counts rows another reader (`PlainRowReader`, on another thread) took into this parser's
+   * sink from the line after the last one read here; the caller has appended them to the sink.
+   */
+  rowsTakenElsewhere(rows: number): void {
+    this.countRowsTakenElsewhere(rows);
   }
 
   /** The unfinished last line pushed as text, handed back so it can be pushed again as bytes. */
@@ -105,7 +119,7 @@ export class ByteCaptureParser extends CaptureParser {
    *   the last one read, a cell `plainNumber` gives up on, a row not taken, the chunk's end), for
    *   the line-by-line path to read it again from `start`, as if this had not been tried
    */
-  private readPlainRow(bytes: Uint8Array, start: number, length: number): number {
+  protected readPlainRow(bytes: Uint8Array, start: number, length: number): number {
     const separator = this.separatorCode;
     const slots = this.slots;
     const lastColumn = this.lastColumn;
@@ -203,6 +217,35 @@ export class ByteCaptureParser extends CaptureParser {
       this.pendingBytes = null;
     }
     return super.finishColumns();
+  }
+}
+
+/**
+ * Reads the data rows of a capture from a line after its header, given the layout the reader of
+ * the header found (`continuableLayout`): only plain rows, the ones `readPlainRow` takes, each
+ * later than the last. It stops before the first other line (a footer, a bad row, text, a time
+ * that does not increase), leaving it to the reader that knows the file's line numbers and words.
+ * With it a second thread reads the back half of a large file while the first reads the front.
+ */
+export class PlainRowReader extends ByteCaptureParser {
+  constructor(layout: DataLayout, sink: RowSink) {
+    super({}, () => sink);
+    this.useLayout(layout);
+  }
+
+  /**
+   * Reads the whole plain rows of `bytes` from `start`; returns where it stopped: at the first
+   * row it does not take, or where an unfinished row begins at the end of `bytes`.
+   */
+  readRows(bytes: Uint8Array, start: number): number {
+    const length = bytes.length;
+    while (this.error === null) {
+      const next = this.readPlainRow(bytes, start, length);
+      // a row refused by takeRow (a time that does not increase) sets the error: stop before it
+      if (next < 0 || this.error !== null) return start;
+      start = next;
+    }
+    return start;
   }
 }
 

@@ -271,6 +271,14 @@ export class CaptureParser {
   }
 
   private startData(layout: DataLayout, line: string, isFinal: boolean): void {
+    this.useLayout(layout);
+    this.headerLine = this.preamble.headerLine();
+    this.firstDataLine = this.line;
+    this.readDataLine(line, 0, line.length, isFinal);
+  }
+
+  /** Sets up the row reader for a layout (and its sink). */
+  protected useLayout(layout: DataLayout): void {
     this.layout = layout;
     this.separatorCode = layout.separator.charCodeAt(0);
     const columns = layout.channels.map((channel) => channel.column);
@@ -283,9 +291,29 @@ export class CaptureParser {
     this.exp10s = layout.channels.map((channel) => channel.exp10);
     this.row = new Float64Array(layout.channels.length);
     this.buffer = this.sinkFor(layout.channels.length);
-    this.headerLine = this.preamble.headerLine();
-    this.firstDataLine = this.line;
-    this.readDataLine(line, 0, line.length, isFinal);
+  }
+
+  /**
+   * The layout another reader may continue the data rows with from a later line (see
+   * `PlainRowReader`): set while rows without metadata cells and with LF line ends are being
+   * read and no footer has begun; null otherwise, and for rows timed by their count (a reader
+   * elsewhere cannot know it).
+   */
+  get continuableLayout(): DataLayout | null {
+    const layout = this.layout;
+    if (layout === null || this.error !== null || this.lineEnd !== '\n' || this.footer !== null) return null;
+    return layout.metadataColumns === 0 && layout.time.kind !== 'rows' ? layout : null;
+  }
+
+  /** True when nothing of a line is held over: what was read so far ended with a line end. */
+  get atLineStart(): boolean {
+    return this.pending === '';
+  }
+
+  /** Counts `rows` rows, one line each, that another reader took into this parser's sink. */
+  protected countRowsTakenElsewhere(rows: number): void {
+    this.rows += rows;
+    this.line += rows;
   }
 
   protected fail(error: CaptureParseError): void {

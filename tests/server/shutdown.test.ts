@@ -68,7 +68,7 @@ describe(`the compiled server under plain node stops cleanly on SIGTERM (${ON_PO
 
   it('should carry beside the bundle every file the workers and the demo seeding read at run time', () => {
     const built = new Set(readdirSync(path.join(root, outDir)));
-    for (const worker of ['search-worker.mjs', 'capture-worker.mjs', 'zip-worker.mjs', 'reencode-worker.mjs']) expect(built, worker).toContain(worker);
+    for (const worker of ['search-worker.mjs', 'capture-worker.mjs', 'back-half-worker.mjs', 'zip-worker.mjs', 'reencode-worker.mjs']) expect(built, worker).toContain(worker);
     // an empty DATA_DIR is seeded with the demo, whose captures are read from CAPTURE_DIR beside the bundle
     expect(readdirSync(path.join(root, outDir, 'captures')).sort()).toEqual(readdirSync(CAPTURE_DIR).sort());
   });

@@ -1,0 +1,155 @@
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { closeBackHalfThread } from '../../server/captures/back-half';
+import { READ_CHUNK_BYTES, readCaptureToStore, scratchDirFor } from '../../server/captures/capture-store';
+import type { CaptureParseOptions } from '../../shared/capture/types';
+import type { Series } from '../../shared/capture/series';
+
+// A large capture's back half is read by a second thread (back-half.ts). Whatever the file holds
+// past the split, the outcome must be the one a single reader gives: the same samples, notes,
+// settings, line numbers and errors. Each file here is read both ways and compared.
+
+const dir = mkdtempSync(path.join(tmpdir(), 'falsetrace-split-'));
+afterAll(async () => {
+  await closeBackHalfThread();
+  rmSync(dir, { recursive: true, force: true });
+});
+
+const ROWS = 120_000; // about 3 MB: past the first MB the front reads before it splits
+
+/** Invented rows: fixed-width times in µs and two channels in mV, so a row can be replaced by one of the same length. */
+function rowText(i: number): string {
+  const t = (1000 + i * 0.002).toFixed(4); // 1000.0000 … 1239.9980: always nine characters
+  const v = (1650 + 1600 * Math.sin(i / 50)).toFixed(1).padStart(6, '0');
+  return `${t},${v},${(i % 997).toString().padStart(3, '0')}`;
+}
+
+function captureText(rows: string[], lineEnd = '\n', last = true): string {
+  const head = ['Sample Rate,500MSa/s', 'Time (us),CH1 (mV),CH2 (mV)'];
+  return [...head, ...rows].join(lineEnd) + (last ? lineEnd : '');
+}
+
+const allRows = () => Array.from({ length: ROWS }, (_, i) => rowText(i));
+
+function values(series: Series): number[] {
+  const out: number[] = [];
+  series.scan(0, series.length, (block) => out.push(...block));
+  return out;
+}
+
+type Outcome =
+  | { ok: false; message: string }
+  | { ok: true; columns: unknown; times: number[]; channels: number[][]; parts: number };
+
+async function readWith(file: string, splitMinBytes: number, options: CaptureParseOptions = {}): Promise<Outcome> {
+  const store = scratchDirFor(file, 'samples');
+  try {
+    const parsed = await readCaptureToStore(file, store, options, { splitMinBytes });
+    if (!parsed.ok) return parsed;
+    try {
+      const channels = parsed.columns.channels.map((_, k) => values(parsed.store.channel(k + 1)));
+      return { ok: true, columns: parsed.columns, times: values(parsed.store.timesS), channels, parts: parsed.store.meta.parts?.length ?? 1 };
+    } finally {
+      parsed.store.close();
+    }
+  } finally {
+    await rm(store, { recursive: true, force: true });
+  }
+}
+
+/** Reads the text by one thread and split between two; expects the same outcome, and returns both. */
+async function bothWays(name: string, text: string | Buffer, options: CaptureParseOptions = {}) {
+  const file = path.join(dir, name);
+  writeFileSync(file, text);
+  const single = await readWith(file, Number.POSITIVE_INFINITY, options);
+  const split = await readWith(file, 0, options);
+  const { parts: _a, ...singleRest } = single as Outcome & { parts?: number };
+  const { parts: _b, ...splitRest } = split as Outcome & { parts?: number };
+  expect(splitRest).toEqual(singleRest);
+  return { single, split };
+}
+
+/** The row the back half starts at: the line after the middle of what follows the front's first reads. */
+function splitRow(text: string): number {
+  const from = 2 * READ_CHUNK_BYTES;
+  const middle = from + Math.floor((Buffer.byteLength(text) - from) / 2);
+  const start = text.indexOf('\n', middle) + 1;
+  return text.slice(0, start).split('\n').length - 3; // less the two header lines
+}
+
+describe('a large capture read by two threads', () => {
+  it('should give the same samples and notes as one reader, in two parts', async () => {
+    const { split } = await bothWays('plain.csv', captureText(allRows()));
+    expect(split.ok).toBe(true);
+    if (!split.ok) return;
+    expect(split.parts).toBe(2);
+    expect(split.times.length).toBe(ROWS);
+    // spot checks against the text itself
+    expect(split.times[ROWS - 1]).toBeCloseTo(1239.998e-6, 15);
+    expect(split.channels[1][ROWS - 1]).toBeCloseTo(((ROWS - 1) % 997) / 1000, 12);
+  });
+
+  it('should read CRLF files the same way', async () => {
+    const { split } = await bothWays('crlf.csv', captureText(allRows(), '\r\n'));
+    expect(split.ok && split.times.length).toBe(ROWS);
+  });
+
+  it('should go on past a line the second thread does not read (a comment in another encoding, a blank line)', async () => {
+    const rows = allRows();
+    rows.splice(100_000, 0, '# probe moved to TP7 at 1.2 µs', '');
+    const { split } = await bothWays('comment.csv', captureText(rows));
+    expect(split.ok && split.parts).toBe(3);
+  });
+
+  it('should report a bad row in the back half at its own line', async () => {
+    const rows = allRows();
+    rows[110_000] = '1220.0000,16x0.5,001';
+    const { single } = await bothWays('bad-row.csv', captureText(rows));
+    expect(single.ok).toBe(false);
+    if (!single.ok) expect(single.message).toMatch(/line 110003/);
+  });
+
+  it('should report time going back in the back half at its own line', async () => {
+    const rows = allRows();
+    rows[105_000] = rows[104_000];
+    const { single } = await bothWays('backwards.csv', captureText(rows));
+    expect(single.ok).toBe(false);
+    if (!single.ok) expect(single.message).toMatch(/time is not increasing at line 105003/);
+  });
+
+  it('should not take the back half when its first row does not follow the front', async () => {
+    const rows = allRows();
+    const text = captureText(rows);
+    const at = splitRow(text);
+    rows[at] = rows[at - 1]; // same width: the split falls on the same line
+    const { single } = await bothWays('boundary.csv', captureText(rows));
+    expect(single.ok).toBe(false);
+    if (!single.ok) expect(single.message).toMatch(new RegExp(`time is not increasing at line ${at + 3}`));
+  });
+
+  it('should give a NUL byte in the back half its byte position', async () => {
+    const bytes = Buffer.from(captureText(allRows()));
+    const at = bytes.length - 5000;
+    bytes[at] = 0;
+    const { single } = await bothWays('nul.csv', bytes);
+    expect(single.ok).toBe(false);
+    if (!single.ok) expect(single.message).toContain(`byte ${at}`);
+  });
+
+  it('should note a footer and an unterminated last line as one reader does', async () => {
+    const footer = await bothWays('footer.csv', captureText([...allRows(), 'End of record', '']));
+    expect(footer.single.ok).toBe(true);
+    const cut = await bothWays('cut.csv', captureText([...allRows(), '1240.0000,00'], '\n', false));
+    expect(cut.single.ok && (cut.single.columns as { notes: string[] }).notes.join(' ')).toMatch(/unterminated last line/);
+  });
+
+  it('should read a file timed by its rows on one thread', async () => {
+    const rows = Array.from({ length: ROWS }, (_, i) => `${(1650 + 1600 * Math.sin(i / 50)).toFixed(1)},${i % 997}`);
+    const text = ['Sample Interval,2e-9', 'CH1 (mV),CH2 (mV)', ...rows].join('\n') + '\n';
+    const { split } = await bothWays('rows.csv', text);
+    expect(split.ok && split.parts).toBe(1);
+  });
+});

@@ -146,6 +146,15 @@ describe('a large capture read by two threads', () => {
     expect(cut.single.ok && (cut.single.columns as { notes: string[] }).notes.join(' ')).toMatch(/unterminated last line/);
   });
 
+  it('should time the back half of a file with a sample index from the start and increment in its header', async () => {
+    const rows = Array.from({ length: ROWS }, (_, i) => `${i},${(1.65 + 1.6 * Math.sin(i / 50)).toFixed(4)}`);
+    const text = ['X,CH1,Start,Increment', 'Sequence,Volt,-5.000000e-06,2.000000e-09', ...rows].join('\n') + '\n';
+    const { split } = await bothWays('index.csv', text);
+    expect(split.ok && split.parts).toBe(2);
+    // source: time = start + index × increment, as the header states
+    if (split.ok) expect(split.times[ROWS - 1]).toBeCloseTo(-5e-6 + (ROWS - 1) * 2e-9, 15);
+  });
+
   it('should read a file timed by its rows on one thread', async () => {
     const rows = Array.from({ length: ROWS }, (_, i) => `${(1650 + 1600 * Math.sin(i / 50)).toFixed(1)},${i % 997}`);
     const text = ['Sample Interval,2e-9', 'CH1 (mV),CH2 (mV)', ...rows].join('\n') + '\n';

@@ -61,6 +61,8 @@ export class BackHalfSplit {
     private readonly parser: ByteCaptureParser,
     private readonly writer: () => SampleFileWriter | null,
     private readonly minBytes = SPLIT_MIN_BYTES,
+    // the other thread; a test gives one that fails
+    private readonly runTask: (task: BackHalfTask) => Promise<BackHalfResult> = (task) => thePool().run(task) as Promise<BackHalfResult>,
   ) {}
 
   /**
@@ -79,8 +81,12 @@ export class BackHalfSplit {
     if (lineEnd < 0) return null;
     this.startByte = middle + lineEnd + 1;
     const task: BackHalfTask = { file: this.file, dir: this.dir, suffix: SUFFIX, startByte: this.startByte, layout };
-    // a thread that fails leaves the back half to this one: the result is the same, only slower
-    this.task = (thePool().run(task) as Promise<BackHalfResult>).catch(() => null);
+    // a thread that cannot start or fails leaves the back half to this one: the result is the same, only slower
+    try {
+      this.task = this.runTask(task).catch(() => null);
+    } catch {
+      return null;
+    }
     return this.startByte;
   }
 

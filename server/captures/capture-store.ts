@@ -5,6 +5,7 @@ import { ByteCaptureParser } from '../../shared/capture/parse-bytes';
 import type { ParsedColumns } from '../../shared/capture/parse';
 import type { CaptureParseOptions } from '../../shared/capture/types';
 import { BackHalfSplit } from './back-half';
+import type { BackHalfResult, BackHalfTask } from './back-half-worker';
 import { feedCaptureStream, SkippedBytes } from './read-capture-stream';
 import { openStore, SampleFileWriter, writePlotStore, type OpenStore } from './sample-store';
 
@@ -79,11 +80,11 @@ export async function readCaptureToStore(
   file: string,
   dir: string,
   options: CaptureParseOptions = {},
-  tuning: { splitMinBytes?: number } = {},
+  tuning: { splitMinBytes?: number; backHalf?: (task: BackHalfTask) => Promise<BackHalfResult> } = {},
 ): Promise<{ ok: true; columns: ParsedColumns; store: OpenStore } | { ok: false; message: string }> {
   let writer: SampleFileWriter | null = null;
   const parser = new ByteCaptureParser(options, (count) => (writer = new SampleFileWriter(dir, count)));
-  const split = new BackHalfSplit(file, dir, parser, () => writer, tuning.splitMinBytes);
+  const split = new BackHalfSplit(file, dir, parser, () => writer, tuning.splitMinBytes, tuning.backHalf);
   const fed = await feedCaptureStream(fileChunks(file, split), parser);
   const w = writer as SampleFileWriter | null;
   if (fed.error !== null) {

@@ -5,6 +5,7 @@ import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeBackHalfThread } from '../../server/captures/back-half';
 import { READ_CHUNK_BYTES, readCaptureToStore, scratchDirFor } from '../../server/captures/capture-store';
+import type { BackHalfResult, BackHalfTask } from '../../server/captures/back-half-worker';
 import type { CaptureParseOptions } from '../../shared/capture/types';
 import type { Series } from '../../shared/capture/series';
 
@@ -44,10 +45,10 @@ type Outcome =
   | { ok: false; message: string }
   | { ok: true; columns: unknown; times: number[]; channels: number[][]; parts: number };
 
-async function readWith(file: string, splitMinBytes: number, options: CaptureParseOptions = {}): Promise<Outcome> {
+async function readWith(file: string, splitMinBytes: number, options: CaptureParseOptions = {}, backHalf?: (task: BackHalfTask) => Promise<BackHalfResult>): Promise<Outcome> {
   const store = scratchDirFor(file, 'samples');
   try {
-    const parsed = await readCaptureToStore(file, store, options, { splitMinBytes });
+    const parsed = await readCaptureToStore(file, store, options, { splitMinBytes, backHalf });
     if (!parsed.ok) return parsed;
     try {
       const channels = parsed.columns.channels.map((_, k) => values(parsed.store.channel(k + 1)));
@@ -153,6 +154,20 @@ describe('a large capture read by two threads', () => {
     expect(split.ok && split.parts).toBe(2);
     // source: time = start + index × increment, as the header states
     if (split.ok) expect(split.times[ROWS - 1]).toBeCloseTo(-5e-6 + (ROWS - 1) * 2e-9, 15);
+  });
+
+  it('should read the whole file on one thread when the second cannot start or fails', async () => {
+    const file = path.join(dir, 'fallback.csv');
+    writeFileSync(file, captureText(allRows()));
+    const single = await readWith(file, Number.POSITIVE_INFINITY);
+    const cannotStart = () => {
+      throw new Error('no thread today');
+    };
+    for (const backHalf of [cannotStart, () => Promise.reject(new Error('the thread died'))]) {
+      const read = await readWith(file, 0, {}, backHalf);
+      expect(read).toEqual(single);
+      expect(read.ok && read.parts).toBe(1);
+    }
   });
 
   it('should read a file timed by its rows on one thread', async () => {

@@ -13,6 +13,8 @@ export interface BackHalfTask {
   /** First byte to read: the start of a line. */
   startByte: number;
   layout: DataLayout;
+  /** Set to 1 by the front reader when it no longer wants the rows (its half failed): stop at the next read. */
+  cancel?: Int32Array;
 }
 
 export interface BackHalfResult extends WrittenPart {
@@ -36,6 +38,7 @@ export function readBackHalf(task: BackHalfTask): BackHalfResult {
   let kept = 0; // bytes of an unfinished row carried to the front of the buffer
   try {
     for (;;) {
+      if (task.cancel && Atomics.load(task.cancel, 0) === 1) break;
       const read = readSync(fd, buffer, kept, READ_BYTES - kept, chunkStart + kept);
       if (read === 0) break; // the end of the file: what is kept is an unterminated last line
       const bytes = buffer.subarray(0, kept + read);

@@ -31,6 +31,9 @@ function thePool(): Piscina {
   return pool;
 }
 
+/** Reads a back half on the second thread. */
+export const runBackHalf = (task: BackHalfTask) => thePool().run(task) as Promise<BackHalfResult>;
+
 /** Keeps the back-half thread for the life of the process (a capture worker that is kept warm). */
 export function keepBackHalfThread(): void {
   keep = true;
@@ -53,6 +56,8 @@ export async function closeBackHalfThread(): Promise<void> {
 export class BackHalfSplit {
   private task: Promise<BackHalfResult | null> | null = null;
   private startByte = 0;
+  // shared with the other thread: set when its rows are no longer wanted
+  private readonly cancel = new Int32Array(new SharedArrayBuffer(4));
   tried = false;
 
   constructor(
@@ -62,7 +67,7 @@ export class BackHalfSplit {
     private readonly writer: () => SampleFileWriter | null,
     private readonly minBytes = SPLIT_MIN_BYTES,
     // the other thread; a test gives one that fails
-    private readonly runTask: (task: BackHalfTask) => Promise<BackHalfResult> = (task) => thePool().run(task) as Promise<BackHalfResult>,
+    private readonly runTask: (task: BackHalfTask) => Promise<BackHalfResult> = runBackHalf,
   ) {}
 
   /**
@@ -80,7 +85,7 @@ export class BackHalfSplit {
     const lineEnd = window.subarray(0, bytesRead).indexOf(10);
     if (lineEnd < 0) return null;
     this.startByte = middle + lineEnd + 1;
-    const task: BackHalfTask = { file: this.file, dir: this.dir, suffix: SUFFIX, startByte: this.startByte, layout };
+    const task: BackHalfTask = { file: this.file, dir: this.dir, suffix: SUFFIX, startByte: this.startByte, layout, cancel: this.cancel };
     // a thread that cannot start or fails leaves the back half to this one: the result is the same, only slower
     try {
       this.task = this.runTask(task).catch(() => null);
@@ -107,8 +112,12 @@ export class BackHalfSplit {
     return { resumeByte: result.stopByte, skippedBytes: result.stopByte - this.startByte };
   }
 
-  /** Waits for the other thread, if it is still reading (before the store's directory is removed). */
+  /**
+   * Waits for the other thread if it is still reading (the front stopped early, failing), after
+   * telling it to stop at its next read; then the store's directory can be removed.
+   */
   async settle(): Promise<void> {
+    if (this.task !== null) Atomics.store(this.cancel, 0, 1);
     await this.task;
     this.task = null;
   }

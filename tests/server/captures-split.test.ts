@@ -3,7 +3,7 @@ import { rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { closeBackHalfThread } from '../../server/captures/back-half';
+import { closeBackHalfThread, runBackHalf } from '../../server/captures/back-half';
 import { READ_CHUNK_BYTES, readCaptureToStore, scratchDirFor } from '../../server/captures/capture-store';
 import type { BackHalfResult, BackHalfTask } from '../../server/captures/back-half-worker';
 import type { CaptureParseOptions } from '../../shared/capture/types';
@@ -168,6 +168,21 @@ describe('a large capture read by two threads', () => {
       expect(read).toEqual(single);
       expect(read.ok && read.parts).toBe(1);
     }
+  });
+
+  it('should stop the second thread when the front half fails, not wait for it to read to the end', async () => {
+    const rows = Array.from({ length: 2_000_000 }, (_, i) => rowText(i % ROWS).replace(/^\d+\.\d+/, (1000 + i * 0.0005).toFixed(4)));
+    rows[30_000] = '1015.0000,16x0.5,001'; // just after the split is made, long before the back half's 20 MB are read
+    const file = path.join(dir, 'front-fails.csv');
+    writeFileSync(file, captureText(rows));
+    const single = await readWith(file, Number.POSITIVE_INFINITY);
+    let backRows = -1;
+    const split = await readWith(file, 0, {}, (task) => runBackHalf(task).then((result) => ((backRows = result.rows), result)));
+    expect(split).toEqual(single);
+    expect(single.ok).toBe(false);
+    // it started, and stopped at one of its reads (1 MB each) instead of taking its ~950,000 rows
+    expect(backRows).toBeGreaterThanOrEqual(0);
+    expect(backRows).toBeLessThan(200_000);
   });
 
   it('should read a file timed by its rows on one thread', async () => {

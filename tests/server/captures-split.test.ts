@@ -180,9 +180,10 @@ describe('a large capture read by two threads', () => {
     const split = await readWith(file, 0, {}, (task) => runBackHalf(task).then((result) => ((backRows = result.rows), result)));
     expect(split).toEqual(single);
     expect(single.ok).toBe(false);
-    // it started, and stopped at one of its reads (1 MB each) instead of taking its ~950,000 rows
+    // it started, and stopped at one of its first reads (1 MB, ~45,000 rows each) instead of taking
+    // its ~975,000 rows; the bound leaves the front's few milliseconds room on a loaded machine
     expect(backRows).toBeGreaterThanOrEqual(0);
-    expect(backRows).toBeLessThan(200_000);
+    expect(backRows).toBeLessThan(480_000);
   });
 
   it('should read a file timed by its rows on one thread', async () => {

@@ -3,7 +3,7 @@ import { rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { closeBackHalfThread, runBackHalf } from '../../server/captures/back-half';
+import { closeBackHalfThread, FRONT_SHARE, runBackHalf } from '../../server/captures/back-half';
 import { READ_CHUNK_BYTES, readCaptureToStore, scratchDirFor } from '../../server/captures/capture-store';
 import type { BackHalfResult, BackHalfTask } from '../../server/captures/back-half-worker';
 import type { CaptureParseOptions } from '../../shared/capture/types';
@@ -73,10 +73,10 @@ async function bothWays(name: string, text: string | Buffer, options: CapturePar
   return { single, split };
 }
 
-/** The row the back half starts at: the line after the middle of what follows the front's first reads. */
+/** The row the back part starts at: the line after the front's share of what follows its first reads. */
 function splitRow(text: string): number {
   const from = 2 * READ_CHUNK_BYTES;
-  const middle = from + Math.floor((Buffer.byteLength(text) - from) / 2);
+  const middle = from + Math.floor((Buffer.byteLength(text) - from) * FRONT_SHARE);
   const start = text.indexOf('\n', middle) + 1;
   return text.slice(0, start).split('\n').length - 3; // less the two header lines
 }
@@ -129,6 +129,10 @@ describe('a large capture read by two threads', () => {
     const { single } = await bothWays('boundary.csv', captureText(rows));
     expect(single.ok).toBe(false);
     if (!single.ok) expect(single.message).toMatch(new RegExp(`time is not increasing at line ${at + 3}`));
+    // the second thread did start on that row
+    let startByte = -1;
+    await readWith(path.join(dir, 'boundary.csv'), 0, {}, (task) => ((startByte = task.startByte), runBackHalf(task)));
+    expect(startByte).toBe(Buffer.byteLength(captureText(rows.slice(0, at))));
   });
 
   it('should give a NUL byte in the back half its byte position', async () => {

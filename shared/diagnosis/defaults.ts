@@ -10,6 +10,8 @@ export const TYPICAL = {
   attenuatingTipCapacitanceF: 12e-12, // common practice: 10x passive probes, about 10–15 pF
   oneXTipCapacitanceF: 100e-12, // common practice: 1x probe, cable and input together
   oneXBandwidthHz: 6e6, // common practice: 1x passive probes, a few MHz
+  activeTipResistanceOhm: 1e6, // common practice: single-ended active (FET) probes, about 1 MΩ at the tip
+  activeTipCapacitanceF: 1e-12, // common practice: single-ended active (FET) probes, under 1 pF to about 1 pF
   clipLeadM: 0.15, // common practice: the alligator ground lead in the probe kit
   springLeadM: 0.01, // common practice: ground spring fitted over the tip barrel
   groundWireRadiusM: 0.25e-3, // common practice: ground lead wire about 0.5 mm across
@@ -55,7 +57,10 @@ export function resolveSetup(input: DiagnosisInput): {
     );
   }
   const attenuation = probeAttenuation as number;
-  const oneX = attenuation === 1;
+  const probeKind = probe.kind ?? 'passive';
+  // a buffered probe's input does not follow its ratio: an active probe at 1:1 is no 1x passive probe
+  const active = probeKind === 'active';
+  const oneX = attenuation === 1 && !active;
 
   const scopeInputResistanceOhm = scope.inputResistanceOhm ?? TYPICAL.scopeInputResistanceOhm;
   if (!given(scope.inputResistanceOhm)) {
@@ -66,7 +71,7 @@ export function resolveSetup(input: DiagnosisInput): {
     assume('scope.inputCapacitanceF', scopeInputCapacitanceF, 'F', 'Not recorded: a typical general-purpose input.');
   }
 
-  if (given(scope.inputCapacitanceF) && !oneX) {
+  if (given(scope.inputCapacitanceF) && !oneX && probeKind === 'passive') {
     assume(
       'probe.compensatedOnInputCapacitanceF',
       TYPICAL.scopeInputCapacitanceF,
@@ -75,15 +80,17 @@ export function resolveSetup(input: DiagnosisInput): {
     );
   }
 
-  let tipResistanceOhm = probe.tipResistanceOhm ?? (attenuation - 1) * TYPICAL.probeDesignInputOhm;
+  let tipResistanceOhm = probe.tipResistanceOhm ?? (active ? TYPICAL.activeTipResistanceOhm : (attenuation - 1) * TYPICAL.probeDesignInputOhm);
   if (!given(probe.tipResistanceOhm)) {
     assume(
       'probe.tipResistanceOhm',
       tipResistanceOhm,
       'Ω',
-      oneX
-        ? 'Not recorded: a 1x probe is a plain conductor to the input.'
-        : 'Not recorded: a passive probe is built to divide into a 1 MΩ input, so its tip resistor is (ratio − 1) × 1 MΩ.',
+      active
+        ? 'Not recorded: a single-ended active probe presents about 1 MΩ at its tip, whatever its ratio; its buffer, not the tip, drives the scope input.'
+        : oneX
+          ? 'Not recorded: a 1x probe is a plain conductor to the input.'
+          : 'Not recorded: a passive probe is built to divide into a 1 MΩ input, so its tip resistor is (ratio − 1) × 1 MΩ.',
     );
   }
   tipResistanceOhm = Math.max(0, tipResistanceOhm);
@@ -91,16 +98,20 @@ export function resolveSetup(input: DiagnosisInput): {
   let tipCapacitanceF = probe.tipCapacitanceF;
   if (!given(tipCapacitanceF)) {
     // The cable dominates a 1x probe's load, so only the input's share follows scope.inputCapacitanceF.
-    tipCapacitanceF = oneX
-      ? TYPICAL.oneXTipCapacitanceF - TYPICAL.scopeInputCapacitanceF + scopeInputCapacitanceF
-      : TYPICAL.attenuatingTipCapacitanceF;
+    tipCapacitanceF = active
+      ? TYPICAL.activeTipCapacitanceF
+      : oneX
+        ? TYPICAL.oneXTipCapacitanceF - TYPICAL.scopeInputCapacitanceF + scopeInputCapacitanceF
+        : TYPICAL.attenuatingTipCapacitanceF;
     assume(
       'probe.tipCapacitanceF',
       tipCapacitanceF,
       'F',
-      oneX
-        ? 'Not recorded: a 1x probe loads the circuit with its cable and the scope input, about 100 pF.'
-        : 'Not recorded: a typical 10x passive probe presents about 12 pF at the tip.',
+      active
+        ? 'Not recorded: a single-ended active probe presents about 1 pF at its tip.'
+        : oneX
+          ? 'Not recorded: a 1x probe loads the circuit with its cable and the scope input, about 100 pF.'
+          : 'Not recorded: a typical 10x passive probe presents about 12 pF at the tip.',
     );
   }
 
@@ -189,7 +200,7 @@ export function resolveSetup(input: DiagnosisInput): {
     signalRiseTimeS,
     signalKind,
     hasEdges,
-    probeKind: probe.kind ?? 'passive',
+    probeKind,
     probeCmrrDb: probe.cmrrDb ?? undefined,
     scopeRiseTimeS: scope.riseTimeS ?? undefined,
     coupling: scope.coupling ?? 'dc',

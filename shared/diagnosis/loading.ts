@@ -73,11 +73,15 @@ export function impliedSourceResistanceOhm(
   return rs >= 0 ? rs : undefined;
 }
 
-/** Loading params of the recorded setup: the tip sees R_tip + R_in ∥ C_tip. */
+/**
+ * Loading params of the recorded setup: through a passive (or differential) probe the tip sees
+ * R_tip + R_in ∥ C_tip; an active probe's buffer keeps the scope input off the circuit, so the
+ * tip sees only the probe's own input.
+ */
 export function loadingParamsOf(setup: ResolvedSetup, sourceResistanceOhm = setup.sourceResistanceOhm): LoadingParams {
   return {
     sourceResistanceOhm,
-    inputResistanceOhm: setup.tipResistanceOhm + setup.scopeInputResistanceOhm,
+    inputResistanceOhm: setup.probeKind === 'active' ? setup.tipResistanceOhm : setup.tipResistanceOhm + setup.scopeInputResistanceOhm,
     inputCapacitanceF: setup.tipCapacitanceF,
   };
 }
@@ -96,6 +100,20 @@ const HIDDEN_SOURCE_PRIOR = 0.25; // our estimate: node impedances are often unk
 
 /** Loading candidates: the recorded source impedance, and one inferred from the amplitude. */
 export function assessLoading({ setup, observed }: ModelContext): Candidate[] {
+  if (setup.probeKind === 'current') {
+    return [
+      {
+        cause: 'loading',
+        basis: 'recorded',
+        deviation: 0,
+        predicted: {},
+        explanation: 'A current probe closes around the conductor and touches no node, so it loads no voltage in the circuit.',
+        confirm: CONFIRM,
+        fix: 'Nothing to change.',
+        detailTags: [],
+      },
+    ];
+  }
   const candidates = [loadingCandidate(setup, loadingParamsOf(setup), 'recorded')];
   if (!setup.assumed.has('circuit.sourceResistanceOhm')) candidates[0].recordSpread = recordedSourceSpread(setup);
   const expected = setup.expectedAmplitudeV;

@@ -177,3 +177,53 @@ describe('a load too light to move the trace', () => {
     expect(result.hypotheses.filter((h) => h.fits && h.causes.includes('loading'))).toEqual([]);
   });
 });
+
+describe('the load of probes that are not passive dividers', () => {
+  // an active (FET) probe: about 1 MΩ ∥ 1 pF at the tip (common practice), its buffer driving the
+  // scope's 50 Ω input; on a 10 kΩ node with 1 ns edges
+  const activeSetup = {
+    probe: { kind: 'active' as const, attenuation: 10, groundKind: 'spring' as const },
+    scope: { attenuationSetting: 10, inputResistanceOhm: 50, bandwidthHz: 1e9 },
+    circuit: { sourceResistanceOhm: 10e3 },
+    signal: { expectedAmplitudeV: 3.3, frequencyHz: 1e6, riseTimeS: 1e-9, kind: 'square' as const },
+  };
+
+  it('should take an active probe with nothing recorded of its input as about 1 MΩ ∥ 1 pF, not a passive probe', () => {
+    // source: single pole τ = (R_s ∥ R_tip)·C, 10–90 % edge ln 9·τ (IEEE Std 181-2011, first-order
+    // step), edges in quadrature; level R_tip/(R_s + R_tip) (voltage-divider rule). The scope's
+    // 50 Ω input sits behind the buffer and takes no part.
+    const tauS = ((10e3 * 1e6) / (10e3 + 1e6)) * 1e-12;
+    const edgeS = Math.hypot(Math.log(9) * tauS, 1e-9);
+    expect(edgeS).toBeCloseTo(21.8e-9, 10);
+    const result = diagnose({ ...activeSetup, observed: { amplitudeV: 3.27, riseTimeS: edgeS } });
+    const assumed = Object.fromEntries(result.assumptions.map((a) => [a.field, a.value]));
+    expect(assumed['probe.tipCapacitanceF']).toBe(1e-12);
+    expect(assumed['probe.tipResistanceOhm']).toBe(1e6);
+    const loading = result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'loading')!;
+    expect(loading.fits).toBe(true);
+    expect(loading.predicted.riseTimeS! / edgeS).toBeCloseTo(1, 3);
+    expect(loading.predicted.amplitudeV! / (3.3 * (1e6 / (1e6 + 10e3)))).toBeCloseTo(1, 3);
+    expect(result.tags).toContain('loading');
+  });
+
+  it('should still take a passive 10x probe with nothing recorded as about 12 pF', () => {
+    // common practice: a 10x passive probe presents 10–15 pF at the tip
+    const result = diagnose({ ...activeSetup, probe: { attenuation: 10 }, scope: { attenuationSetting: 10 } });
+    expect(result.assumptions.find((a) => a.field === 'probe.tipCapacitanceF')!.value).toBe(12e-12);
+  });
+
+  it('should not load a node through a current probe, which touches none', () => {
+    // fact of the trade: a current probe closes around the conductor, with no contact to any node
+    const result = diagnose({
+      probe: { kind: 'current', attenuation: 1 },
+      scope: { attenuationSetting: 1 },
+      circuit: { sourceResistanceOhm: 1e6 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 100e3, kind: 'square' },
+      observed: { amplitudeV: 1 },
+    });
+    expect(result.verdict).toBe('faithful');
+    const loading = result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'loading')!;
+    expect(loading.explanation).toMatch(/touches no node/);
+    expect(result.tags).not.toContain('loading');
+  });
+});

@@ -87,7 +87,7 @@ export const LOADING_TOPIC: HelpTopic = {
   onScreen: `- A **high-impedance node reads low**: a 1 MΩ / 1 MΩ bias divider shows 2.38 V instead of 2.50 V.
 - **AC signals shrink with frequency** at nodes driven through kilohms, and edges round off.
 - Oscillators shift frequency or **stop** when touched; the circuit behaves differently with the probe on.`,
-  physics: `The probe is not a window but a component: a resistance in parallel with a capacitance, hung on the node. A 10x passive probe is about **10 MΩ ∥ 10–15 pF**; a 1x probe is the scope's 1 MΩ with the cable's capacitance, around **100 pF**.
+  physics: `The probe is not a window but a component: a resistance in parallel with a capacitance, hung on the node. A 10x passive probe is about **10 MΩ ∥ 10–15 pF**; a 1x probe is the scope's 1 MΩ with the cable's capacitance, around **100 pF**. An active (FET) probe buffers the tip, so the scope's input takes no part: about **1 MΩ ∥ 1 pF** whatever its ratio, the figures the engine assumes when none are recorded. A current probe closes around a wire and loads no node.
 
 Whatever drives the node has its own (Thevenin) resistance R_s. The probe and R_s form a divider. At DC only the resistances matter; at higher frequencies the probe's capacitance takes over and the divider falls with frequency, with a corner where the capacitance's reactance equals the parallel resistance. The same RC slows edges.
 
@@ -113,6 +113,6 @@ A source impedance you record is read as an estimate, good to a factor of about 
   sources: [
     { label: 'Voltage-divider rule with complex impedances', note: 'circuit law' },
     { label: 'Single-pole rise time 2.2·RC (10 %–90 %)', note: 'from the RC step response' },
-    { label: 'Probe loading figures (10 MΩ ∥ 10–15 pF at 10x, ~100 pF at 1x)', note: 'common practice' },
+    { label: 'Probe loading figures (10 MΩ ∥ 10–15 pF at 10x, ~100 pF at 1x, ~1 MΩ ∥ 1 pF for an active probe)', note: 'common practice' },
   ],
 };

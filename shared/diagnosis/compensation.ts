@@ -6,7 +6,7 @@ import { isPlausible, PLAUSIBLE } from './plausibility';
 import { TYPICAL } from './defaults';
 import { add, divide, magnitude, resistorParallelCapacitor } from './complex';
 import { LOW_IMPEDANCE_INPUT_OHM } from './termination-mismatch';
-import { eng, percent } from './wording';
+import { eng, percent, withArticle } from './wording';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -174,7 +174,9 @@ function fitError(setup: ResolvedSetup, observed: Observed, base: DividerParams)
 
 /** Compensation candidates: the probe as it sits on the recorded scope, and a trimmer error read off the trace. */
 export function assessCompensation({ setup, observed }: ModelContext): Candidate[] {
-  const applicable = setup.tipResistanceOhm > 0 && setup.scopeInputResistanceOhm >= LOW_IMPEDANCE_INPUT_OHM;
+  // the trimmer belongs to a passive divider; a buffered or clamp-on probe's network is set where it is built
+  const passive = setup.probeKind === 'passive';
+  const applicable = passive && setup.tipResistanceOhm > 0 && setup.scopeInputResistanceOhm >= LOW_IMPEDANCE_INPUT_OHM;
   if (!applicable) {
     return [
       {
@@ -182,8 +184,9 @@ export function assessCompensation({ setup, observed }: ModelContext): Candidate
         basis: 'recorded',
         deviation: 0,
         predicted: setup.hasEdges ? { overshootPct: 0 } : {},
-        explanation:
-          setup.tipResistanceOhm > 0
+        explanation: !passive
+          ? `${withArticle(setup.probeKind)} probe has no compensation trimmer for the user: its input network is set at the factory, so a trimmer error does not apply.`
+          : setup.tipResistanceOhm > 0
             ? 'On a low-impedance input the tip network is swamped by the termination; compensation does not apply.'
             : 'A 1x probe has no divider and no compensation trimmer.',
         confirm: CONFIRM,

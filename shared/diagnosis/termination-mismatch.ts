@@ -1,6 +1,6 @@
 import type { Risk } from '../schemas/diagnosis';
 import type { Candidate, ModelContext, ResolvedSetup } from './types';
-import { eng, factor, percent } from './wording';
+import { eng, factor, percent, withArticle } from './wording';
 import { add, complex, divide, magnitude, resistorParallelCapacitor } from './complex';
 import { shownRiseTimeS } from './bandwidth';
 
@@ -205,7 +205,7 @@ function lowImpedance(setup: ResolvedSetup, rin: number, basis: Candidate['basis
       basis,
       deviation: 0,
       predicted: { amplitudeV: expected },
-      explanation: `An ${setup.probeKind} probe is normally built to drive a ${eng(rin, 'Ω')} input, so the termination is taken as right.`,
+      explanation: `${withArticle(setup.probeKind)} probe is normally built to drive a ${eng(rin, 'Ω')} input, so the termination is taken as right.`,
       confirm: CONFIRM,
       fix: "Check the probe's data sheet for the input impedance it expects.",
       detailTags: [],

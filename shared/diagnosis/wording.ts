@@ -31,3 +31,8 @@ export function inSentence(label: string): string {
   const second = label.charAt(1);
   return second !== '' && second === second.toUpperCase() && second !== second.toLowerCase() ? label : label.charAt(0).toLowerCase() + label.slice(1);
 }
+
+/** "An active probe", "A differential probe": the article a word takes at the start of a sentence (by its first letter). */
+export function withArticle(word: string): string {
+  return `${/^[aeiou]/i.test(word) ? 'An' : 'A'} ${word}`;
+}

@@ -110,3 +110,22 @@ describe('compensation in diagnose', () => {
     expect(result.hypotheses[0].cause).not.toBe('compensation');
   });
 });
+
+describe('compensation only where there is a trimmer', () => {
+  // fact of the trade: the compensation trimmer belongs to a passive divider probe; active,
+  // differential and current probes have their input network set where they are built
+  const square = { signal: { expectedAmplitudeV: 1, frequencyHz: 1e3, kind: 'square' as const }, observed: { amplitudeV: 1, overshootPct: 20 } };
+
+  it('should offer a trimmer error for corners spiking 20 % on a passive 10x probe', () => {
+    const result = diagnose({ probe: { attenuation: 10 }, scope: { attenuationSetting: 10, bandwidthHz: 100e6 }, ...square });
+    expect(result.hypotheses.some((h) => h.fits && h.causes.includes('compensation'))).toBe(true);
+  });
+
+  it.each(['active', 'differential', 'current'] as const)('should never blame a trimmer when the probe is %s', (kind) => {
+    const result = diagnose({ probe: { kind, attenuation: 10, groundKind: 'spring' }, scope: { attenuationSetting: 10, bandwidthHz: 1e9 }, ...square });
+    expect(result.hypotheses.filter((h) => h.fits && h.causes.includes('compensation'))).toEqual([]);
+    expect(result.tags).not.toContain('compensation');
+    const own = result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'compensation')!;
+    expect(own.explanation).toMatch(new RegExp(`^An? ${kind} probe has no compensation trimmer`));
+  });
+});

@@ -192,7 +192,8 @@ function loadingCandidate(setup: ResolvedSetup, p: LoadingParams, basis: Candida
   const riseTimeS = loadedEdgeS !== undefined && reference && Math.log(loadedEdgeS / reference) <= SIGNIFICANT_DEVIATION ? undefined : loadedEdgeS;
   const riseDeviation = edgeDeviation(setup, loadedEdgeS, reference);
   const expected = setup.expectedAmplitudeV;
-  const oneX = setup.probeAttenuation === 1;
+  // a 1x passive probe, its cable on the node; a buffered probe at 1:1 is not one
+  const oneX = setup.probeAttenuation === 1 && setup.probeKind === 'passive';
 
   const cornerText = Number.isFinite(corner) ? `the RC corner is ${eng(corner, 'Hz')}` : 'an ideal source has no RC corner';
   let text = `The probe loads the ${eng(p.sourceResistanceOhm, 'Ω')} source with ${eng(p.inputResistanceOhm, 'Ω')} ∥ ${eng(p.inputCapacitanceF, 'F')}: the DC divider keeps ${percent(dc * 100)} of the signal and ${cornerText}.`;
@@ -215,7 +216,9 @@ function loadingCandidate(setup: ResolvedSetup, p: LoadingParams, basis: Candida
     confirm: CONFIRM,
     fix: oneX
       ? 'Use a 10x probe (about 10 MΩ and 12 pF) or an active probe on this node; a 1x probe puts its cable capacitance on the circuit.'
-      : 'Probe a lower-impedance point such as a buffered test point, or use an active probe with less capacitance; for DC levels, allow for the divider R_in/(R_s + R_in).',
+      : setup.probeKind === 'active'
+        ? 'Probe a lower-impedance point such as a buffered test point, or an active probe with less input capacitance; for DC levels, allow for the divider R_in/(R_s + R_in).'
+        : 'Probe a lower-impedance point such as a buffered test point, or use an active probe with less capacitance; for DC levels, allow for the divider R_in/(R_s + R_in).',
     estimates: {
       dcRatio: dc,
       ...(Number.isFinite(corner) ? { cornerFrequencyHz: corner } : {}),

@@ -227,3 +227,21 @@ describe('the load of probes that are not passive dividers', () => {
     expect(result.tags).not.toContain('loading');
   });
 });
+
+describe('the advice for a load on an active probe', () => {
+  it('should not call an active probe at 1:1 a 1x probe, nor advise an active probe as if none were on', () => {
+    // an active probe at 1:1 (about 1 MΩ ∥ 1 pF, common practice) on a 100 kΩ node: 2.2·(R_s ∥ R_tip)·C ≈ 0.2 µs edges
+    const result = diagnose({
+      probe: { kind: 'active', attenuation: 1, groundKind: 'spring' },
+      scope: { attenuationSetting: 1, inputResistanceOhm: 50, bandwidthHz: 1e9 },
+      circuit: { sourceResistanceOhm: 100e3 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 100e3, riseTimeS: 1e-9, kind: 'square' },
+      observed: { amplitudeV: 0.91, riseTimeS: 200e-9 },
+    });
+    const loading = result.hypotheses.find((h) => h.causes.length === 1 && h.cause === 'loading')!;
+    expect(loading.fits).toBe(true);
+    expect(result.tags).not.toContain('1x-probe-loading');
+    expect(loading.fix).not.toMatch(/10x probe|use an active probe/);
+    expect(loading.fix).toMatch(/active probe with less input capacitance/);
+  });
+});

@@ -1,7 +1,7 @@
 import { rm } from 'node:fs/promises';
 import { analyzeCapture, type CaptureAnalysis as Measured } from '../../shared/capture/analyze';
 import type { CaptureMetadata, CaptureParseOptions } from '../../shared/capture/types';
-import { readCaptureToStore, savePlotStore, scratchDirFor } from './capture-store';
+import { readCaptureToStore, savePlotStore, scratchDirFor, type ReadTuning } from './capture-store';
 
 /** The `POST /api/captures/analyze` answer: the measurements of one channel, the channels, the settings and the notes. */
 export type CaptureAnalysis = Measured & {
@@ -23,7 +23,7 @@ export async function analyzeCaptureFile(
   file: string,
   options: Pick<CaptureParseOptions, 'channel'> = {},
   output: { plotDir?: string } = {},
-  tuning: { splitMinBytes?: number } = {},
+  tuning: ReadTuning = {},
 ): Promise<{ ok: true; analysis: CaptureAnalysis } | { ok: false; message: string }> {
   const dir = scratchDirFor(file, 'samples');
   try {

@@ -29,7 +29,7 @@ const READ_BYTES = 1 << 20;
  * own, until the first line that is not one or the end of the file; an unfinished last line is
  * left too. Throws only when the files cannot be read or written.
  */
-export function readBackHalf(task: BackHalfTask): BackHalfResult {
+export default function readBackHalf(task: BackHalfTask): BackHalfResult {
   const writer = new SampleFileWriter(task.dir, task.layout.channels.length, task.suffix);
   const reader = new PlainRowReader(task.layout, writer);
   const fd = openSync(task.file, 'r');
@@ -58,8 +58,4 @@ export function readBackHalf(task: BackHalfTask): BackHalfResult {
     writer.closeFiles();
   }
   return { suffix: task.suffix, rows: writer.length, firstTimeS: writer.firstTimeS(), lastTimeS: writer.lastTimeS(), stopByte: chunkStart };
-}
-
-export default function run(task: BackHalfTask): BackHalfResult {
-  return readBackHalf(task);
 }

@@ -7,7 +7,8 @@ import type { CaptureParseOptions } from '../../shared/capture/types';
 import { BackHalfSplit } from './back-half';
 import type { BackHalfResult, BackHalfTask } from './back-half-worker';
 import { feedCaptureStream, SkippedBytes } from './read-capture-stream';
-import { openStore, SampleFileWriter, writePlotStore, type OpenStore } from './sample-store';
+import { writePlotStore } from './plot-store-writer';
+import { openStore, SampleFileWriter, type OpenStore } from './sample-store';
 
 // Large reads: fewer trips through the stream machinery for a file of a gigabyte.
 export const READ_CHUNK_BYTES = 1 << 19;
@@ -76,11 +77,17 @@ export function scratchDirFor(file: string, purpose: string): string {
  * streaming pass: memory stays a few blocks whatever the size of the file. On failure nothing
  * usable is left in `dir` (the caller removes it either way).
  */
+/** How a read is split between two threads (back-half.ts): the size that splits, and for tests the other thread. */
+export interface ReadTuning {
+  splitMinBytes?: number;
+  backHalf?: (task: BackHalfTask) => Promise<BackHalfResult>;
+}
+
 export async function readCaptureToStore(
   file: string,
   dir: string,
   options: CaptureParseOptions = {},
-  tuning: { splitMinBytes?: number; backHalf?: (task: BackHalfTask) => Promise<BackHalfResult> } = {},
+  tuning: ReadTuning = {},
 ): Promise<{ ok: true; columns: ParsedColumns; store: OpenStore } | { ok: false; message: string }> {
   let writer: SampleFileWriter | null = null;
   const parser = new ByteCaptureParser(options, (count) => (writer = new SampleFileWriter(dir, count)));

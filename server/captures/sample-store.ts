@@ -144,12 +144,12 @@ export class SampleFileWriter implements RowSink {
   }
 }
 
-function writeAll(fd: number, bytes: Uint8Array): void {
+export function writeAll(fd: number, bytes: Uint8Array): void {
   let done = 0;
   while (done < bytes.length) done += writeSync(fd, bytes, done, bytes.length - done);
 }
 
-function writeMeta(dir: string, meta: StoreMeta): void {
+export function writeMeta(dir: string, meta: StoreMeta): void {
   writeFileSync(path.join(dir, 'meta.json'), JSON.stringify(meta));
 }
 
@@ -159,7 +159,7 @@ export function readMeta(dir: string): StoreMeta {
 
 const PAGE = 1 << 16;
 const PAGES_KEPT = 4;
-const SCAN_ROWS = 1 << 18;
+export const SCAN_ROWS = 1 << 18;
 
 /**
  * One column of a store, read on demand: `get` through a few cached pages of 65,536 samples
@@ -174,23 +174,21 @@ export class FileSeries implements Series {
 
   private readonly divisor: number;
 
-  /** @param decimals for 'i32': the stored integers are the values times 10^decimals */
   private readonly fds: number[];
   // first row of each part, and the rows in all
   private readonly partStarts: number[];
 
   /**
-   * @param files the column's file, or its parts in order with their rows
+   * @param parts the column's files in order with their rows (one, unless two threads wrote the store)
    * @param decimals for 'i32': the stored integers are the values times 10^decimals
    */
   constructor(
-    files: number | { fd: number; rows: number }[],
+    parts: { fd: number; rows: number }[],
     readonly length: number,
     private readonly format: 'f64' | 'f32' | 'i32',
     private readonly exp10: number,
     decimals = 0,
   ) {
-    const parts = typeof files === 'number' ? [{ fd: files, rows: length }] : files;
     this.fds = parts.map((part) => part.fd);
     this.partStarts = [0];
     for (const part of parts) this.partStarts.push(this.partStarts[this.partStarts.length - 1] + part.rows);
@@ -317,8 +315,9 @@ export function openStore(dir: string): OpenStore {
     fds.push(fd);
     return fd;
   };
-  // a column's file, or its parts' files
-  const files = (name: string) => (meta.parts ? meta.parts.map((part) => ({ fd: open(`${name}${part.suffix}`), rows: part.rows })) : open(name));
+  // a column's files, one per part of the store
+  const parts = meta.parts ?? [{ rows: meta.rows, suffix: '' }];
+  const files = (name: string) => parts.map((part) => ({ fd: open(`${name}${part.suffix}`), rows: part.rows }));
   const timesS = meta.uniformTime
     ? new UniformSeries(meta.rows, meta.uniformTime.startS, meta.uniformTime.intervalS)
     : new FileSeries(files('time.f64'), meta.rows, 'f64', meta.timeExp10);
@@ -340,105 +339,4 @@ export function openStore(dir: string): OpenStore {
       for (const fd of fds.splice(0)) closeSync(fd);
     },
   };
-}
-
-/**
- * A compact copy of a store for plots: channels (in volts) as whole multiples of 10^−d in Int32
- * when that keeps every value exactly, else Float32; the time axis as
- * start + i·interval when every time lies within a millionth of an interval of it, else Float64
- * seconds. One pass over each column.
- */
-export function writePlotStore(source: OpenStore, dir: string): void {
-  mkdirSync(dir, { recursive: true });
-  const { rows, channelCount } = source.meta;
-  const startS = source.timesS.get(0);
-  const intervalS = rows > 1 ? (source.timesS.get(rows - 1) - startS) / (rows - 1) : 0;
-  let uniform = rows > 1 && intervalS > 0;
-  if (uniform) {
-    source.timesS.scan(0, rows, (values, first) => {
-      if (uniform && !onUniformGrid(values, first, startS, intervalS)) uniform = false;
-    });
-  }
-  if (!uniform) copyColumn(source.timesS, path.join(dir, 'time.f64'), 'f64');
-  const channelDecimals: (number | null)[] = [];
-  for (let c = 1; c <= channelCount; c++) {
-    const decimals = exactDecimals(source.channel(c));
-    channelDecimals.push(decimals);
-    copyColumn(source.channel(c), path.join(dir, `ch${c}.${decimals === null ? 'f32' : 'i32'}`), decimals === null ? 'f32' : 'i32', decimals ?? 0);
-  }
-  writeMeta(dir, {
-    rows,
-    channelCount,
-    precision: 'compact',
-    channelDecimals,
-    timeExp10: 0,
-    channelExp10s: Array.from({ length: channelCount }, () => 0),
-    ...(uniform ? { uniformTime: { startS, intervalS } } : {}),
-  });
-}
-
-const MAX_DECIMALS = 9;
-const I32_MAX = 2 ** 31 - 1;
-
-/**
- * The fewest decimals d such that every value v is exactly round(v·10^d)/10^d with the integer
- * within Int32 (so the plot gets back the very doubles the parser read), or null. Two passes:
- * find d, then check every value at it.
- */
-function exactDecimals(series: Series): number | null {
-  let decimals = 0;
-  series.scan(0, series.length, (values) => (decimals = decimalsNeeded(values, decimals)));
-  if (decimals > MAX_DECIMALS) return null;
-  let all = true;
-  series.scan(0, series.length, (values) => {
-    if (all && !allExact(values, decimals)) all = false;
-  });
-  return all ? decimals : null;
-}
-
-// The loops over samples are module-level functions called per block (see `scan` in shared/capture/series.ts).
-
-/** True when every time is within a millionth of an interval of start + i·interval. */
-function onUniformGrid(values: Float64Array, first: number, startS: number, intervalS: number): boolean {
-  for (let k = 0; k < values.length; k++) if (Math.abs(values[k] - (startS + (first + k) * intervalS)) > 1e-6 * intervalS) return false;
-  return true;
-}
-
-/** v is exactly round(v·10^d)/10^d, the integer within Int32. */
-function exactAt(v: number, d: number): boolean {
-  const scale = 10 ** d;
-  const n = Math.round(v * scale);
-  return Math.abs(n) <= I32_MAX && n / scale === v;
-}
-
-/** The fewest decimals, from `decimals` up, at which every value of the block is exact (past MAX_DECIMALS: none is). */
-function decimalsNeeded(values: Float64Array, decimals: number): number {
-  for (let k = 0; k < values.length && decimals <= MAX_DECIMALS; k++) {
-    while (decimals <= MAX_DECIMALS && !exactAt(values[k], decimals)) decimals++;
-  }
-  return decimals;
-}
-
-function allExact(values: Float64Array, decimals: number): boolean {
-  for (let k = 0; k < values.length; k++) if (!exactAt(values[k], decimals)) return false;
-  return true;
-}
-
-function toScaledInts(values: Float64Array, scale: number, out: Int32Array): void {
-  for (let k = 0; k < values.length; k++) out[k] = Math.round(values[k] * scale);
-}
-
-function copyColumn(series: Series, file: string, format: 'f64' | 'f32' | 'i32', decimals = 0): void {
-  const fd = openSync(file, 'w');
-  try {
-    const out = format === 'f64' ? new Float64Array(SCAN_ROWS) : format === 'f32' ? new Float32Array(SCAN_ROWS) : new Int32Array(SCAN_ROWS);
-    const scale = 10 ** decimals;
-    series.scan(0, series.length, (values) => {
-      if (out instanceof Int32Array) toScaledInts(values, scale, out);
-      else out.set(values);
-      writeAll(fd, new Uint8Array(out.buffer, 0, values.length * out.BYTES_PER_ELEMENT));
-    });
-  } finally {
-    closeSync(fd);
-  }
 }

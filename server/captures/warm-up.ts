@@ -37,7 +37,8 @@ function writeWarmUpCsv(file: string, rows: number): void {
 
 /**
  * Runs the whole upload path (parse to binary columns, analysis, plot store) on a small
- * capture a few times, read by one thread and split between two (back-half.ts), so that a capture worker's first real upload runs in optimised code:
+ * capture a few times, read by one thread and split between two (back-half.ts), so that a
+ * capture worker's first real upload runs in optimised code:
  * cold, a 1M-sample capture takes about twice as long as warm, most of it in V8's
  * interpreter and baseline code before each pass is optimised. Leaves nothing behind.
  *

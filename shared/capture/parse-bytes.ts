@@ -28,14 +28,6 @@ export class ByteCaptureParser extends CaptureParser {
     return this.pendingBytes === null && super.atLineStart;
   }
 
-  /**
-   * Counts rows another reader (`PlainRowReader`, on another thread) took into this parser's
-   * sink from the line after the last one read here; the caller has appended them to the sink.
-   */
-  rowsTakenElsewhere(rows: number): void {
-    this.countRowsTakenElsewhere(rows);
-  }
-
   /** The unfinished last line pushed as text, handed back so it can be pushed again as bytes. */
   takePending(): string {
     const text = this.pending;

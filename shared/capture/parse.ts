@@ -310,8 +310,12 @@ export class CaptureParser {
     return this.pending === '';
   }
 
-  /** Counts `rows` rows, one line each, that another reader took into this parser's sink. */
-  protected countRowsTakenElsewhere(rows: number): void {
+  /**
+   * Counts `rows` rows, one line each, that another reader (`PlainRowReader`, on another thread)
+   * took into this parser's sink from the line after the last one read here; the caller has
+   * appended them to the sink.
+   */
+  rowsTakenElsewhere(rows: number): void {
     this.rows += rows;
     this.line += rows;
   }

@@ -7,8 +7,10 @@
  *  - app:   what the server does with an upload: `analyzeCaptureFile` (a streaming parse from
  *           the bytes into binary columns on disk, past 8 MiB of rows split between two threads
  *           (back-half.ts), so the app uses both cores for the parse where numpy uses one; then
- *           the whole analysis, on one thread, reading those a block at a time: levels, edges, overshoot, ringing, period, shape, clipping, tilt, corner,
- *           noise, the spectrum by fft.js and hum);
+ *           the whole analysis reading those a block at a time: levels, edges, overshoot, ringing,
+ *           period, shape, clipping, tilt, corner, noise, the spectrum by fft.js and hum, the
+ *           second thread taking the interval, rails, noise and spectrum meanwhile from 262,144
+ *           samples on (analyze-file.ts));
  *  - numpy: bench/capture_numpy.py (Debian's python3-numpy): the CSV read by numpy.loadtxt and by
  *           np.fromstring (the faster is the baseline), levels by histogram, 10/50/90 % crossings
  *           with hysteresis, rise/fall time and period: less work than the app does.
@@ -40,7 +42,8 @@ import { gaussian, mulberry32, secondOrderStep, squareWaveform } from '../shared
 
 const SIZES = [1_000_000, 10_000_000];
 const SAMPLE_INTERVAL_S = 1e-9;
-const RUNS = 3;
+// the machine's noise moves single runs by ±30 %: a median of five holds better than one of three
+const RUNS = 5;
 const TARGET_RATIO = 1.0;
 const TARGET_RSS_MB = 150;
 const NUMPY_SCRIPT = fileURLToPath(new URL('./capture_numpy.py', import.meta.url));
@@ -158,7 +161,7 @@ async function benchSize(samples: number, dir: string): Promise<{ ratio: number 
   const ours = median(app);
   const first = median(cold);
   const rssMB = Math.max(...[...app, ...cold].map((r) => r.peakRssMB ?? 0));
-  console.log(`  app:   ${fmt(ours.totalS)} s warm (parse to binary columns, two threads past 8 MiB, + full analysis on one), peak rss ${fmt(rssMB, 0)} MB, ${ours.gc?.count} collections taking ${fmt(ours.gc?.ms ?? 0, 0)} ms`);
+  console.log(`  app:   ${fmt(ours.totalS)} s warm (parse to binary columns and full analysis, on two threads past 8 MiB and 262,144 samples), peak rss ${fmt(rssMB, 0)} MB, ${ours.gc?.count} collections taking ${fmt(ours.gc?.ms ?? 0, 0)} ms`);
   console.log(`         ${fmt(first.totalS)} s cold (a fresh process's first capture, code not yet optimised)`);
   if (loadtxt.length === 0 && fromstring.length === 0) {
     console.log('  numpy: not available (install python3-numpy); no ratio');

@@ -13,8 +13,9 @@ import { createRequire } from 'node:module';
  *
  * `selfContained`: in development the source is bundled into one JavaScript file instead (by
  * esbuild, into the temp directory, named by its content), for a worker that should stay light:
- * a thread started through tsx carries its loader, tens of MB of resident memory. Only for
- * sources that find no file beside themselves through `import.meta.url`.
+ * a thread started through tsx carries its loader, tens of MB of resident memory. The packages
+ * it imports go into the bundle too (it lies outside the project). Only for sources that find no
+ * file beside themselves through `import.meta.url`.
  */
 export function workerEntry(name: string, source: URL, options: { selfContained?: boolean } = {}): { filename: string; workerData?: { entry: string } } {
   const bundled = new URL(`./${name}.mjs`, import.meta.url);
@@ -26,7 +27,7 @@ export function workerEntry(name: string, source: URL, options: { selfContained?
 function bundleInTemp(name: string, sourceFile: string): string {
   // esbuild's own program, not its API: loading that into this thread would cost its memory for good
   const esbuild = createRequire(import.meta.url).resolve('esbuild/bin/esbuild');
-  const args = [sourceFile, '--bundle', '--platform=node', '--format=esm', '--target=node20', '--packages=external', '--log-level=error'];
+  const args = [sourceFile, '--bundle', '--platform=node', '--format=esm', '--target=node20', '--log-level=error'];
   const code = execFileSync(esbuild, args, { encoding: 'utf8', maxBuffer: 1 << 26 });
   const dir = path.join(tmpdir(), 'falsetrace-workers');
   const file = path.join(dir, `${name}-${createHash('sha256').update(code).digest('hex').slice(0, 16)}.mjs`);

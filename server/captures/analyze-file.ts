@@ -1,7 +1,11 @@
 import { rm } from 'node:fs/promises';
-import { analyzeCapture, type CaptureAnalysis as Measured } from '../../shared/capture/analyze';
+import { analysisSteps, type AnalyzeOptions, type CaptureAnalysis as Measured } from '../../shared/capture/analyze';
 import type { CaptureMetadata, CaptureParseOptions } from '../../shared/capture/types';
+import { wholeRecordMeasures, type WholeRecordMeasures } from '../../shared/capture/whole-record';
+import { measureWholeRecordBeside } from './back-half';
+import type { WholeRecordTask } from './back-half-worker';
 import { readCaptureToStore, savePlotStore, scratchDirFor, type ReadTuning } from './capture-store';
+import type { OpenStore } from './sample-store';
 
 /** The `POST /api/captures/analyze` answer: the measurements of one channel, the channels, the settings and the notes. */
 export type CaptureAnalysis = Measured & {
@@ -15,7 +19,8 @@ export type CaptureAnalysis = Measured & {
  * Measures the chosen channel of a capture file (1-based among the signal columns, or a
  * column's name; the first when none is given) in passes with constant memory: one streaming
  * parse into binary columns beside the file (a large file's back half read by a second thread,
- * `tuning.splitMinBytes` setting how large), then the analysis reading those a block at a time.
+ * `tuning.splitMinBytes` setting how large), then the analysis reading those a block at a time
+ * (on a large capture, its measures that need no edges taken by the second thread meanwhile).
  * With `plotDir`, the compact samples for plots are also kept there. Errors come back as data,
  * with the reader's message.
  */
@@ -23,7 +28,7 @@ export async function analyzeCaptureFile(
   file: string,
   options: Pick<CaptureParseOptions, 'channel'> = {},
   output: { plotDir?: string } = {},
-  tuning: ReadTuning = {},
+  tuning: ReadTuning & AnalysisTuning = {},
 ): Promise<{ ok: true; analysis: CaptureAnalysis } | { ok: false; message: string }> {
   const dir = scratchDirFor(file, 'samples');
   try {
@@ -31,10 +36,7 @@ export async function analyzeCaptureFile(
     if (!parsed.ok) return parsed;
     const { columns, store } = parsed;
     try {
-      const measured = analyzeCapture(
-        { timesS: store.timesS, volts: store.channel(columns.channel) },
-        { voltsPerDiv: columns.metadata.voltsPerDiv, offsetV: columns.metadata.offsetV },
-      );
+      const measured = await measureStore(store, dir, columns.channel, { voltsPerDiv: columns.metadata.voltsPerDiv, offsetV: columns.metadata.offsetV }, tuning);
       if (output.plotDir !== undefined) await savePlotStore(store, output.plotDir);
       return {
         ok: true,
@@ -53,6 +55,45 @@ export async function analyzeCaptureFile(
     await rm(dir, { recursive: true, force: true });
   }
 }
+/**
+ * A capture of at least this many samples has its whole-record measures taken by the second
+ * thread (our threshold: below it they take a few ms, about what handing them over costs).
+ */
+export const BESIDE_MIN_POINTS = 1 << 18;
+
+/** Whether, and for tests by what, the whole-record measures are taken on another thread. */
+export interface AnalysisTuning {
+  besideMinPoints?: number;
+  beside?: (task: WholeRecordTask) => Promise<WholeRecordMeasures>;
+}
+
+/**
+ * `analyzeCapture` on one channel of a store, with the whole-record measures (interval, rails,
+ * noise, spectrum) taken by the second thread while this one finds the levels and edges: on
+ * 2 cores a large capture's analysis takes about two thirds of the time. A second thread that
+ * cannot start or fails leaves them to this one, with the same result.
+ */
+async function measureStore(store: OpenStore, dir: string, channel: number, options: AnalyzeOptions, tuning: AnalysisTuning): Promise<Measured> {
+  const samples = { timesS: store.timesS, volts: store.channel(channel) };
+  let beside: Promise<WholeRecordMeasures | null> | null = null;
+  if (samples.volts.length >= (tuning.besideMinPoints ?? BESIDE_MIN_POINTS)) {
+    try {
+      beside = (tuning.beside ?? measureWholeRecordBeside)({ dir, channel }).catch(() => null);
+    } catch {
+      beside = null;
+    }
+  }
+  try {
+    const steps = analysisSteps(samples, options);
+    let step = steps.next();
+    while (!step.done) step = steps.next((await beside) ?? wholeRecordMeasures(step.value.timesS, step.value.volts));
+    return step.value;
+  } finally {
+    // its reads of the store end before the store is removed
+    await beside;
+  }
+}
+
 /** Reads the optional `channel` form field: a whole number stays a number, anything else a name. */
 export function channelField(value: unknown): { channel?: number | string } | { error: string } {
   if (value === undefined || value === null || (typeof value === 'string' && value.trim() === '')) return {};

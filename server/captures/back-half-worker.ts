@@ -1,9 +1,11 @@
 // Runs in a thread beside the capture worker (see back-half.ts): reads the data rows of the back
-// half of a large capture file while the capture worker reads the front half.
+// half of a large capture file while the capture worker reads the front half, then takes the
+// measurements of the whole record that do not need its edges while the worker finds those.
 import { closeSync, openSync, readSync } from 'node:fs';
 import type { DataLayout } from '../../shared/capture/data-layout';
 import { PlainRowReader } from '../../shared/capture/parse-bytes';
-import { SampleFileWriter, type WrittenPart } from './sample-store';
+import { wholeRecordMeasures, type WholeRecordMeasures } from '../../shared/capture/whole-record';
+import { openStore, SampleFileWriter, type WrittenPart } from './sample-store';
 
 export interface BackHalfTask {
   file: string;
@@ -58,4 +60,21 @@ export default function readBackHalf(task: BackHalfTask): BackHalfResult {
     writer.closeFiles();
   }
   return { suffix: task.suffix, rows: writer.length, firstTimeS: writer.firstTimeS(), lastTimeS: writer.lastTimeS(), stopByte: chunkStart };
+}
+
+export interface WholeRecordTask {
+  /** A closed store's directory (sample-store.ts). */
+  dir: string;
+  /** The channel measured, 1-based. */
+  channel: number;
+}
+
+/** `wholeRecordMeasures` of one channel of a store, read here through a store of its own. */
+export function measureWholeRecord(task: WholeRecordTask): WholeRecordMeasures {
+  const store = openStore(task.dir);
+  try {
+    return wholeRecordMeasures(store.timesS, store.channel(task.channel));
+  } finally {
+    store.close();
+  }
 }

@@ -2,7 +2,8 @@ import { Piscina } from 'piscina';
 import type { FileHandle } from 'node:fs/promises';
 import type { ByteCaptureParser } from '../../shared/capture/parse-bytes';
 import { workerEntry } from '../worker-entry';
-import type { BackHalfResult, BackHalfTask } from './back-half-worker';
+import type { WholeRecordMeasures } from '../../shared/capture/whole-record';
+import type { BackHalfResult, BackHalfTask, WholeRecordTask } from './back-half-worker';
 import type { SampleFileWriter } from './sample-store';
 
 /**
@@ -24,7 +25,8 @@ let pool: Piscina | undefined;
 let keep = false;
 
 function thePool(): Piscina {
-  pool ??= new Piscina({
+  if (pool) return pool;
+  pool = new Piscina({
     ...workerEntry('back-half-worker', new URL('./back-half-worker.ts', import.meta.url), { selfContained: true }),
     // plain JavaScript (a bundle): without the parent's flags the thread loads no TypeScript loader
     execArgv: [],
@@ -34,11 +36,17 @@ function thePool(): Piscina {
     // the rows go to files a block at a time: a small heap is plenty
     resourceLimits: { maxOldGenerationSizeMb: 32, maxYoungGenerationSizeMb: 3 },
   });
+  // a thread that fails to load or dies fails its task, and the caller does the work itself:
+  // the pool's own report of it must not end the process
+  pool.on('error', () => undefined);
   return pool;
 }
 
 /** Reads a back half on the second thread. */
 export const runBackHalf = (task: BackHalfTask) => thePool().run(task) as Promise<BackHalfResult>;
+
+/** Takes the whole-record measures of a stored channel on the second thread. */
+export const measureWholeRecordBeside = (task: WholeRecordTask) => thePool().run(task, { name: 'measureWholeRecord' }) as Promise<WholeRecordMeasures>;
 
 /** Keeps the back-half thread for the life of the process (a capture worker that is kept warm). */
 export function keepBackHalfThread(): void {

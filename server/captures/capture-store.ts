@@ -72,17 +72,17 @@ export function scratchDirFor(file: string, purpose: string): string {
   return path.join(path.dirname(file), `.${path.basename(file)}.${purpose}-${randomUUID()}`);
 }
 
-/**
- * Parses a capture file into a store on disk (`dir`, one binary file per column) in one
- * streaming pass: memory stays a few blocks whatever the size of the file. On failure nothing
- * usable is left in `dir` (the caller removes it either way).
- */
 /** How a read is split between two threads (back-half.ts): the size that splits, and for tests the other thread. */
 export interface ReadTuning {
   splitMinBytes?: number;
   backHalf?: (task: BackHalfTask) => Promise<BackHalfResult>;
 }
 
+/**
+ * Parses a capture file into a store on disk (`dir`, one binary file per column) in one
+ * streaming pass: memory stays a few blocks whatever the size of the file. On failure nothing
+ * usable is left in `dir` (the caller removes it either way).
+ */
 export async function readCaptureToStore(
   file: string,
   dir: string,

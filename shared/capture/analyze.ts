@@ -1,17 +1,18 @@
 import { postTransitionAberrations } from './aberrations';
-import { findRails, isRail } from './clipping';
+import type { Rails } from './clipping';
 import { referenceLevels, stateLevels, type ReferenceLevels } from './levels';
-import { noisePeakV, noiseRmsV } from './noise';
+import { noisePeakV } from './noise';
 import { addSquaredDeviations, countBetween, summaryOf } from './passes';
 import { settleSummary, type SegmentSettle } from './settle';
 import { classifyShape, type WaveShape } from './shape';
-import { amplitudeSpectrum, humFrequencyHz as findHum, type CaptureSpectrum } from './spectrum';
+import { humFrequencyHz as findHum, type CaptureSpectrum } from './spectrum';
 import { periodS as measurePeriodS } from './period';
 import { ringingAfter } from './ringing';
 import { medianSampleIntervalS } from './sample-interval';
 import { asSeries, headOf, type SampleSeries, type Series } from './series';
 import { crossingTimeS, findTransitions, type EdgeKind, type Transition } from './transitions';
 import type { CaptureSamples } from './types';
+import { wholeRecordMeasures, type WholeRecordMeasures } from './whole-record';
 
 /** One transition as reported. Instants are named by reference level: a fall crosses 90 % first. */
 export interface CaptureEdge {
@@ -90,15 +91,30 @@ const RINGING_EDGE_SHARE = 0.25;
  * @param samples time (s, strictly increasing) and voltage (V), as `CaptureParser` returns them
  */
 export function analyzeCapture(samples: CaptureSamples | SampleSeries, options: AnalyzeOptions = {}): CaptureAnalysis {
+  const steps = analysisSteps(samples, options);
+  let step = steps.next();
+  while (!step.done) step = steps.next(wholeRecordMeasures(step.value.timesS, step.value.volts));
+  return step.value;
+}
+
+/**
+ * `analyzeCapture` in two steps, for a caller with a second thread: the first `next()` finds
+ * the levels and, on a two-level trace, the edges and their ringing, then yields the series
+ * whose `wholeRecordMeasures` it needs (computed meanwhile elsewhere, or now); `next(measures)`
+ * finishes. A record of fewer than 2 samples finishes at once, without yielding.
+ */
+export function* analysisSteps(
+  samples: CaptureSamples | SampleSeries,
+  options: AnalyzeOptions = {},
+): Generator<SampleSeries, CaptureAnalysis, WholeRecordMeasures> {
   const allTimesS = asSeries(samples.timesS);
   const allVolts = asSeries(samples.volts);
   const points = Math.min(allTimesS.length, allVolts.length);
   const timesS = headOf(allTimesS, points);
   const volts = headOf(allVolts, points);
-  const sampleIntervalS = medianSampleIntervalS(timesS);
   const none: CaptureAnalysis = {
     points,
-    sampleIntervalS,
+    sampleIntervalS: null,
     baseV: null,
     topV: null,
     amplitudeV: null,
@@ -121,13 +137,8 @@ export function analyzeCapture(samples: CaptureSamples | SampleSeries, options: 
     humFrequencyHz: null,
     spectrum: null,
   };
-  if (points < 2) return none;
+  if (points < 2) return { ...none, sampleIntervalS: medianSampleIntervalS(timesS) };
 
-  const rails = findRails(volts);
-  const topRail = isRail(rails.atMax, rails.longestAtMax, rails.nearMax, points);
-  const bottomRail = isRail(rails.atMin, rails.longestAtMin, rails.nearMin, points);
-  const onRail = (i: number) => (topRail && volts.get(i) === rails.maxV) || (bottomRail && volts.get(i) === rails.minV);
-  const noiseV = noiseRmsV(volts, topRail || bottomRail ? onRail : undefined);
   const meanV = summaryOf(volts).sumV / points;
   const squares = new Float64Array(1);
   volts.scan(0, points, (values) => addSquaredDeviations(values, meanV, squares));
@@ -136,34 +147,38 @@ export function analyzeCapture(samples: CaptureSamples | SampleSeries, options: 
 
   const levels = stateLevels(volts);
   const rangeV = levels.maxV - levels.minV;
-  // Without two histogram peaks (a heavily drooping square has none) edges are still looked for
-  // between the extremes, so droop can be told from a waveform with no flats at all.
-  const reference = levels.twoStates
-    ? referenceLevels(levels.baseV, levels.topV)
-    : rangeV > 8 * noiseV
-      ? referenceLevels(levels.minV, levels.maxV)
-      : null;
-  const transitions = reference ? findTransitions(timesS, volts, reference, levels.noiseV) : [];
-  const period = measurePeriodS(transitions);
-  const clipped = isClipped(volts, rails, topRail, bottomRail, noiseV, rangeV, options);
   const lowV = levels.twoStates ? levels.baseV : levels.minV;
   const highV = levels.twoStates ? levels.topV : levels.maxV;
   // edges found with the state levels; whether each rings (against the state) keeps ringing from being read as a corner
-  const ringingAtState = transitions.map((transition, index) => {
-    const stopIndex = index + 1 < transitions.length ? transitions[index + 1].startIndex : points - 1;
-    const stateV = transition.kind === 'rise' ? highV : lowV;
-    return ringingAfter(timesS, volts, transition, stopIndex, stateV, levels.noiseV, RINGING_BAND_SHARE * (highV - lowV));
-  });
+  const edgesAt = (reference: ReferenceLevels | null) => {
+    const transitions = reference ? findTransitions(timesS, volts, reference, levels.noiseV) : [];
+    const ringingAtState = transitions.map((transition, index) => {
+      const stopIndex = index + 1 < transitions.length ? transitions[index + 1].startIndex : points - 1;
+      const stateV = transition.kind === 'rise' ? highV : lowV;
+      return ringingAfter(timesS, volts, transition, stopIndex, stateV, levels.noiseV, RINGING_BAND_SHARE * (highV - lowV));
+    });
+    return { reference, transitions, ringingAtState };
+  };
+  // two histogram peaks: the edges need nothing more, and are found before the rest is known
+  const twoLevelEdges = levels.twoStates ? edgesAt(referenceLevels(levels.baseV, levels.topV)) : null;
+
+  const { sampleIntervalS, rails, topRail, bottomRail, noiseV, spectral } = yield { timesS, volts };
+
+  // Without two histogram peaks (a heavily drooping square has none) edges are still looked for
+  // between the extremes, so droop can be told from a waveform with no flats at all.
+  const { reference, transitions, ringingAtState } = twoLevelEdges ?? edgesAt(rangeV > 8 * noiseV ? referenceLevels(levels.minV, levels.maxV) : null);
+  const period = measurePeriodS(transitions);
+  const clipped = isClipped(volts, rails, topRail, bottomRail, noiseV, rangeV, options);
   const ringsAtState = ringingAtState.map((ringing) => ringing !== null);
   const droopProbe = !levels.twoStates && hasFastEdges(transitions, timesS) ? settleSummary(timesS, volts, transitions, lowV, highV, noiseV, ringsAtState) : null;
 
-  const spectral = sampleIntervalS !== null ? amplitudeSpectrum(volts, sampleIntervalS) : null;
   const fundamentalShare = spectral ? strongestLineShare(spectral.amplitudesV) : null;
   const shape = classifyShape({ volts, levels, transitions, periodS: period, noiseV, fundamentalShare, clipped, meanV, stdV, drooped: droopProbe?.tilted ?? false });
   const durationS = timesS.get(points - 1) - timesS.get(0);
   const hum = spectral ? findHum(spectral.amplitudesV, spectral.spectrum.binHz, durationS, shape === 'dc' ? null : period) : null;
   const common = {
     ...none,
+    sampleIntervalS,
     shape,
     clipped,
     noiseRmsV: noiseV,
@@ -326,7 +341,7 @@ function aberrationsAgainst(
  */
 function isClipped(
   volts: Series,
-  rails: ReturnType<typeof findRails>,
+  rails: Rails,
   top: boolean,
   bottom: boolean,
   noiseV: number,

@@ -5,8 +5,15 @@ import { performance } from 'node:perf_hooks';
 import { gaussian, mulberry32, secondOrderStep, squareWaveform } from '../../shared/capture/synthetic';
 import { analyzeCaptureFile } from './analyze-file';
 
-/** Rows of the warm-up capture and how often it is analysed: enough for V8 to optimise every pass. */
-export const WARM_UP_ROWS = 100_000;
+/**
+ * Rows of the warm-up capture and how often it is analysed. A million rows, as a deep-memory
+ * scope exports: each pass's loop runs as long as in a real upload, so V8 optimises it for that
+ * (after three runs of 100k rows, the first 1M-sample upload still took about 1.3 times as long
+ * as the next one: loops inside the analysis and the second thread's reader not yet optimised).
+ * Three runs, not two: the second thread's reader then deoptimised less in the first upload
+ * (median of 8 first uploads: 132 ms against 145).
+ */
+export const WARM_UP_ROWS = 1_000_000;
 export const WARM_UP_RUNS = 3;
 const WRITE_ROWS = 10_000;
 
@@ -36,11 +43,13 @@ function writeWarmUpCsv(file: string, rows: number): void {
 }
 
 /**
- * Runs the whole upload path (parse to binary columns, analysis, plot store) on a small
- * capture a few times, read by one thread and split between two (back-half.ts), so that a
- * capture worker's first real upload runs in optimised code:
- * cold, a 1M-sample capture takes about twice as long as warm, most of it in V8's
- * interpreter and baseline code before each pass is optimised. Leaves nothing behind.
+ * Runs the whole upload path (parse to binary columns, analysis, plot store) on a made-up
+ * capture, read by one thread and then split between two (back-half.ts), so that a capture
+ * worker's first real upload runs in optimised code: cold, a 1M-sample capture takes about
+ * twice as long as warm, most of it in V8's interpreter and baseline code before each pass is
+ * optimised. The second thread takes the whole-record measures in all three runs (a million
+ * samples is past `BESIDE_MIN_POINTS`). About 2.5 s of a core, once, after the search index is
+ * ready. Leaves nothing behind.
  *
  * @returns the time it took, ms
  */
@@ -53,7 +62,7 @@ export async function warmUpCaptureAnalysis(rows = WARM_UP_ROWS, runs = WARM_UP_
     for (let run = 0; run < runs; run++) {
       const plotDir = path.join(dir, `plot-${run}`);
       // the first run reads the file on one thread, as a small upload is; the others split it, as a large one is
-      const result = await analyzeCaptureFile(file, {}, { plotDir }, run === 0 ? {} : { splitMinBytes: 0 });
+      const result = await analyzeCaptureFile(file, {}, { plotDir }, run === 0 ? { splitMinBytes: Number.POSITIVE_INFINITY } : { splitMinBytes: 0 });
       // a warm-up that fails means the analysis itself is broken: say so rather than warm nothing
       if (!result.ok) throw new Error(`the capture warm-up failed: ${result.message}`);
     }

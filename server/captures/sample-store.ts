@@ -159,7 +159,7 @@ export function readMeta(dir: string): StoreMeta {
 
 const PAGE = 1 << 16;
 const PAGES_KEPT = 4;
-export const SCAN_ROWS = 1 << 18;
+export const SCAN_ROWS = 1 << 16;
 
 /**
  * One column of a store, read on demand: `get` through a few cached pages of 65,536 samples
@@ -167,7 +167,8 @@ export const SCAN_ROWS = 1 << 18;
  */
 export class FileSeries implements Series {
   private readonly pageIds = new Float64Array(PAGES_KEPT).fill(-1);
-  private readonly pages: Float64Array[] = [];
+  // allocated on first use: a column only scanned (the time axis, mostly) never needs them
+  private readonly pages: (Float64Array | null)[] = new Array<Float64Array | null>(PAGES_KEPT).fill(null);
   private scratch: Float64Array | null = null;
   private raw: Float32Array | Int32Array | null = null;
   private nextSlot = 0;
@@ -193,7 +194,6 @@ export class FileSeries implements Series {
     this.partStarts = [0];
     for (const part of parts) this.partStarts.push(this.partStarts[this.partStarts.length - 1] + part.rows);
     this.divisor = 10 ** decimals;
-    for (let k = 0; k < PAGES_KEPT; k++) this.pages.push(new Float64Array(PAGE));
   }
 
   // the page read last, checked first: one subtraction and one comparison per sample
@@ -220,12 +220,13 @@ export class FileSeries implements Series {
     if (slot < 0) {
       slot = this.nextSlot;
       this.nextSlot = (slot + 1) % PAGES_KEPT;
-      this.read(id * PAGE, Math.min(this.length, (id + 1) * PAGE), this.pages[slot]);
+      const page = (this.pages[slot] ??= new Float64Array(PAGE));
+      this.read(id * PAGE, Math.min(this.length, (id + 1) * PAGE), page);
       this.pageIds[slot] = id;
     }
     this.lo = id * PAGE;
     this.span = Math.min(this.length, (id + 1) * PAGE) - this.lo;
-    this.current = this.pages[slot];
+    this.current = this.pages[slot]!;
   }
 
   scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {

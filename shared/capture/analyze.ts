@@ -221,7 +221,13 @@ export function* analysisSteps(
       if (after && before) transitions[i] = retimeEdge(timesS, volts, transition, before.levelAt(transition.t50S), after.levelAt(transition.t50S));
     });
   }
-  const edges: CaptureEdge[] = transitions.map((transition, index) => {
+  // each edge's figures summed in edge order as it is measured (the means are the same), and only
+  // the listed edges kept: a long clock capture has tens of thousands, an object each
+  const listed = options.maxListedEdges ?? 1000;
+  const edges: CaptureEdge[] = [];
+  const ringingHz: number[] = [];
+  const sums = { rise: 0, rises: 0, fall: 0, falls: 0, overshoot: 0, undershoot: 0 };
+  transitions.forEach((transition, index) => {
     const stopIndex = index + 1 < transitions.length ? transitions[index + 1].startIndex : points - 1;
     const segment: SegmentSettle | null = settle?.segments[index] ?? null;
     const stateV = transition.kind === 'rise' ? highV : lowV;
@@ -240,7 +246,7 @@ export function* analysisSteps(
       finalV === stateV && !settle?.tilted
         ? ringingAtState[index]
         : ringingAfter(timesS, volts, transition, stopIndex, finalV, levels.noiseV, RINGING_BAND_SHARE * amplitudeV);
-    return {
+    const edge: CaptureEdge = {
       kind: transition.kind,
       t10S: transition.t10S,
       t50S: transition.t50S,
@@ -251,22 +257,32 @@ export function* analysisSteps(
       undershootPct: undershootPct <= boundPct || overshootPct <= boundPct ? 0 : undershootPct,
       ringingFrequencyHz: ringing?.frequencyHz ?? null,
     };
+    if (edge.kind === 'rise') {
+      sums.rise += edge.durationS;
+      sums.rises++;
+    } else {
+      sums.fall += edge.durationS;
+      sums.falls++;
+    }
+    sums.overshoot += edge.overshootPct;
+    sums.undershoot += edge.undershootPct;
+    if (edge.ringingFrequencyHz !== null) ringingHz.push(edge.ringingFrequencyHz);
+    if (edges.length < listed) edges.push(edge);
   });
-  const ringingHz = edges.flatMap((edge) => (edge.ringingFrequencyHz === null ? [] : [edge.ringingFrequencyHz]));
+  const count = transitions.length;
   return {
     ...common,
     ...periodic,
     baseV,
     topV,
     amplitudeV,
-    riseTimeS: mean(edges.filter((edge) => edge.kind === 'rise').map((edge) => edge.durationS)),
-    fallTimeS: mean(edges.filter((edge) => edge.kind === 'fall').map((edge) => edge.durationS)),
-    overshootPct: mean(edges.map((edge) => edge.overshootPct)),
-    undershootPct: mean(edges.map((edge) => edge.undershootPct)),
-    ringingFrequencyHz:
-      ringingHz.length > 0 && ringingHz.length >= RINGING_EDGE_SHARE * edges.length ? median(ringingHz) : null,
-    edgeCount: edges.length,
-    edges: edges.slice(0, options.maxListedEdges ?? 1000),
+    riseTimeS: sums.rises > 0 ? sums.rise / sums.rises : null,
+    fallTimeS: sums.falls > 0 ? sums.fall / sums.falls : null,
+    overshootPct: count > 0 ? sums.overshoot / count : null,
+    undershootPct: count > 0 ? sums.undershoot / count : null,
+    ringingFrequencyHz: ringingHz.length > 0 && ringingHz.length >= RINGING_EDGE_SHARE * count ? median(ringingHz) : null,
+    edgeCount: count,
+    edges,
     referenceLevels: reference,
     tiltPct: settle ? settle.tiltPct : null,
     cornerPct: settle ? settle.cornerPct : null,

@@ -1,19 +1,38 @@
 import type { Series } from './series';
 import type { Transition } from './transitions';
 
-/** How the level after one edge moves until the next edge. */
-export interface SegmentSettle {
-  /** 'tilt': still moving when the next edge comes (droop); 'corner': settles with τ well inside; 'flat': neither. */
-  kind: 'tilt' | 'corner' | 'flat';
-  /** Level the model gives at the edge's 50 % instant and at the next edge's, V. */
-  startV: number;
-  endV: number;
-  /** Level the segment settles to (its asymptote; the end level for a linear droop), V. */
-  finalV: number;
-  /** Settling time constant, s (Infinity for a straight droop). */
-  tauS: number;
+/**
+ * How the level after one edge moves until the next edge: flat at `finalV`; a straight droop
+ * `startV` + slope·(t − t1); or a settle `finalV` + r1·e^(−(t − t1)/τ). A class rather than an
+ * object holding a closure: a long clock capture has one per edge (20,000 at 10M samples), and a
+ * closure each with its context was megabytes of heap.
+ */
+export class SegmentSettle {
+  constructor(
+    /** 'tilt': still moving when the next edge comes (droop); 'corner': settles with τ well inside; 'flat': neither. */
+    readonly kind: 'tilt' | 'corner' | 'flat',
+    /** Level the model gives at the edge's 50 % instant and at the next edge's, V. */
+    readonly startV: number,
+    readonly endV: number,
+    /** Level the segment settles to (its asymptote; the end level for a linear droop), V. */
+    readonly finalV: number,
+    /** Settling time constant, s (Infinity for a straight droop, NaN when flat). */
+    readonly tauS: number,
+    // the model's other terms: the droop's slope (V/s) or the settle's r1 (V), from the instant t1 (s)
+    private readonly term: number,
+    private readonly t1S: number,
+  ) {}
+
+  static flat(levelV: number): SegmentSettle {
+    return new SegmentSettle('flat', levelV, levelV, levelV, Number.NaN, 0, 0);
+  }
+
   /** The segment's level at time t, V. */
-  levelAt: (tS: number) => number;
+  levelAt(tS: number): number {
+    if (this.kind === 'flat') return this.finalV;
+    if (this.kind === 'tilt') return this.startV + this.term * (tS - this.t1S);
+    return this.finalV + this.term * Math.exp(-(tS - this.t1S) / this.tauS);
+  }
 }
 
 // Window centres at 10 %, 50 % and 90 % of the span, each 10 % wide.
@@ -51,7 +70,7 @@ export function fitSettle(timesS: Series, volts: Series, from: number, to: numbe
     const errorV = (SIGNIFICANT * noiseV * Math.SQRT2) / Math.sqrt(width);
     const flatLevel = (m1 + m2 + m3) / 3;
     if (Math.abs(d1) <= errorV && Math.abs(d2) <= errorV) {
-      if (Math.abs(m1 - m3) <= errorV || d1 === 0) return { kind: 'flat', startV: flatLevel, endV: flatLevel, finalV: flatLevel, tauS: Number.NaN, levelAt: () => flatLevel };
+      if (Math.abs(m1 - m3) <= errorV || d1 === 0) return SegmentSettle.flat(flatLevel);
     }
     // settled by the middle but moving early: look closer to the edge
     if (Math.abs(d2) <= errorV && Math.abs(d1) > errorV && span / 2 >= MIN_SPAN_SAMPLES) {
@@ -59,14 +78,12 @@ export function fitSettle(timesS: Series, volts: Series, from: number, to: numbe
       continue;
     }
     // a difference within the noise leaves the ratio to chance: no fit
-    if (Math.abs(d2) <= errorV) return Math.abs(d1) <= errorV ? { kind: 'flat', startV: flatLevel, endV: flatLevel, finalV: flatLevel, tauS: Number.NaN, levelAt: () => flatLevel } : null;
+    if (Math.abs(d2) <= errorV) return Math.abs(d1) <= errorV ? SegmentSettle.flat(flatLevel) : null;
     if (d1 * d2 < 0) return null;
     if (d2 === 0 || Math.abs(d1) <= Math.abs(d2) * (1 + 1e-9)) {
       // straight (or slightly accelerating) droop: a line through the outer windows
       const slope = (m3 - m1) / (timesS.get(Math.round(c3)) - timesS.get(Math.round(c1)));
-      const t1 = timesS.get(Math.round(c1));
-      const levelAt = (tS: number) => m1 + slope * (tS - t1);
-      return { kind: 'tilt', startV: m1, endV: m3, finalV: m3, tauS: Number.POSITIVE_INFINITY, levelAt };
+      return new SegmentSettle('tilt', m1, m3, m3, Number.POSITIVE_INFINITY, slope, timesS.get(Math.round(c1)));
     }
     const q = d1 / d2;
     const stepS = (timesS.get(Math.round(c3)) - timesS.get(Math.round(c1))) / 2;
@@ -77,7 +94,7 @@ export function fitSettle(timesS: Series, volts: Series, from: number, to: numbe
     const r1 = (m1 - finalV) / windowGain;
     const t1 = timesS.get(Math.round(c1));
     const levelAt = (tS: number) => finalV + r1 * Math.exp(-(tS - t1) / tauS);
-    return { kind: 'corner', startV: levelAt(timesS.get(from)), endV: levelAt(timesS.get(to)), finalV, tauS, levelAt };
+    return new SegmentSettle('corner', levelAt(timesS.get(from)), levelAt(timesS.get(to)), finalV, tauS, r1, t1);
   }
 }
 

@@ -79,6 +79,12 @@ describe('analyzeCapture', () => {
     const analysis = analyzeCapture(clock, { maxListedEdges: 3 });
     expect(analysis.edgeCount).toBe(10);
     expect(analysis.edges).toHaveLength(3);
+    // the first three in time, and the means still over all ten, as with every edge listed
+    const all = analyzeCapture(clock);
+    expect(analysis.edges).toEqual(all.edges.slice(0, 3));
+    expect([analysis.riseTimeS, analysis.fallTimeS, analysis.overshootPct, analysis.undershootPct]).toEqual([all.riseTimeS, all.fallTimeS, all.overshootPct, all.undershootPct]);
+    const mean = (values: number[]) => values.reduce((sum, v) => sum + v, 0) / values.length;
+    expect(all.riseTimeS).toBe(mean(all.edges.filter((edge) => edge.kind === 'rise').map((edge) => edge.durationS)));
   });
 
   it('should measure a 1,000,000-sample capture', () => {

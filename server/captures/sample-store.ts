@@ -232,8 +232,22 @@ export class FileSeries implements Series {
   scan(from: number, to: number, visit: (values: Float64Array, firstIndex: number) => void): void {
     this.scratch ??= new Float64Array(SCAN_ROWS);
     const scratch = this.scratch;
-    for (let start = Math.max(0, from); start < Math.min(to, this.length); start += SCAN_ROWS) {
-      const end = Math.min(to, this.length, start + SCAN_ROWS);
+    const first = Math.max(0, from);
+    const last = Math.min(to, this.length);
+    if (last > first && last - first <= PAGE) {
+      // a short range (the samples after one edge) comes from the pages `get` keeps, mostly one
+      // already read, copied out so a `get` during the visit cannot change it: no read per call
+      for (let i = first; i < last; ) {
+        this.turnTo(i);
+        const end = Math.min(last, this.lo + this.span);
+        scratch.set(this.current.subarray(i - this.lo, end - this.lo), i - first);
+        i = end;
+      }
+      visit(scratch.subarray(0, last - first), first);
+      return;
+    }
+    for (let start = first; start < last; start += SCAN_ROWS) {
+      const end = Math.min(last, start + SCAN_ROWS);
       this.read(start, end, scratch);
       visit(scratch.subarray(0, end - start), start);
     }

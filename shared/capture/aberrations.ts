@@ -38,17 +38,35 @@ export function postTransitionAberrations(
   const finalV = rising ? topV : baseV;
   // Work in the direction of the transition so one loop serves both kinds.
   const sign = rising ? 1 : -1;
-  let beyondV = Number.NEGATIVE_INFINITY;
-  let shortV = Number.POSITIVE_INFINITY;
-  let reached = false;
-  for (let i = transition.endIndex; i <= stopIndex; i++) {
-    const excessV = sign * (volts.get(i) - finalV);
-    if (excessV > beyondV) beyondV = excessV;
-    if (excessV >= 0) reached = true;
-    if (reached && excessV < shortV) shortV = excessV;
-  }
+  const state = EXTREMES;
+  state[0] = Number.NEGATIVE_INFINITY;
+  state[1] = Number.POSITIVE_INFINITY;
+  state[2] = 0;
+  volts.scan(transition.endIndex, stopIndex + 1, (values) => extremesAbout(values, sign, finalV, state));
+  const beyondV = state[0];
+  const shortV = state[1];
+  const reached = state[2] === 1;
   return {
     overshootPct: Math.max(0, (100 * beyondV) / amplitudeV),
     undershootPct: reached ? Math.max(0, (-100 * shortV) / amplitudeV) : 0,
   };
+}
+
+// [beyond, short, 1 once the level is reached], reused: one edge is measured at a time
+const EXTREMES = new Float64Array(3);
+
+/** The excursions beyond and, once there, short of `finalV` in the direction `sign` (a module-level pass, as `scan` asks). */
+function extremesAbout(values: Float64Array, sign: number, finalV: number, state: Float64Array): void {
+  let beyondV = state[0];
+  let shortV = state[1];
+  let reached = state[2] === 1;
+  for (let i = 0; i < values.length; i++) {
+    const excessV = sign * (values[i] - finalV);
+    if (excessV > beyondV) beyondV = excessV;
+    if (excessV >= 0) reached = true;
+    if (reached && excessV < shortV) shortV = excessV;
+  }
+  state[0] = beyondV;
+  state[1] = shortV;
+  state[2] = reached ? 1 : 0;
 }

@@ -175,9 +175,11 @@ function refine(volts: Series, lower: HalfLevel, upper: HalfLevel, coarseBinWidt
 /** Counts and sums the samples by bin of `binWidthV` from `fromV`, the top bin taking the maximum. */
 function binSamples(values: Float64Array, fromV: number, binWidthV: number, counts: Uint32Array, sums: Float64Array): void {
   const bins = counts.length;
+  // a multiply, not a divide, per sample (a divide costs several times as long)
+  const perV = 1 / binWidthV;
   for (let i = 0; i < values.length; i++) {
     const v = values[i];
-    let bin = Math.floor((v - fromV) / binWidthV);
+    let bin = Math.floor((v - fromV) * perV);
     if (bin >= bins) bin = bins - 1;
     counts[bin]++;
     sums[bin] += v;
@@ -187,9 +189,10 @@ function binSamples(values: Float64Array, fromV: number, binWidthV: number, coun
 /** Counts and sums the samples within the bins of `binWidthV` from `fromV`; the rest are left out. */
 function binWindow(values: Float64Array, fromV: number, binWidthV: number, counts: Uint32Array, sums: Float64Array): void {
   const bins = counts.length;
+  const perV = 1 / binWidthV;
   for (let i = 0; i < values.length; i++) {
     const v = values[i];
-    const bin = Math.floor((v - fromV) / binWidthV);
+    const bin = Math.floor((v - fromV) * perV);
     if (bin >= 0 && bin < bins) {
       counts[bin]++;
       sums[bin] += v;

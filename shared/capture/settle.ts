@@ -102,9 +102,19 @@ export function fitSettle(timesS: Series, volts: Series, from: number, to: numbe
 function windowMean(volts: Series, from: number, to: number, center: number, width: number): number {
   const a = Math.max(from, Math.round(center - width / 2));
   const b = Math.min(to, a + width - 1);
-  let sum = 0;
-  for (let i = a; i <= b; i++) sum += volts.get(i);
-  return sum / (b - a + 1);
+  WINDOW_SUM[0] = 0;
+  volts.scan(a, b + 1, (values) => addValues(values, WINDOW_SUM));
+  return WINDOW_SUM[0] / (b - a + 1);
+}
+
+// the running sum of `windowMean`, reused: one window is summed at a time
+const WINDOW_SUM = new Float64Array(1);
+
+/** sum[0] += the values, in order (a module-level pass, as `scan` asks). */
+function addValues(values: Float64Array, sum: Float64Array): void {
+  let total = sum[0];
+  for (let i = 0; i < values.length; i++) total += values[i];
+  sum[0] = total;
 }
 
 export interface SettleSummary {

@@ -72,7 +72,8 @@ export class BackHalfSplit {
   private startByte = 0;
   // shared with the other thread: set when its rows are no longer wanted
   private readonly cancel = new Int32Array(new SharedArrayBuffer(4));
-  tried = false;
+  /** Whether the file is split, or known to be read by this thread alone. */
+  decided = false;
 
   constructor(
     private readonly file: string,
@@ -90,8 +91,10 @@ export class BackHalfSplit {
    * reading is to stop, or null when the file is read by this thread alone.
    */
   async start(handle: FileHandle, fromByte: number, size: number): Promise<number | null> {
-    this.tried = true;
     const layout = this.parser.continuableLayout;
+    // a header longer than the first read: asked again after the next one
+    if (this.parser.readingHeader) return null;
+    this.decided = true;
     if (layout === null || this.writer() === null || size - fromByte < this.minBytes) return null;
     const middle = fromByte + Math.floor((size - fromByte) * FRONT_SHARE);
     const window = Buffer.alloc(Math.min(LINE_SEARCH_BYTES, size - middle));

@@ -305,6 +305,11 @@ export class CaptureParser {
     return layout.metadataColumns === 0 && layout.time.kind !== 'rows' ? layout : null;
   }
 
+  /** True while the header is still being read: no layout yet, and no error. */
+  get readingHeader(): boolean {
+    return this.layout === null && this.error === null;
+  }
+
   /** True when nothing of a line is held over: what was read so far ended with a line end. */
   get atLineStart(): boolean {
     return this.pending === '';

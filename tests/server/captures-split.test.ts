@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeBackHalfThread, FRONT_SHARE, runBackHalf } from '../../server/captures/back-half';
-import { READ_CHUNK_BYTES, readCaptureToStore, scratchDirFor } from '../../server/captures/capture-store';
+import { FIRST_READ_BYTES, READ_CHUNK_BYTES, readCaptureToStore, scratchDirFor } from '../../server/captures/capture-store';
 import type { BackHalfResult, BackHalfTask } from '../../server/captures/back-half-worker';
 import type { CaptureParseOptions } from '../../shared/capture/types';
 import type { Series } from '../../shared/capture/series';
@@ -19,7 +19,7 @@ afterAll(async () => {
   rmSync(dir, { recursive: true, force: true });
 });
 
-const ROWS = 120_000; // about 3 MB: past the first MB the front reads before it splits
+const ROWS = 120_000; // about 3 MB: well past the 576 KB the front reads before it splits
 
 /** Invented rows: fixed-width times in µs and two channels in mV, so a row can be replaced by one of the same length. */
 function rowText(i: number): string {
@@ -75,13 +75,23 @@ async function bothWays(name: string, text: string | Buffer, options: CapturePar
 
 /** The row the back part starts at: the line after the front's share of what follows its first reads. */
 function splitRow(text: string): number {
-  const from = 2 * READ_CHUNK_BYTES;
+  const from = FIRST_READ_BYTES + READ_CHUNK_BYTES;
   const middle = from + Math.floor((Buffer.byteLength(text) - from) * FRONT_SHARE);
   const start = text.indexOf('\n', middle) + 1;
   return text.slice(0, start).split('\n').length - 3; // less the two header lines
 }
 
 describe('a large capture read by two threads', () => {
+  it('should still split a file whose header is longer than the first read', async () => {
+    // an invented preamble of 100 KB: the layout is known only after the second read
+    const notes = Array.from({ length: 2000 }, (_, i) => `Note ${i},${'bench log line '.repeat(3)}`);
+    const text = [...notes, 'Time (us),CH1 (mV),CH2 (mV)', ...allRows()].join('\n') + '\n';
+    expect(text.indexOf('Time (us)')).toBeGreaterThan(FIRST_READ_BYTES);
+    const { split } = await bothWays('long-header.csv', text);
+    expect(split.ok).toBe(true);
+    if (split.ok) expect(split.parts).toBe(2);
+  });
+
   it('should give the same samples and notes as one reader, in two parts', async () => {
     const { split } = await bothWays('plain.csv', captureText(allRows()));
     expect(split.ok).toBe(true);

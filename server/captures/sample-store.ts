@@ -240,7 +240,9 @@ export class FileSeries implements Series {
       for (let i = first; i < last; ) {
         this.turnTo(i);
         const end = Math.min(last, this.lo + this.span);
-        scratch.set(this.current.subarray(i - this.lo, end - this.lo), i - first);
+        const page = this.current;
+        // a loop, not set(subarray): no view object per call (one per edge and window adds up)
+        for (let k = i; k < end; k++) scratch[k - first] = page[k - this.lo];
         i = end;
       }
       visit(scratch.subarray(0, last - first), first);

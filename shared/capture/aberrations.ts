@@ -42,7 +42,9 @@ export function postTransitionAberrations(
   state[0] = Number.NEGATIVE_INFINITY;
   state[1] = Number.POSITIVE_INFINITY;
   state[2] = 0;
-  volts.scan(transition.endIndex, stopIndex + 1, (values) => extremesAbout(values, sign, finalV, state));
+  state[3] = sign;
+  state[4] = finalV;
+  volts.scan(transition.endIndex, stopIndex + 1, extremesAboutState);
   const beyondV = state[0];
   const shortV = state[1];
   const reached = state[2] === 1;
@@ -52,8 +54,10 @@ export function postTransitionAberrations(
   };
 }
 
-// [beyond, short, 1 once the level is reached], reused: one edge is measured at a time
-const EXTREMES = new Float64Array(3);
+// [beyond, short, 1 once the level is reached, sign, final level] and its visitor, made once:
+// one edge is measured at a time
+const EXTREMES = new Float64Array(5);
+const extremesAboutState = (values: Float64Array) => extremesAbout(values, EXTREMES[3], EXTREMES[4], EXTREMES);
 
 /** The excursions beyond and, once there, short of `finalV` in the direction `sign` (a module-level pass, as `scan` asks). */
 function extremesAbout(values: Float64Array, sign: number, finalV: number, state: Float64Array): void {

@@ -93,8 +93,9 @@ export function fitSettle(timesS: Series, volts: Series, from: number, to: numbe
     const windowGain = h > 1e-6 ? Math.sinh(h) / h : 1;
     const r1 = (m1 - finalV) / windowGain;
     const t1 = timesS.get(Math.round(c1));
-    const levelAt = (tS: number) => finalV + r1 * Math.exp(-(tS - t1) / tauS);
-    return new SegmentSettle('corner', levelAt(timesS.get(from)), levelAt(timesS.get(to)), finalV, tauS, r1, t1);
+    const startV = finalV + r1 * Math.exp(-(timesS.get(from) - t1) / tauS);
+    const endV = finalV + r1 * Math.exp(-(timesS.get(to) - t1) / tauS);
+    return new SegmentSettle('corner', startV, endV, finalV, tauS, r1, t1);
   }
 }
 
@@ -103,12 +104,13 @@ function windowMean(volts: Series, from: number, to: number, center: number, wid
   const a = Math.max(from, Math.round(center - width / 2));
   const b = Math.min(to, a + width - 1);
   WINDOW_SUM[0] = 0;
-  volts.scan(a, b + 1, (values) => addValues(values, WINDOW_SUM));
+  volts.scan(a, b + 1, addToWindowSum);
   return WINDOW_SUM[0] / (b - a + 1);
 }
 
-// the running sum of `windowMean`, reused: one window is summed at a time
+// the running sum of `windowMean` and its visitor, made once: one window is summed at a time
 const WINDOW_SUM = new Float64Array(1);
+const addToWindowSum = (values: Float64Array) => addValues(values, WINDOW_SUM);
 
 /** sum[0] += the values, in order (a module-level pass, as `scan` asks). */
 function addValues(values: Float64Array, sum: Float64Array): void {

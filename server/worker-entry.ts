@@ -1,6 +1,6 @@
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, renameSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -37,6 +37,31 @@ function bundleInTemp(name: string, sourceFile: string): string {
     const scratch = `${file}.${process.pid}-${Date.now()}`;
     writeFileSync(scratch, code);
     renameSync(scratch, file);
+    removeOldBundles(dir, name, file);
+  } else {
+    // its time says when it was last used, so that another checkout's tidying leaves it
+    const now = new Date();
+    utimesSync(file, now, now);
   }
   return file;
+}
+
+/** Bundles older than this are removed when a new one is written: no process still starts from them. */
+const OLD_BUNDLE_MS = 24 * 60 * 60 * 1000;
+
+/**
+ * Removes earlier bundles of the same worker (each code change writes one under a new name) and
+ * scratch files a crash left, once unused for a day: a process started in the last day (from
+ * another checkout, say) may still start threads from its own.
+ */
+export function removeOldBundles(dir: string, name: string, keep: string, now = Date.now()): void {
+  for (const entry of readdirSync(dir)) {
+    const file = path.join(dir, entry);
+    if (!entry.startsWith(`${name}-`) || file === keep) continue;
+    try {
+      if (now - statSync(file).mtimeMs > OLD_BUNDLE_MS) rmSync(file, { force: true });
+    } catch {
+      // gone already (another process tidied up): nothing to do
+    }
+  }
 }

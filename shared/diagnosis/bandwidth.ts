@@ -2,12 +2,14 @@ import type { Candidate, ModelContext, ResolvedSetup } from './types';
 import {
   bandwidthFromRiseTimeHz,
   cascadeRiseTimeS,
+  flatResponseSpread,
   riseTimeFromBandwidthS,
   singlePoleMagnitude,
   squareWaveAmplitudeRatio,
 } from './single-pole';
 import { eng, percent } from './wording';
 import { clampPlausible } from './plausibility';
+import { SIGMA } from './scoring';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -105,9 +107,15 @@ export function assessBandwidth({ setup, observed }: ModelContext): Candidate[] 
     else if (setup.frequencyHz !== undefined) riseDeviation = Math.log(1 + 2 * system * setup.frequencyHz);
   }
   const dominant = stages.reduce<Stage | undefined>((a, s) => (a && a.riseTimeS >= s.riseTimeS ? a : s), undefined);
+  // a sine's amplitude below the bandwidth: the chain may be as flat as a maximally flat response
+  const shapeSpread =
+    (setup.signalKind === 'sine' || setup.signalKind === 'other') && setup.frequencyHz !== undefined && system !== undefined
+      ? flatResponseSpread(setup.frequencyHz, bandwidthFromRiseTimeHz(system))
+      : 0;
   const recorded: Candidate = {
     cause: 'bandwidth',
     basis: 'recorded',
+    ...(shapeSpread > 0 ? { amplitudeSigma: Math.hypot(SIGMA.amplitude, shapeSpread) } : {}),
     deviation: Math.hypot(amplitudeDeviation, riseDeviation),
     predicted: {
       amplitudeV: expected === undefined ? undefined : expected * ratio,

@@ -42,3 +42,17 @@ export function squareWaveAmplitudeRatio(timeConstantS: number, frequencyHz: num
   if (timeConstantS <= 0) return 1;
   return Math.tanh(1 / (4 * frequencyHz * timeConstantS));
 }
+
+/**
+ * How much more of a sine a measurement chain may pass than its single-pole model says, below
+ * its −3 dB bandwidth, in log units: oscilloscopes are built flatter than one pole, from a
+ * Gaussian response to a maximally flat one, all −3 dB at the bandwidth. Bounded by the
+ * fourth-order maximally flat (Butterworth) response, |H| = 1/√(1 + x⁸), x = f/f_c:
+ * ½·ln((1 + x²)/(1 + x⁸)). source: Butterworth magnitude response |H| = 1/√(1 + x^2n). Zero at
+ * and above the bandwidth, where the single pole is not below the flatter responses.
+ */
+export function flatResponseSpread(frequencyHz: number, cornerHz: number): number {
+  const x = frequencyHz / cornerHz;
+  if (!(x > 0) || x >= 1) return 0;
+  return 0.5 * Math.log((1 + x * x) / (1 + x ** 8));
+}

@@ -5,6 +5,7 @@ import {
   cascadeRiseTimeS,
   riseTimeFromBandwidthS,
   riseTimeFromTimeConstantS,
+  flatResponseSpread,
   singlePoleMagnitude,
   squareWaveAmplitudeRatio,
 } from '../../shared/diagnosis/single-pole';
@@ -116,5 +117,44 @@ describe('bandwidth model', () => {
     // product of the two poles' magnitudes at 20 MHz
     expect(top.predicted.amplitudeV).toBeCloseTo(singlePoleMagnitude(20e6, 6e6) * singlePoleMagnitude(20e6, 200e6), 12);
     expect(result.tags).toContain('1x-probe-bandwidth');
+  });
+});
+
+describe('a sine below the bandwidth: scopes are flatter than one pole', () => {
+  const sine = (amplitudeV: number, more: { sampleRateHz?: number; frequencyHz?: number } = {}) => ({
+    probe: { attenuation: 10 },
+    scope: { attenuationSetting: 10, bandwidthHz: 200e6, ...(more.sampleRateHz ? { sampleRateHz: more.sampleRateHz } : {}) },
+    circuit: { sourceResistanceOhm: 50 },
+    signal: { expectedAmplitudeV: 1, frequencyHz: 100e6, kind: 'sine' as const },
+    observed: { amplitudeV: amplitudeV, frequencyHz: more.frequencyHz ?? 100e6 },
+  });
+
+  it('bounds the spread by a fourth-order maximally flat response, nothing at and above the bandwidth', () => {
+    // source: Butterworth magnitude 1/√(1 + x^2n), n = 4, against the single pole 1/√(1 + x²)
+    expect(flatResponseSpread(100e6, 200e6)).toBeCloseTo(Math.log(1 / Math.sqrt(1 + 0.5 ** 8)) - Math.log(singlePoleMagnitude(100e6, 200e6)), 12);
+    expect(flatResponseSpread(100e6, 200e6)).toBeCloseTo(0.1096, 4);
+    expect(flatResponseSpread(200e6, 200e6)).toBe(0);
+    expect(flatResponseSpread(400e6, 200e6)).toBe(0);
+  });
+
+  it('calls a 100 MHz sine read at full amplitude on a 200 MHz scope a true trace, not loading', () => {
+    // one pole would pass 89 %, a flat front end nearly all of it: a full reading is no error
+    const result = diagnose(sine(0.99));
+    expect(result.verdict).toBe('faithful');
+  });
+
+  it('still puts a reading at the single pole\'s 89 % down to the bandwidth', () => {
+    const result = diagnose(sine(0.894));
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses.find((h) => h.causes.join('+') === 'bandwidth')?.fits).toBe(true);
+  });
+
+  it('finds aliasing when 100 MHz sampled at 120 MSa/s shows at 20 MHz and full amplitude', () => {
+    // source: a sampled sine folds to |f − k·f_s| (sampling theorem): |100 − 120| MHz = 20 MHz.
+    // Before, the single pole's 89 % taken as certain made the full reading contradict the record: "nothing fits"
+    const result = diagnose(sine(1.0, { sampleRateHz: 120e6, frequencyHz: 20e6 }));
+    expect(result.verdict).toBe('measurement-error');
+    expect(result.hypotheses[0].causes).toContain('aliasing');
+    expect(result.hypotheses[0].fits).toBe(true);
   });
 });

@@ -12,6 +12,8 @@ export const BANDWIDTH_TOPIC: HelpTopic = {
 
 Stages in cascade add their rise times **in quadrature** (root of the sum of squares). So the edge you see is never faster than the slowest stage, and a system only 1–2× faster than the edge measures mostly itself. A 1x passive probe has only a few MHz of bandwidth; a 20 MHz limit filter alone makes every edge at least 17.5 ns.
 
+A sine's amplitude below the bandwidth is less certain than its edge: one pole passes $1/\\sqrt{1 + (f/\\text{BW})^2}$, 89 % at half the bandwidth, but scope front ends are built flatter (Gaussian to maximally flat) and may pass nearly all of it there; every shape is −3 dB at the bandwidth. The engine allows that spread when it compares a sine's amplitude, so a full reading at half the bandwidth is no error, and a reading anywhere between the two does not count against another cause.
+
 Count each stage once. A probe's data-sheet bandwidth is usually the bandwidth *with the scope it is matched to*: that figure is the system's, not a second stage. Leave the probe's bandwidth blank for a matched probe and the engine takes the scope's figure as the whole system's; a 500 MHz probe and a 500 MHz scope added again in quadrature would wrongly make a 354 MHz system. A bandwidth-limit filter is always a stage of its own.`,
   formulas: [
     { tex: String.raw`t_r \approx \frac{0.35}{\text{BW}}`, meaning: 'one stage (exactly ln 9 / 2π = 0.3497)' },
@@ -36,6 +38,7 @@ Count each stage once. A probe's data-sheet bandwidth is usually the bandwidth *
     { label: 'IEEE Std 181-2011, transitions and pulse terms', note: '10 % and 90 % reference levels, rise time' },
     { label: 'Single-pole step response 1 − e^(−t/τ): t₉₀ − t₁₀ = τ·ln 9, f₃dB = 1/(2πτ)', note: 'derivation' },
     { label: 'Root-sum-square rise-time rule', note: 'common practice; exact for Gaussian stages' },
+    { label: 'Butterworth (maximally flat) magnitude 1/√(1 + (f/f_c)^2n)', note: 'filter theory; n = 4 bounds how flat a front end is taken to be' },
     { label: '1x passive probes reach only a few MHz', note: 'common practice' },
     { label: 'A probe\'s rated bandwidth is usually given with its matched scope (system figure)', note: 'common practice' },
   ],

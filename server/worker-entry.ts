@@ -54,7 +54,8 @@ const OLD_BUNDLE_MS = 24 * 60 * 60 * 1000;
  * scratch files a crash left, once unused for a day: a process started in the last day (from
  * another checkout, say) may still start threads from its own.
  */
-export function removeOldBundles(dir: string, name: string, keep: string, now = Date.now()): void {
+export function removeOldBundles(dir: string, name: string, keep: string): void {
+  const now = Date.now();
   for (const entry of readdirSync(dir)) {
     const file = path.join(dir, entry);
     if (!entry.startsWith(`${name}-`) || file === keep) continue;

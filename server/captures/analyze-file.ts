@@ -2,7 +2,7 @@ import { rm } from 'node:fs/promises';
 import { analysisSteps, type AnalyzeOptions, type CaptureAnalysis as Measured } from '../../shared/capture/analyze';
 import type { CaptureMetadata, CaptureParseOptions } from '../../shared/capture/types';
 import { wholeRecordMeasures, type WholeRecordMeasures } from '../../shared/capture/whole-record';
-import { measureWholeRecordBeside } from './back-half';
+import { measureWholeRecordBeside, onSecondThread } from './back-half';
 import type { WholeRecordTask } from './back-half-worker';
 import { readCaptureToStore, savePlotStore, scratchDirFor, type ReadTuning } from './capture-store';
 import type { OpenStore } from './sample-store';
@@ -55,6 +55,7 @@ export async function analyzeCaptureFile(
     await rm(dir, { recursive: true, force: true });
   }
 }
+
 /**
  * A capture of at least this many samples has its whole-record measures taken by the second
  * thread (our threshold: below it they take a few ms, about what handing them over costs).
@@ -69,20 +70,12 @@ export interface AnalysisTuning {
 
 /**
  * `analyzeCapture` on one channel of a store, with the whole-record measures (interval, rails,
- * noise, spectrum) taken by the second thread while this one finds the levels and edges: on
- * 2 cores a large capture's analysis takes about two thirds of the time. A second thread that
- * cannot start or fails leaves them to this one, with the same result.
+ * noise, spectrum) taken by the second thread while this one finds the levels and edges. A
+ * second thread that cannot start or fails leaves them to this one, with the same result.
  */
 async function measureStore(store: OpenStore, dir: string, channel: number, options: AnalyzeOptions, tuning: AnalysisTuning): Promise<Measured> {
   const samples = { timesS: store.timesS, volts: store.channel(channel) };
-  let beside: Promise<WholeRecordMeasures | null> | null = null;
-  if (samples.volts.length >= (tuning.besideMinPoints ?? BESIDE_MIN_POINTS)) {
-    try {
-      beside = (tuning.beside ?? measureWholeRecordBeside)({ dir, channel }).catch(() => null);
-    } catch {
-      beside = null;
-    }
-  }
+  const beside = samples.volts.length >= (tuning.besideMinPoints ?? BESIDE_MIN_POINTS) ? onSecondThread(() => (tuning.beside ?? measureWholeRecordBeside)({ dir, channel })) : null;
   try {
     const steps = analysisSteps(samples, options);
     let step = steps.next();

@@ -48,6 +48,18 @@ export const runBackHalf = (task: BackHalfTask) => thePool().run(task) as Promis
 /** Takes the whole-record measures of a stored channel on the second thread. */
 export const measureWholeRecordBeside = (task: WholeRecordTask) => thePool().run(task, { name: 'measureWholeRecord' }) as Promise<WholeRecordMeasures>;
 
+/**
+ * Starts a task on the second thread: null when the thread cannot start or the task fails, for
+ * this thread to do the work itself.
+ */
+export function onSecondThread<T>(start: () => Promise<T>): Promise<T | null> {
+  try {
+    return start().catch(() => null);
+  } catch {
+    return Promise.resolve(null);
+  }
+}
+
 /** Keeps the back-half thread for the life of the process (a capture worker that is kept warm). */
 export function keepBackHalfThread(): void {
   keep = true;
@@ -91,10 +103,10 @@ export class BackHalfSplit {
    * reading is to stop, or null when the file is read by this thread alone.
    */
   async start(handle: FileHandle, fromByte: number, size: number): Promise<number | null> {
-    const layout = this.parser.continuableLayout;
     // a header longer than the first read: asked again after the next one
     if (this.parser.readingHeader) return null;
     this.decided = true;
+    const layout = this.parser.continuableLayout;
     if (layout === null || this.writer() === null || size - fromByte < this.minBytes) return null;
     const middle = fromByte + Math.floor((size - fromByte) * FRONT_SHARE);
     const window = Buffer.alloc(Math.min(LINE_SEARCH_BYTES, size - middle));
@@ -104,11 +116,7 @@ export class BackHalfSplit {
     this.startByte = middle + lineEnd + 1;
     const task: BackHalfTask = { file: this.file, dir: this.dir, suffix: SUFFIX, startByte: this.startByte, layout, cancel: this.cancel };
     // a thread that cannot start or fails leaves the back half to this one: the result is the same, only slower
-    try {
-      this.task = this.runTask(task).catch(() => null);
-    } catch {
-      return null;
-    }
+    this.task = onSecondThread(() => this.runTask(task));
     return this.startByte;
   }
 

@@ -1,14 +1,13 @@
 import { postTransitionAberrations } from './aberrations';
-import type { Rails } from './clipping';
+import { isClipped } from './clipping';
 import { referenceLevels, stateLevels, type ReferenceLevels } from './levels';
 import { noisePeakV } from './noise';
-import { addSquaredDeviations, countBetween, summaryOf } from './passes';
+import { addSquaredDeviations, summaryOf } from './passes';
 import { settleSummary, type SegmentSettle } from './settle';
 import { classifyShape, type WaveShape } from './shape';
-import { humFrequencyHz as findHum, type CaptureSpectrum } from './spectrum';
+import { humFrequencyHz as findHum, strongestLineShare, type CaptureSpectrum } from './spectrum';
 import { periodS as measurePeriodS } from './period';
 import { ringingAfter } from './ringing';
-import { medianSampleIntervalS } from './sample-interval';
 import { asSeries, headOf, type SampleSeries, type Series } from './series';
 import { crossingTimeS, findTransitions, type EdgeKind, type Transition } from './transitions';
 import type { CaptureSamples } from './types';
@@ -137,7 +136,8 @@ export function* analysisSteps(
     humFrequencyHz: null,
     spectrum: null,
   };
-  if (points < 2) return { ...none, sampleIntervalS: medianSampleIntervalS(timesS) };
+  // too short for a spacing (the sample interval is null too)
+  if (points < 2) return none;
 
   const meanV = summaryOf(volts).sumV / points;
   const squares = new Float64Array(1);
@@ -347,56 +347,6 @@ function aberrationsAgainst(
     if (-excessV > shortV) shortV = -excessV;
   }
   return { overshootPct: (100 * beyondV) / amplitudeV, undershootPct: (100 * shortV) / amplitudeV };
-}
-
-/**
- * Clipping: a flat run of identical samples on the maximum or minimum. On a trace with visible
- * noise no real level is that flat, so such a run is a rail. On a noiseless trace a square's
- * own flats look the same, so there it takes a run on only one extreme, or the extreme lying
- * at or beyond the screen's edge (4 divisions from the centre at the file's V/div and offset).
- */
-function isClipped(
-  volts: Series,
-  rails: Rails,
-  top: boolean,
-  bottom: boolean,
-  noiseV: number,
-  rangeV: number,
-  options: AnalyzeOptions,
-): boolean {
-  if (!top && !bottom) return false;
-  if (options.voltsPerDiv !== undefined && options.voltsPerDiv > 0) {
-    const centerV = options.offsetV ?? 0;
-    const edgeV = 3.9 * options.voltsPerDiv;
-    if ((top && rails.maxV >= centerV + edgeV) || (bottom && rails.minV <= centerV - edgeV)) return true;
-  }
-  if (noiseV > 1e-6 * rangeV) return true;
-  // noiseless: one flat extreme and a moving other one means a rail; two flats may be a square's levels
-  if (top !== bottom) return true;
-  return slopedShare(volts, rails.minV, rails.maxV) >= 0.2;
-}
-
-/** Share of samples between 10 % and 90 % of the range: large for a sine clipped at its rails. */
-function slopedShare(volts: Series, minV: number, maxV: number): number {
-  const lowV = minV + 0.1 * (maxV - minV);
-  const highV = maxV - 0.1 * (maxV - minV);
-  const count = new Float64Array(1);
-  volts.scan(0, volts.length, (values) => countBetween(values, lowV, highV, count));
-  return count[0] / volts.length;
-}
-
-/** Share of the AC power in the strongest line (±3 bins: the Hann window's main lobe). */
-function strongestLineShare(amplitudesV: Float64Array): number | null {
-  let total = 0;
-  let peak = 1;
-  for (let k = 1; k < amplitudesV.length; k++) {
-    total += amplitudesV[k] * amplitudesV[k];
-    if (amplitudesV[k] > amplitudesV[peak]) peak = k;
-  }
-  if (!(total > 0)) return null;
-  let line = 0;
-  for (let k = Math.max(1, peak - 3); k <= Math.min(amplitudesV.length - 1, peak + 3); k++) line += amplitudesV[k] * amplitudesV[k];
-  return line / total;
 }
 
 function mean(values: number[]): number | null {

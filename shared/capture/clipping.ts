@@ -1,4 +1,4 @@
-import { summaryOf } from './passes';
+import { countBetween, summaryOf } from './passes';
 import type { Series } from './series';
 
 /** Flat runs at the extremes of a trace: where the signal sat on a rail. */
@@ -57,4 +57,40 @@ function countAtExtremes(values: Float64Array, minV: number, maxV: number, nearV
  */
 export function isRail(count: number, longest: number, near: number, total: number): boolean {
   return longest >= MIN_RAIL_RUN && count >= MIN_RAIL_SHARE * total && count >= 2 * near;
+}
+
+/**
+ * Clipping: a flat run of identical samples on the maximum or minimum. On a trace with visible
+ * noise no real level is that flat, so such a run is a rail. On a noiseless trace a square's
+ * own flats look the same, so there it takes a run on only one extreme, or the extreme lying
+ * at or beyond the screen's edge (4 divisions from the centre at the file's V/div and offset).
+ */
+export function isClipped(
+  volts: Series,
+  rails: Rails,
+  top: boolean,
+  bottom: boolean,
+  noiseV: number,
+  rangeV: number,
+  screen: { voltsPerDiv?: number; offsetV?: number },
+): boolean {
+  if (!top && !bottom) return false;
+  if (screen.voltsPerDiv !== undefined && screen.voltsPerDiv > 0) {
+    const centerV = screen.offsetV ?? 0;
+    const edgeV = 3.9 * screen.voltsPerDiv;
+    if ((top && rails.maxV >= centerV + edgeV) || (bottom && rails.minV <= centerV - edgeV)) return true;
+  }
+  if (noiseV > 1e-6 * rangeV) return true;
+  // noiseless: one flat extreme and a moving other one means a rail; two flats may be a square's levels
+  if (top !== bottom) return true;
+  return slopedShare(volts, rails.minV, rails.maxV) >= 0.2;
+}
+
+/** Share of samples between 10 % and 90 % of the range: large for a sine clipped at its rails. */
+function slopedShare(volts: Series, minV: number, maxV: number): number {
+  const lowV = minV + 0.1 * (maxV - minV);
+  const highV = maxV - 0.1 * (maxV - minV);
+  const count = new Float64Array(1);
+  volts.scan(0, volts.length, (values) => countBetween(values, lowV, highV, count));
+  return count[0] / volts.length;
 }

@@ -203,3 +203,17 @@ function groupMeans(values: Float64Array, m: number, input: Float64Array, state:
   state[2] = k;
   state[3] = total;
 }
+
+/** Share of the AC power in the strongest line (±3 bins: the Hann window's main lobe). */
+export function strongestLineShare(amplitudesV: Float64Array): number | null {
+  let total = 0;
+  let peak = 1;
+  for (let k = 1; k < amplitudesV.length; k++) {
+    total += amplitudesV[k] * amplitudesV[k];
+    if (amplitudesV[k] > amplitudesV[peak]) peak = k;
+  }
+  if (!(total > 0)) return null;
+  let line = 0;
+  for (let k = Math.max(1, peak - 3); k <= Math.min(amplitudesV.length - 1, peak + 3); k++) line += amplitudesV[k] * amplitudesV[k];
+  return line / total;
+}

@@ -10,6 +10,7 @@ import {
 import { eng, percent } from './wording';
 import { clampPlausible } from './plausibility';
 import { SIGMA } from './scoring';
+import { isOneXPassive } from './defaults';
 
 /** The bench action that tells this cause from the others. */
 const CONFIRM =
@@ -177,7 +178,7 @@ function describeChain(
 
 function fixFor(setup: ResolvedSetup, dominant: Stage | undefined): string {
   if (dominant?.name === 'bandwidth limit') return 'Turn off the bandwidth-limit filter when measuring edges.';
-  if (dominant?.name === 'probe' && setup.probeAttenuation === 1) {
+  if (dominant?.name === 'probe' && isOneXPassive(setup)) {
     return "Use a 10x probe: a 1x probe's bandwidth is only a few MHz.";
   }
   return 'Use a probe and scope whose combined rise time is several times shorter than the edge: 3× keeps the error near 5 %, 5× near 2 %.';
@@ -185,6 +186,6 @@ function fixFor(setup: ResolvedSetup, dominant: Stage | undefined): string {
 
 function tagsFor(setup: ResolvedSetup, dominant: Stage | undefined): string[] {
   if (dominant?.name === 'bandwidth limit') return ['bandwidth-limit-filter'];
-  if (dominant?.name === 'probe' && setup.probeAttenuation === 1) return ['1x-probe-bandwidth'];
+  if (dominant?.name === 'probe' && isOneXPassive(setup)) return ['1x-probe-bandwidth'];
   return dominant ? ['slow-edges'] : [];
 }

@@ -222,6 +222,12 @@ export function resolveSetup(input: DiagnosisInput): {
   return { setup, assumptions };
 }
 
+/**
+ * A 1x passive probe: a plain wire and its cable, with a few MHz of bandwidth. A buffered or
+ * clamp-on probe at 1:1 is not one (the advice to use a 10x probe is not for it).
+ */
+export const isOneXPassive = (setup: ResolvedSetup): boolean => setup.probeAttenuation === 1 && setup.probeKind === 'passive';
+
 /** The observation with nulls dropped (the schema has already removed unknown keys). */
 export function observedOf(input: DiagnosisInput): Observed {
   const entries = Object.entries(input.observed ?? {}).filter(([, value]) => value !== null && value !== undefined);

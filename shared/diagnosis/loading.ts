@@ -6,6 +6,7 @@ import { eng, percent } from './wording';
 import { clampPlausible } from './plausibility';
 import { CONTRADICTION_TOLERANCE_LN } from './evidence';
 import { SIGMA } from './scoring';
+import { isOneXPassive } from './defaults';
 import { SIGNIFICANT_DEVIATION, SIGNIFICANT_IMPROVEMENT } from './verdict';
 
 /** The bench action that tells this cause from the others. */
@@ -192,8 +193,7 @@ function loadingCandidate(setup: ResolvedSetup, p: LoadingParams, basis: Candida
   const riseTimeS = loadedEdgeS !== undefined && reference && Math.log(loadedEdgeS / reference) <= SIGNIFICANT_DEVIATION ? undefined : loadedEdgeS;
   const riseDeviation = edgeDeviation(setup, loadedEdgeS, reference);
   const expected = setup.expectedAmplitudeV;
-  // a 1x passive probe, its cable on the node; a buffered probe at 1:1 is not one
-  const oneX = setup.probeAttenuation === 1 && setup.probeKind === 'passive';
+  const oneX = isOneXPassive(setup);
 
   const cornerText = Number.isFinite(corner) ? `the RC corner is ${eng(corner, 'Hz')}` : 'an ideal source has no RC corner';
   let text = `The probe loads the ${eng(p.sourceResistanceOhm, 'Ω')} source with ${eng(p.inputResistanceOhm, 'Ω')} ∥ ${eng(p.inputCapacitanceF, 'F')}: the DC divider keeps ${percent(dc * 100)} of the signal and ${cornerText}.`;

@@ -158,3 +158,20 @@ describe('a sine below the bandwidth: scopes are flatter than one pole', () => {
     expect(result.hypotheses[0].fits).toBe(true);
   });
 });
+
+describe('the 1x-probe bandwidth advice', () => {
+  it('is not given for an active probe at 1:1 whose own bandwidth slows the edge', () => {
+    // common practice: a 1x passive probe reaches a few MHz; a buffered probe at 1:1 has its own rated bandwidth
+    const result = diagnose({
+      probe: { attenuation: 1, kind: 'active', bandwidthHz: 20e6 },
+      scope: { attenuationSetting: 1, bandwidthHz: 1e9 },
+      circuit: { sourceResistanceOhm: 50 },
+      signal: { expectedAmplitudeV: 1, frequencyHz: 1e6, riseTimeS: 1e-9, kind: 'square' },
+      observed: { amplitudeV: 1, riseTimeS: 17.5e-9 },
+    });
+    const bandwidth = result.hypotheses.find((h) => h.causes.join('+') === 'bandwidth')!;
+    expect(bandwidth.fits).toBe(true);
+    expect(result.tags).not.toContain('1x-probe-bandwidth');
+    expect(bandwidth.fix).not.toMatch(/10x probe/);
+  });
+});

@@ -21,10 +21,12 @@
  * cold, a fresh process's first capture (a server run with CAPTURE_WARM_UP=0, whose worker
  * starts with the upload). The target is judged on the warm figure; both are printed.
  * Figures: wall time from opening the file to the result, inside each process (start-up and
- * imports excluded on both sides), median of the runs; the app's peak resident set size
- * (getrusage maxRSS of its child process, a high-water mark no sampler can miss); the app's
- * garbage collections in that run and their time (node:v8's GCProfiler), which show what the
- * analysis allocates per sample.
+ * imports excluded on both sides), median of the runs, with their spread; the ratio is the
+ * median of the paired runs' ratios (each warm app run against the numpy run of the same loop
+ * pass, seconds apart), steadier than a ratio of medians when the machine's speed drifts; the
+ * app's peak resident set size (getrusage maxRSS of its child process, a high-water mark no
+ * sampler can miss); the app's garbage collections in that run and their time (node:v8's
+ * GCProfiler), which show what the analysis allocates per sample.
  * Targets: app ≤ 1.0× numpy's time at every size, app RSS ≤ 150 MB at 10M samples.
  */
 import { spawnSync } from 'node:child_process';
@@ -42,8 +44,8 @@ import { gaussian, mulberry32, secondOrderStep, squareWaveform } from '../shared
 
 const SIZES = [1_000_000, 10_000_000];
 const SAMPLE_INTERVAL_S = 1e-9;
-// the machine's noise moves single runs by ±30 %: a median of five holds better than one of three
-const RUNS = 5;
+// the machine's noise moves single runs by ±30 %: a median of seven holds better than one of three
+const RUNS = 7;
 const TARGET_RATIO = 1.0;
 const TARGET_RSS_MB = 150;
 const NUMPY_SCRIPT = fileURLToPath(new URL('./capture_numpy.py', import.meta.url));
@@ -139,6 +141,14 @@ function median(reports: Report[]): Report {
   return sorted[sorted.length >> 1];
 }
 
+const medianOf = (values: number[]) => [...values].sort((a, b) => a - b)[values.length >> 1];
+
+/** app time ÷ numpy time of each run pair (the same loop pass), in run order. */
+const pairedRatios = (app: Report[], numpy: Report[]) => app.slice(0, numpy.length).map((a, k) => a.totalS / numpy[k].totalS);
+
+/** Least and greatest time of the runs, s. */
+const spread = (reports: Report[]) => `${fmt(Math.min(...reports.map((r) => r.totalS)))}–${fmt(Math.max(...reports.map((r) => r.totalS)))} s`;
+
 const fmt = (value: number, digits = 2) => value.toFixed(digits);
 const ns = (s: number | null) => (s === null ? 'none' : `${fmt(s * 1e9, 3)} ns`);
 
@@ -172,8 +182,16 @@ async function benchSize(samples: number, dir: string): Promise<{ ratio: number 
     console.log(`  numpy ${c.reader!.padEnd(10)} ${fmt(c.totalS)} s (read ${fmt(c.parseS!)} s + analysis ${fmt(c.analyzeS!)} s), peak rss ${fmt(c.peakRssMB ?? 0, 0)} MB`);
   }
   const numpy = candidates.reduce((best, c) => (c.totalS < best.totalS ? c : best));
-  const ratio = ours.totalS / numpy.totalS;
-  console.log(`  ratio app/numpy (fastest numpy reader, ${numpy.reader}): ${fmt(ratio)}× warm, ${fmt(first.totalS / numpy.totalS)}× cold`);
+  const numpyRuns = numpy.reader === 'loadtxt' ? loadtxt : fromstring;
+  // each warm app run against the numpy run made right after it: the machine's speed drifts over
+  // minutes, and a pair shares its minute, so the median of the pairs' ratios is the steadier figure
+  const paired = pairedRatios(app, numpyRuns);
+  const ratio = paired.length > 0 ? medianOf(paired) : ours.totalS / numpy.totalS;
+  console.log(`  spread of the ${RUNS} runs: app warm ${spread(app)}, numpy ${numpy.reader} ${spread(numpyRuns)}`);
+  console.log(
+    `  ratio app/numpy (fastest numpy reader, ${numpy.reader}): ${fmt(ratio)}× warm (median of ${paired.length} paired runs: ${paired.map((r) => fmt(r)).join(', ')}; ` +
+      `ratio of the medians ${fmt(ours.totalS / numpy.totalS)}×), ${fmt(first.totalS / numpy.totalS)}× cold`,
+  );
   const a = ours.analysis;
   const b = numpy.analysis;
   console.log(`  app   measured: base ${fmt(a.baseV ?? 0, 5)} V, top ${fmt(a.topV ?? 0, 5)} V, rise ${ns(a.riseTimeS)}, fall ${ns(a.fallTimeS)}, period ${ns(a.periodS)}, ${a.edges} edges`);

@@ -101,7 +101,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}) {
       cookie: { httpOnly: true, sameSite: 'lax', secure: config.production, maxAge: 7 * 24 * 60 * 60 * 1000 },
     }),
   );
-  const passport = createPassport(deps);
+  const passport = createPassport(deps, store);
   app.use(passport.initialize());
   app.use(passport.session());
 

@@ -1,7 +1,17 @@
 import type { Db } from '../database';
 
+/**
+ * A live session row, with the account it is signed in as (null columns when it is signed in as
+ * nobody, or the account is gone): one statement for what every signed-in request reads first.
+ */
 export const getSession = (db: Db, sid: string, nowMs: number) =>
-  db.selectFrom('sessions').select(['data', 'expires_at']).where('sid', '=', sid).where('expires_at', '>', nowMs).executeTakeFirst();
+  db
+    .selectFrom('sessions')
+    .leftJoin('users', 'users.id', 'sessions.user_id')
+    .select(['sessions.data', 'sessions.expires_at', 'sessions.user_id', 'users.id as account_id', 'users.email', 'users.name', 'users.role', 'users.active'])
+    .where('sessions.sid', '=', sid)
+    .where('sessions.expires_at', '>', nowMs)
+    .executeTakeFirst();
 
 export async function upsertSession(db: Db, sid: string, data: string, userId: number | null, expiresAtMs: number) {
   await db

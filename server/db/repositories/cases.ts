@@ -88,17 +88,19 @@ function filtered(db: Db, actor: Actor, branch: Branch, q: CaseListQuery, sortsB
  * existence adds a row to the case change log (search follows it, see search/change-log.ts), and
  * every save sets updated_at; the highest case id covers an insert made without the log. Each
  * part is read from an index end: no count of every case (on PostgreSQL that is a full scan).
+ * As three scalar subqueries, so that the page's own statement can carry them.
  */
+const stampColumns = (db: Db) => [
+  db.selectFrom('case_changes').select((e) => e.fn.max('id').as('c')).as('stamp_change'),
+  db.selectFrom('cases').select((e) => e.fn.max('id').as('i')).as('stamp_id'),
+  db.selectFrom('cases').select((e) => e.fn.max('updated_at').as('u')).as('stamp_at'),
+];
+
+type StampRow = { stamp_change: unknown; stamp_id: unknown; stamp_at: unknown };
+const stampOf = (row: StampRow) => `${row.stamp_change ?? 0}|${row.stamp_id}|${row.stamp_at}`;
+
 async function casebookStamp(db: Db): Promise<string> {
-  // one statement of three scalar subqueries: each is answered from its own index end
-  const row = await db
-    .selectNoFrom((eb) => [
-      eb.selectFrom('case_changes').select((e) => e.fn.max('id').as('c')).as('change'),
-      eb.selectFrom('cases').select((e) => e.fn.max('id').as('i')).as('id'),
-      eb.selectFrom('cases').select((e) => e.fn.max('updated_at').as('u')).as('at'),
-    ])
-    .executeTakeFirstOrThrow();
-  return `${row.change ?? 0}|${row.id}|${row.at}`;
+  return stampOf(await db.selectNoFrom(stampColumns(db)).executeTakeFirstOrThrow());
 }
 
 /** Counts by query, kept while the casebook stamp holds and at most COUNT_TTL_MS (tag renames do not touch cases). */
@@ -137,23 +139,7 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidat
   const offset = (q.page - 1) * q.pageSize;
   const cap = offset + q.pageSize + COUNT_CAP;
   const branches = branchesFor(actor, q);
-  let total = 0;
-  let totalCapped = false;
-  const stamp = await casebookStamp(db);
-  const live: Branch[] = [];
-  for (const branch of branches) {
-    const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap, candidates ? 'index' : 'scan']), async () => {
-      const counted = await db
-        .selectFrom(filtered(db, actor, branch, q, false, candidates).select(sql<number>`1`.as('one')).limit(cap).as('m'))
-        .select((eb) => eb.fn.countAll<number>().as('n'))
-        .executeTakeFirstOrThrow();
-      return Number(counted.n);
-    });
-    total += n;
-    if (n >= cap) totalCapped = true;
-    if (n > 0) live.push(branch);
-  }
-  if (live.length === 0) return { rows: [], total, totalCapped };
+  if (branches.length === 0) return { rows: [], total: 0, totalCapped: false };
   // ties broken by id in the same direction, so one index gives each branch's whole order
   const idsOf = (branch: Branch, limit: number, skip: number) =>
     filtered(db, actor, branch, q, sortName === 'author', candidates)
@@ -165,28 +151,45 @@ export async function listCases(db: Db, actor: Actor, q: CaseListQuery, candidat
   // Two branches each bring everything up to the page's end and are merged in SQL (one statement,
   // each branch still read in order from its index); one branch cuts its page itself.
   const pageIds =
-    live.length === 1
-      ? idsOf(live[0], q.pageSize, offset)
+    branches.length === 1
+      ? idsOf(branches[0], q.pageSize, offset)
       : db
-          .selectFrom(idsOf(live[0], offset + q.pageSize, 0).as('first_branch'))
+          .selectFrom(idsOf(branches[0], offset + q.pageSize, 0).as('first_branch'))
           .selectAll()
-          .unionAll(db.selectFrom(idsOf(live[1], offset + q.pageSize, 0).as('second_branch')).selectAll())
+          .unionAll(db.selectFrom(idsOf(branches[1], offset + q.pageSize, 0).as('second_branch')).selectAll())
           .orderBy('key', dir)
           .orderBy('id', dir)
           .limit(q.pageSize)
           .offset(offset);
   // the deferred join: only the page's rows are read wide, and only what a list row shows
-  // (narratives, setups and diagnosis JSON stay on disk); the tags come in the same statement
+  // (narratives, setups and diagnosis JSON stay on disk); the tags, and the casebook's stamp that
+  // says whether the counts kept still hold, come in the same statement (one round trip, not two)
   const narrow = await db
     .selectFrom(pageIds.as('page'))
     .innerJoin('cases', 'cases.id', 'page.id')
     .innerJoin('users', 'users.id', 'cases.author_id')
     .select(['cases.id', 'cases.author_id', 'cases.title', 'cases.summary', 'cases.status', 'cases.cause', 'cases.created_at', 'cases.updated_at', 'users.name as author_name'])
     .select(tagsColumn(db).as('tags'))
+    .select(stampColumns(db))
     .orderBy(sql.ref(column), dir)
     .orderBy('cases.id', dir)
     .execute();
-  const rows: ListedCase[] = narrow.map((r) => ({ ...r, tags: typeof r.tags === 'string' ? (JSON.parse(r.tags) as string[]) : r.tags }));
+  // an empty page (past the end, or nothing matches) carries no stamp: read it on its own
+  const stamp = narrow.length > 0 ? stampOf(narrow[0]) : await casebookStamp(db);
+  let total = 0;
+  let totalCapped = false;
+  for (const branch of branches) {
+    const n = await cachedCount(db, stamp, JSON.stringify([branch, branch === 'own' ? actor.id : 0, q.status, q.cause, q.author, q.from, q.to, q.tag, q.q, cap, candidates ? 'index' : 'scan']), async () => {
+      const counted = await db
+        .selectFrom(filtered(db, actor, branch, q, false, candidates).select(sql<number>`1`.as('one')).limit(cap).as('m'))
+        .select((eb) => eb.fn.countAll<number>().as('n'))
+        .executeTakeFirstOrThrow();
+      return Number(counted.n);
+    });
+    total += n;
+    if (n >= cap) totalCapped = true;
+  }
+  const rows: ListedCase[] = narrow.map(({ stamp_change: _c, stamp_id: _i, stamp_at: _a, ...r }) => ({ ...r, tags: typeof r.tags === 'string' ? (JSON.parse(r.tags) as string[]) : r.tags }));
   return { rows, total, totalCapped };
 }
 

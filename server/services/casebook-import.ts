@@ -21,6 +21,7 @@ import {
   usersByEmail,
 } from '../db/repositories/casebook';
 import type { AppDeps } from '../deps';
+import { refreshPlannerStatistics } from '../db/dialect';
 import { AppError } from '../errors';
 import { storagePaths } from '../storage';
 import { diagnosisColumns, recomputeDiagnosis } from './case-diagnosis';
@@ -359,5 +360,6 @@ async function importRecords(deps: AppDeps, actor: Actor, records: Records, dryR
   await Promise.all(unused.map((n) => storage.remove(n)));
   // rows went in beside the services, so the search index reads them afresh
   await allCasesChanged(deps);
+  await refreshPlannerStatistics(deps.db);
   return report;
 }

@@ -3,7 +3,7 @@ import type { CaseCreateInput, CaseSetup, CaseStatus, StatedCause } from '../../
 import type { Cause } from '../../../shared/schemas/diagnosis';
 import { hashPassword } from '../../auth/password';
 import type { AuditLogTable, CasesTable, CommentsTable, CaseRevisionsTable, CaseTagsTable, Db, WatchesTable } from '../../db/database';
-import { isPostgres } from '../../db/dialect';
+import { isPostgres, refreshPlannerStatistics } from '../../db/dialect';
 import { insertMany } from '../../db/repositories/bulk-insert';
 import { recomputeDiagnosis, type StoredDiagnosis } from '../../services/case-diagnosis';
 import { markDiagnosesCurrent } from '../../services/rediagnose';
@@ -167,10 +167,7 @@ export async function seedBenchCasebook(db: Db, options: BenchSeedOptions): Prom
   await pinLessons(db, moderators[0]);
   // every diagnosis was just computed by this engine: no re-diagnosis at the next start
   await markDiagnosesCurrent(db);
-  // PostgreSQL plans from statistics that autovacuum gathers only a minute or so after a bulk
-  // load; until then it guesses (three rows for an author's 381 cases, and sorts instead of
-  // reading an index in order). Its manual says to ANALYZE after loading much data.
-  if (isPostgres(db)) await sql`analyze`.execute(db);
+  await refreshPlannerStatistics(db);
   return result;
 }
 

@@ -145,14 +145,14 @@ async function benchOne(label: string, open: (dataDir: string) => Db, env: Recor
           healthRuns.push(health);
           results.set(`${name}@${c}`, { ...(await measure(name, c)), healthRps: health.rps });
         }
-        const mean = (f: (r: Run) => number) => healthRuns.reduce((sum, r) => sum + f(r), 0) / healthRuns.length;
+        const total = (f: (r: Run) => number) => healthRuns.reduce((sum, r) => sum + f(r), 0);
         results.set(`health@${c}`, {
-          rps: mean((r) => r.rps),
+          rps: total((r) => r.rps) / healthRuns.length,
           p50: Math.max(...healthRuns.map((r) => r.p50)),
           p99: Math.max(...healthRuns.map((r) => r.p99)),
-          timeouts: mean((r) => r.timeouts) * healthRuns.length,
-          errors: mean((r) => r.errors) * healthRuns.length,
-          non2xx: mean((r) => r.non2xx) * healthRuns.length,
+          timeouts: total((r) => r.timeouts),
+          errors: total((r) => r.errors),
+          non2xx: total((r) => r.non2xx),
         });
       }
       return results;

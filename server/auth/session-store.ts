@@ -7,6 +7,13 @@ const DAY_MS = 24 * 60 * 60 * 1000;
 /** Sessions whose stored expiry this process remembers (the most recently used kept). */
 const KNOWN_EXPIRIES = 10_000;
 
+/** Sets `key` as the most recent entry of `map`, dropping the oldest past KNOWN_EXPIRIES. */
+function keepRecent<V>(map: Map<string, V>, key: string, value: V) {
+  map.delete(key);
+  map.set(key, value);
+  if (map.size > KNOWN_EXPIRIES) map.delete(map.keys().next().value!);
+}
+
 type Callback = (err?: unknown, value?: session.SessionData | null) => void;
 
 const expiryOf = (sess: session.SessionData) =>
@@ -49,8 +56,7 @@ export class SqliteSessionStore extends session.Store {
           this.remember(sid, Number(row.expires_at));
           if (row.user_id !== null) {
             const user = row.account_id !== null && row.active === 1 ? { id: row.account_id, email: row.email!, name: row.name!, role: row.role! } : null;
-            this.accounts.set(sid, { userId: Number(row.user_id), user });
-            if (this.accounts.size > KNOWN_EXPIRIES) this.accounts.delete(this.accounts.keys().next().value!);
+            keepRecent(this.accounts, sid, { userId: Number(row.user_id), user });
           }
         }
         cb(null, row ? (JSON.parse(row.data) as session.SessionData) : null);
@@ -102,9 +108,7 @@ export class SqliteSessionStore extends session.Store {
   }
 
   private remember(sid: string, expiresAt: number) {
-    this.knownExpiry.delete(sid);
-    this.knownExpiry.set(sid, expiresAt);
-    if (this.knownExpiry.size > KNOWN_EXPIRIES) this.knownExpiry.delete(this.knownExpiry.keys().next().value!);
+    keepRecent(this.knownExpiry, sid, expiresAt);
   }
 
   close() {

@@ -1,4 +1,3 @@
-import type { KyselyPlugin, PluginTransformQueryArgs, PluginTransformResultArgs, QueryResult, RootOperationNode, UnknownRow } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { canSeeCase } from '../../shared/auth/case-policy';
 import { caseListQuerySchema, type CaseStatus } from '../../shared/schemas/case';
@@ -6,6 +5,7 @@ import { openDatabase, type Db } from '../../server/db/database';
 import { migrateToLatest } from '../../server/db/migrate';
 import { insertCase, listCases } from '../../server/db/repositories/cases';
 import { seedBenchCasebook } from '../../server/seed/bench/generate-cases';
+import { StatementCounter } from './helpers/statement-counter';
 
 // The list reads an engineer's cases as two branches merged in one statement; it must give exactly the
 // page a plain filter-and-sort over every visible case gives, for every sort and across pages.
@@ -50,28 +50,23 @@ describe('case list visibility branches', () => {
   });
 
   it('reads a page again in one statement while the casebook is unchanged, and counts again after a change', async () => {
-    let statements = 0;
-    const counting: KyselyPlugin = {
-      // subqueries pass through transformQuery too: count the results, one per statement run
-      transformQuery: ({ node }: PluginTransformQueryArgs): RootOperationNode => node,
-      transformResult: async ({ result }: PluginTransformResultArgs): Promise<QueryResult<UnknownRow>> => (statements++, result),
-    };
-    const counted = db.withPlugin(counting);
+    const counter = new StatementCounter();
+    const counted = db.withPlugin(counter);
     const engineer = { id: all[0].author_id, role: 'engineer' as const };
     const query = caseListQuerySchema.parse({});
     const first = await listCases(counted, engineer, query);
-    statements = 0;
+    counter.statements = 0;
     const again = await listCases(counted, engineer, query);
     // the page, its tags and the stamp that says the kept counts still hold: one round trip
-    expect(statements).toBe(1);
+    expect(counter.statements).toBe(1);
     expect(again).toEqual(first);
 
     const now = new Date().toISOString();
     const { id } = await insertCase(db, { author_id: engineer.id, status: 'verified', title: 'Added after the count', summary: 'A new verified case.', created_at: now, updated_at: now });
-    statements = 0;
+    counter.statements = 0;
     const after = await listCases(counted, engineer, query);
     expect(after.total).toBe(first.total + 1);
     expect(after.rows[0].id).toBe(id);
-    expect(statements).toBeGreaterThan(1);
+    expect(counter.statements).toBeGreaterThan(1);
   });
 });

@@ -1,26 +1,13 @@
-import type { KyselyPlugin, PluginTransformQueryArgs, PluginTransformResultArgs, QueryResult, RootOperationNode, UnknownRow } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { updateUser } from '../../server/db/repositories/users';
+import { StatementCounter } from './helpers/statement-counter';
 import { client, createTestContext, demoEmail, type TestContext } from './helpers/test-context';
-
-/** Counts the statements sent while `counting` is on. */
-class StatementCounter implements KyselyPlugin {
-  counting = false;
-  statements = 0;
-  transformQuery({ node }: PluginTransformQueryArgs): RootOperationNode {
-    return node;
-  }
-  // one result per statement run (subqueries pass through transformQuery too)
-  async transformResult({ result }: PluginTransformResultArgs): Promise<QueryResult<UnknownRow>> {
-    if (this.counting) this.statements++;
-    return result;
-  }
-}
 
 describe('the account read with the session', () => {
   let ctx: TestContext;
   const counter = new StatementCounter();
+  counter.counting = false;
   let app: ReturnType<typeof createApp>;
   beforeAll(async () => {
     ctx = await createTestContext();

@@ -12,6 +12,8 @@ export interface WeightedTerm {
 export interface TermGroup {
   word: string;
   terms: WeightedTerm[];
+  /** A word still being typed: its terms are alternatives, scored as one word (`CompactEngine.scoreAnyOfSlots`). */
+  typing?: boolean;
 }
 
 /**
@@ -117,13 +119,15 @@ export class CaseIndex {
 
   /** `scoreGroup` by slot (see `CompactEngine.scoreTermSlots`). */
   scoreGroupSlots(group: TermGroup, admit: (slot: number) => boolean, acc: Float64Array, touched: number[]) {
-    for (const t of group.terms) this.engine.scoreTermSlots(t.term, t.weight, admit, acc, touched);
+    if (group.typing) this.engine.scoreAnyOfSlots(group.terms, admit, acc, touched);
+    else for (const t of group.terms) this.engine.scoreTermSlots(t.term, t.weight, admit, acc, touched);
   }
 
-  /** Σ weight × BM25F over a group's terms, for the cases `allow` admits (the filter applied inside scoring). */
+  /** Σ weight × BM25F over a group's terms (a word being typed: the best of them, see `scoreAnyOfSlots`), for the cases `allow` admits. */
   scoreGroup(group: TermGroup, allow: (id: number) => boolean): Map<number, number> {
     const out = new Map<number, number>();
-    for (const t of group.terms) this.engine.scoreTerm(t.term, t.weight, allow, out);
+    if (group.typing) this.engine.scoreAnyOf(group.terms, allow, out);
+    else for (const t of group.terms) this.engine.scoreTerm(t.term, t.weight, allow, out);
     return out;
   }
 }

@@ -91,6 +91,8 @@ export class CompactEngine {
   private dfStamp = new Uint32Array(0);
   /** `scoreTerm`'s per-slot sums, all zero between calls. */
   private scratch = new Float64Array(0);
+  /** `scoreAnyOfSlots`' best part per slot, all zero between calls. */
+  private anyOfBest = new Float64Array(0);
   /** Per field and slot, BM25F's 1 / (1 − b + b·len/avglen), good while `normsVersion` equals `version`. */
   private norms: Float64Array[] = [];
   private normsVersion = 0;
@@ -219,10 +221,19 @@ export class CompactEngine {
    * `scoreTermSlots` into a scratch array, then moved to the map by case id.
    */
   scoreTerm(term: string, weight: number, allow: (id: number) => boolean, out: Map<number, number>) {
+    this.scoreIntoMap((admit, acc, touched) => this.scoreTermSlots(term, weight, admit, acc, touched), allow, out);
+  }
+
+  /** `scoreAnyOfSlots`, added to `out` by case id as `scoreTerm` does. */
+  scoreAnyOf(terms: readonly { term: string; weight: number }[], allow: (id: number) => boolean, out: Map<number, number>) {
+    this.scoreIntoMap((admit, acc, touched) => this.scoreAnyOfSlots(terms, admit, acc, touched), allow, out);
+  }
+
+  private scoreIntoMap(score: (admit: (slot: number) => boolean, acc: Float64Array, touched: number[]) => void, allow: (id: number) => boolean, out: Map<number, number>) {
     if (this.scratch.length < this.slots) this.scratch = new Float64Array(Math.max(this.slots, 2 * this.scratch.length));
     const acc = this.scratch;
     const touched: number[] = [];
-    this.scoreTermSlots(term, weight, (slot) => allow(this.ids[slot]), acc, touched);
+    score((slot) => allow(this.ids[slot]), acc, touched);
     for (const slot of touched) {
       const id = this.ids[slot];
       out.set(id, (out.get(id) ?? 0) + acc[slot]);
@@ -267,6 +278,51 @@ export class CompactEngine {
       const score = idf * (D + (tf * (K + 1)) / (tf + K));
       if (acc[slot] === 0) touched.push(slot);
       acc[slot] += score;
+    }
+  }
+
+  /**
+   * A word still being typed, scored as the one word it will be: `terms` are its completions (and
+   * the stems it may be heading for), each with its weight. Per case, the best of weight × (δ +
+   * tf~·(k1 + 1)/(tf~ + k1)) over the completions it holds, times one idf worked out from the
+   * cases holding any of them. Summing each completion's own BM25F let the rarest completion
+   * decide: for "ground lea", a case with "leakage" (a large idf) came before every case with
+   * "lead", the word being typed. With one term this is `scoreTermSlots` exactly. `acc` and
+   * `touched` as there.
+   */
+  scoreAnyOfSlots(terms: readonly { term: string; weight: number }[], admit: (slot: number) => boolean, acc: Float64Array, touched: number[]) {
+    if (this.documentCount === 0) return;
+    if (this.anyOfBest.length < this.slots) this.anyOfBest = new Float64Array(Math.max(this.slots, 2 * this.anyOfBest.length));
+    const best = this.anyOfBest;
+    const holding: number[] = [];
+    const ids = this.ids;
+    const norms = this.lengthNorms();
+    for (const { term, weight } of terms) {
+      const t = this.termIds.get(term);
+      if (t === undefined) continue;
+      const list = this.lists[t];
+      const n = this.used[t];
+      for (let i = 0; i < n; ) {
+        const slot = list[i] >>> SLOT_SHIFT;
+        let tf = 0;
+        for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) {
+          const f = (list[i] >>> FIELD_SHIFT) & 7;
+          tf += BOOSTS[f] * (list[i] & TF_MASK) * norms[f][slot];
+        }
+        if (ids[slot] < 0) continue;
+        const part = weight * (D + (tf * (K + 1)) / (tf + K));
+        if (best[slot] === 0) holding.push(slot);
+        if (part > best[slot]) best[slot] = part;
+      }
+    }
+    // the document frequency of the word as typed: live cases holding any completion, visible or not (as for one term)
+    const idf = inverseDocumentFrequency(this.documentCount, holding.length);
+    for (const slot of holding) {
+      const part = best[slot];
+      best[slot] = 0;
+      if (!admit(slot)) continue;
+      if (acc[slot] === 0) touched.push(slot);
+      acc[slot] += idf * part;
     }
   }
 

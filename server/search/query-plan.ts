@@ -42,7 +42,7 @@ function withTagSynonyms(query: string, synonyms: Map<string, string>): string {
  * Query planning: each query word becomes the dictionary terms that count as it.
  * - the word itself, when the dictionary has it;
  * - a word being typed (no space after it yet): its completions, and the stem a half-typed
- *   inflection is heading for;
+ *   inflection is heading for, scored as one word (`typing`);
  * - a word the dictionary lacks may be misspelt: terms within 1 edit (2 from eight letters).
  *   Words the dictionary has are never fuzzed, which keeps the edit-distance walk off
  *   ordinary queries;
@@ -79,7 +79,8 @@ export function planQuery(query: string, index: CaseIndex, synonyms: Map<string,
     }
     const tag = synonyms.get(w.surface);
     if (tag && !/[-\s]/.test(tag) && dict.hasTerm(stem(tag))) add(stem(tag), 1);
-    groups.set(w.term, { word: w.surface, terms: [...terms].map(([term, weight]): WeightedTerm => ({ term, weight })) });
+    const planned = [...terms].map(([term, weight]): WeightedTerm => ({ term, weight }));
+    groups.set(w.term, typing ? { word: w.surface, terms: planned, typing } : { word: w.surface, terms: planned });
   });
   return [...groups.values()];
 }

@@ -61,6 +61,17 @@ describe('search relevance', () => {
     expect(rankedTitles(index, 'piezo driver ringing on edges').slice(0, 3)).toContain(idOf(piezo.title));
   });
 
+  it('should read a word still being typed as the word it is becoming, not as its rarest completion', () => {
+    // "ground lea" is "ground lead" half typed: a case that says "leakage" once must not come before the cases
+    // about the ground lead. common practice, no source (a partial word stands for one word)
+    const leakage: Written = { title: 'Qwelbox ground return shows leakage at night', summary: 'A ground return with leakage through a damp connector.', narrative: 'Leakage from the damp connector, not the probe.' };
+    const { index, idOf } = demoIndexWith([leakage]);
+    const top = rankedTitles(index, 'ground lea').slice(0, 3);
+    expect(top).not.toContain(idOf(leakage.title));
+    const titles = [...DEMO_CASES.map((c) => c.title), leakage.title];
+    for (const id of top) expect(titles[id - 1]).toMatch(/lead|ground clip|ground spring/i);
+  });
+
   it('should find a case written in the past tense from a query in the present, and back', () => {
     const rang: Written = { title: 'Zyxomat output rang after the relay closed', summary: 'The zyxomat line rang for a microsecond.', narrative: 'Rang, then settled.' };
     const { index, idOf } = demoIndexWith([rang]);

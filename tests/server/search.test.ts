@@ -5,6 +5,7 @@ import { CompactEngine } from '../../server/search/compact-engine';
 import { indexTerms } from '../../shared/search/text-terms';
 import { CaseIndex } from '../../server/search/case-index';
 import { openCaseSearch } from '../../server/search/case-search';
+import { planQuery } from '../../server/search/query-plan';
 import { rankCases } from '../../server/search/rank';
 import { searchSourceRows, searchTags, synonymsByTag } from '../../server/db/repositories/search-source';
 import { SEARCH_FIXTURES } from './helpers/search-fixtures';
@@ -235,5 +236,40 @@ describe('case search', () => {
     docs.set(edited.doc.id, edited.doc);
     compact.upsert(edited.doc, edited.facts);
     compare();
+  });
+  it('should score a word being typed as one word: the best of its completions in a case, one idf from the cases holding any', async () => {
+    const [rows, tags, synonyms] = await Promise.all([searchSourceRows(ctx.db), searchTags(ctx.db), synonymsByTag(ctx.db)]);
+    const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], synonyms));
+    const index = new CaseIndex();
+    index.addAll(entries);
+    const [group] = planQuery('sho', index, new Map());
+    expect(group.typing).toBe(true);
+    // more than one completion, held by different cases: otherwise there is nothing to choose between
+    expect(group.terms.length).toBeGreaterThan(1);
+    // written out plainly over the documents, apart from the packed postings: BM25F per completion as in the
+    // test above (Robertson & Zaragoza 2009, 3.4; k1 = 2, b = 0.75, δ = 0.5), weighted, the best per case;
+    // idf the RSJ weight (3.3) of the number of cases holding any completion, floored at 1e-6 as FTS5 does
+    const docs = entries.map((e) => e.doc);
+    const fields = docs.map((d) => DOC_FIELDS.map((f) => indexTerms(d[f])));
+    const avg = DOC_FIELDS.map((_, i) => fields.reduce((sum, fs) => sum + fs[i].length, 0) / docs.length);
+    const best = new Map<number, number>();
+    let holdingTwo = 0;
+    docs.forEach((d, k) => {
+      let held = 0;
+      for (const { term, weight } of group.terms) {
+        const counts = fields[k].map((ts) => Math.min(31, ts.filter((t) => t === term).length));
+        if (counts.every((c) => c === 0)) continue;
+        held++;
+        const tf = DOC_FIELDS.reduce((sum, f, i) => sum + (FIELD_BOOST[f] * counts[i]) / (0.25 + (0.75 * fields[k][i].length) / avg[i]), 0);
+        best.set(d.id, Math.max(best.get(d.id) ?? 0, weight * (0.5 + (tf * 3) / (tf + 2))));
+      }
+      if (held > 1) holdingTwo++;
+    });
+    // a case holding two completions ("short" and "showed"), where the best, not the sum, counts
+    expect(holdingTwo).toBeGreaterThan(0);
+    const idf = Math.max(1e-6, Math.log((docs.length - best.size + 0.5) / (best.size + 0.5)));
+    const mine = index.scoreGroup(group, () => true);
+    expect(mine.size).toBe(best.size);
+    for (const [id, part] of best) expect(mine.get(id)! / (idf * part), `case ${id}`).toBeCloseTo(1, 9);
   });
 });

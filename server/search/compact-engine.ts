@@ -53,6 +53,23 @@ const FIELD_SHIFT = 5;
 const TF_MASK = 31;
 const MAX_SLOTS = 1 << 24;
 
+/** `slotPostingsEnd`'s second answer: the slot's tf~ (kept outside so the hot loops allocate nothing). */
+const slotTf = new Float64Array(1);
+
+/**
+ * Walks one slot's postings of a term, which are adjacent, from `i`: returns where the next slot's postings
+ * start, and leaves the slot's BM25F tf~ (Σ boost · count · length norm over its fields) in `slotTf[0]`.
+ */
+function slotPostingsEnd(list: Uint32Array, i: number, n: number, slot: number, norms: Float64Array[]): number {
+  let tf = 0;
+  for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) {
+    const f = (list[i] >>> FIELD_SHIFT) & 7;
+    tf += BOOSTS[f] * (list[i] & TF_MASK) * norms[f][slot];
+  }
+  slotTf[0] = tf;
+  return i;
+}
+
 export interface CompactHeader {
   terms: string[];
   slots: number;
@@ -269,12 +286,9 @@ export class CompactEngine {
     const norms = this.lengthNorms();
     for (let i = 0; i < n; ) {
       const slot = list[i] >>> SLOT_SHIFT;
-      let tf = 0;
-      for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) {
-        const f = (list[i] >>> FIELD_SHIFT) & 7;
-        tf += BOOSTS[f] * (list[i] & TF_MASK) * norms[f][slot];
-      }
+      i = slotPostingsEnd(list, i, n, slot, norms);
       if (ids[slot] < 0 || !admit(slot)) continue;
+      const tf = slotTf[0];
       const score = idf * (D + (tf * (K + 1)) / (tf + K));
       if (acc[slot] === 0) touched.push(slot);
       acc[slot] += score;
@@ -304,12 +318,9 @@ export class CompactEngine {
       const n = this.used[t];
       for (let i = 0; i < n; ) {
         const slot = list[i] >>> SLOT_SHIFT;
-        let tf = 0;
-        for (; i < n && list[i] >>> SLOT_SHIFT === slot; i++) {
-          const f = (list[i] >>> FIELD_SHIFT) & 7;
-          tf += BOOSTS[f] * (list[i] & TF_MASK) * norms[f][slot];
-        }
+        i = slotPostingsEnd(list, i, n, slot, norms);
         if (ids[slot] < 0) continue;
+        const tf = slotTf[0];
         const part = weight * (D + (tf * (K + 1)) / (tf + K));
         if (best[slot] === 0) holding.push(slot);
         if (part > best[slot]) best[slot] = part;

@@ -300,7 +300,7 @@ export class CompactEngine {
    * the stems it may be heading for), each with its weight. Per case, the best of weight × (δ +
    * tf~·(k1 + 1)/(tf~ + k1)) over the completions it holds, times one idf worked out from the
    * cases holding any of them. Summing each completion's own BM25F let the rarest completion
-   * decide: for "ground lea", a case with "leakage" (a large idf) came before every case with
+   * decide: for "ground lea", the one case that says "leaves" (a rare word: a large idf) came before every case with
    * "lead", the word being typed. With one term this is `scoreTermSlots` exactly. `acc` and
    * `touched` as there.
    */

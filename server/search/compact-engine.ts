@@ -1,50 +1,10 @@
 import SearchableMap from 'minisearch/SearchableMap';
 import { indexTerms } from '../../shared/search/text-terms';
+import { inverseDocumentFrequency, lengthNorm, saturatedTf } from './bm25f';
 import { DOC_FIELDS, FIELD_BOOST, type CaseDoc } from './case-document';
 
-/**
- * BM25F with a BM25+ floor. Each field's term frequency is length-normalised against that field's
- * average length and multiplied by the field's boost, and the products are summed BEFORE
- * saturation:
- *   tf~ = Σ_f boost_f · tf_f / (1 − b + b·len_f/avglen_f),
- *   score = idf · (δ + tf~·(k1 + 1) / (tf~ + k1)),
- *   idf = max(ε, ln((N − df + 0.5) / (df + 0.5))), df counting cases holding the term in any field
- *   (see `inverseDocumentFrequency`).
- * So a word repeated across the title, summary and story saturates once, as in one document,
- * instead of each short field earning a near-full score of its own; and a long story does not
- * discount a match in a title of usual length (one normalisation over the boost-weighted whole
- * case did: a case with a long narrative lost its title matches to shorter, looser cases).
- * source: Robertson & Zaragoza, "The Probabilistic Relevance Framework: BM25 and Beyond", FnTIR 3(4), 2009, 3.4 (BM25F);
- * Robertson, Zaragoza & Taylor, "Simple BM25 extension to multiple weighted fields", CIKM 2004 (combine before saturating);
- * δ: Lv & Zhai, "Lower-bounding term frequency normalization", CIKM 2011 (BM25+).
- * b = 0.75 for every field, the usual value (Robertson & Zaragoza 2009; SQLite FTS5's bm25()). k1 = 2, the
- * top of the 1.2–2 range usually found reasonable (Manning, Raghavan & Schütze, Introduction to Information
- * Retrieval, 2008, 11.4.3). The boosts put tf~ on a larger scale than a plain count (one title word is
- * about 4), where 1.2 is already near the ceiling: a word in the title, summary and tags scored little
- * more than the same word in a long story. Measured by bench/search-relevance.ts: nDCG@5 at 30k
- * 0.856 → 0.867, at 100k 0.853 → 0.856, the same at 10k. δ = 0.5 is minisearch 7's default.
- */
-const K = 2;
-const B = 0.75;
-/** The floor of idf: above it a word in over half the cases would count against a case that holds it. */
-const IDF_FLOOR = 1e-6;
-
-/**
- * The Robertson–Spärck Jones weight without relevance information, ln((N − df + 0.5) / (df + 0.5)),
- * floored at 1e-6 as SQLite FTS5's bm25() floors it. A word in more than half the cases ("probe",
- * "ringing" in a casebook about probing) says next to nothing about which case is meant, so only
- * its term frequency orders cases among themselves. The ln(1 + …) variant kept such words at about
- * ln 2 and let their repeats outweigh a rarer word the reader typed (a case repeating "clip lead …
- * ringing" ahead of the buck-converter case for "buck regulator ringing clip lead"). Measured by
- * bench/search-relevance.ts at 100k: nDCG@5 0.856 → 0.867; unchanged at 10k and 30k.
- * source: Robertson & Zaragoza, "The Probabilistic Relevance Framework: BM25 and Beyond", FnTIR 3(4), 2009, 3.3.
- */
-export function inverseDocumentFrequency(caseCount: number, casesWithTerm: number): number {
-  return Math.max(IDF_FLOOR, Math.log((caseCount - casesWithTerm + 0.5) / (casesWithTerm + 0.5)));
-}
-const D = 0.5;
-const BOOSTS = DOC_FIELDS.map((f) => FIELD_BOOST[f]);
 const FIELDS = DOC_FIELDS.length;
+const BOOSTS = DOC_FIELDS.map((f) => FIELD_BOOST[f]);
 
 // A posting is one 32-bit word: case slot (24 bits) · field (3 bits) · term frequency (5 bits, capped at 31:
 // BM25 saturates long before, so 31 and 40 score within a hair of each other).
@@ -70,6 +30,7 @@ function slotPostingsEnd(list: Uint32Array, i: number, n: number, slot: number, 
   return i;
 }
 
+
 export interface CompactHeader {
   terms: string[];
   slots: number;
@@ -78,7 +39,7 @@ export interface CompactHeader {
 }
 
 /**
- * The inverted index, compact: each term's postings are one growable Uint32Array, cases are
+ * The inverted index, compact (scored by BM25F, `bm25f.ts`): each term's postings are one growable Uint32Array, cases are
  * numbered slots, field lengths are Uint16Arrays. minisearch keeps a Map per term and field
  * (about 70 bytes a posting, 1.7 GB at 100k cases); this keeps 4 bytes a posting plus slack,
  * and the snapshot is the arrays themselves, so a restart maps them back without parsing.
@@ -289,7 +250,7 @@ export class CompactEngine {
       i = slotPostingsEnd(list, i, n, slot, norms);
       if (ids[slot] < 0 || !admit(slot)) continue;
       const tf = slotTf[0];
-      const score = idf * (D + (tf * (K + 1)) / (tf + K));
+      const score = idf * saturatedTf(tf);
       if (acc[slot] === 0) touched.push(slot);
       acc[slot] += score;
     }
@@ -300,9 +261,9 @@ export class CompactEngine {
    * the stems it may be heading for), each with its weight. Per case, the best of weight × (δ +
    * tf~·(k1 + 1)/(tf~ + k1)) over the completions it holds, times one idf worked out from the
    * cases holding any of them. Summing each completion's own BM25F let the rarest completion
-   * decide: for "ground lea", the one case that says "leaves" (a rare word: a large idf) came before every case with
-   * "lead", the word being typed. With one term this is `scoreTermSlots` exactly. `acc` and
-   * `touched` as there.
+   * decide: for "ground lea", the one case that says "leaves" (a rare word: a large idf) came
+   * before every case with "lead", the word being typed. With one term this is `scoreTermSlots`
+   * exactly. `acc` and `touched` as there.
    */
   scoreAnyOfSlots(terms: readonly { term: string; weight: number }[], admit: (slot: number) => boolean, acc: Float64Array, touched: number[]) {
     if (this.documentCount === 0) return;
@@ -321,7 +282,7 @@ export class CompactEngine {
         i = slotPostingsEnd(list, i, n, slot, norms);
         if (ids[slot] < 0) continue;
         const tf = slotTf[0];
-        const part = weight * (D + (tf * (K + 1)) / (tf + K));
+        const part = weight * saturatedTf(tf);
         if (best[slot] === 0) holding.push(slot);
         if (part > best[slot]) best[slot] = part;
       }
@@ -348,7 +309,7 @@ export class CompactEngine {
       if (!out || out.length < this.slots) out = this.norms[f] = new Float64Array(Math.max(1024, this.slots * 2));
       const avg = this.totalLength[f] / this.documentCount || 1;
       const lengths = this.fieldLength[f];
-      for (let slot = 0; slot < this.slots; slot++) out[slot] = 1 / (1 - B + (B * lengths[slot]) / avg);
+      for (let slot = 0; slot < this.slots; slot++) out[slot] = lengthNorm(lengths[slot], avg);
     }
     this.normsVersion = this.version;
     return this.norms;
@@ -478,6 +439,7 @@ export class CompactEngine {
   }
 }
 
+/** `to` holding `from` at its start: a typed array grown by copying. */
 function copyInto<T extends Uint32Array | Uint16Array | Int32Array>(to: T, from: T): T {
   to.set(from);
   return to;

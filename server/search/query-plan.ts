@@ -79,8 +79,7 @@ export function planQuery(query: string, index: CaseIndex, synonyms: Map<string,
     }
     const tag = synonyms.get(w.surface);
     if (tag && !/[-\s]/.test(tag) && dict.hasTerm(stem(tag))) add(stem(tag), 1);
-    const planned = [...terms].map(([term, weight]): WeightedTerm => ({ term, weight }));
-    groups.set(w.term, typing ? { word: w.surface, terms: planned, typing } : { word: w.surface, terms: planned });
+    groups.set(w.term, { word: w.surface, terms: [...terms].map(([term, weight]): WeightedTerm => ({ term, weight })), typing });
   });
   return [...groups.values()];
 }

@@ -1,6 +1,6 @@
 import Database from 'better-sqlite3';
 import { describe, expect, it } from 'vitest';
-import { inverseDocumentFrequency } from '../../server/search/compact-engine';
+import { inverseDocumentFrequency } from '../../server/search/bm25f';
 
 /**
  * The idf the index scores with, against SQLite FTS5's own bm25() (a reference implementation, from

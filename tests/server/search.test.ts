@@ -237,6 +237,7 @@ describe('case search', () => {
     compact.upsert(edited.doc, edited.facts);
     compare();
   });
+
   it('should score a word being typed as one word: the best of its completions in a case, one idf from the cases holding any', async () => {
     const [rows, tags, synonyms] = await Promise.all([searchSourceRows(ctx.db), searchTags(ctx.db), synonymsByTag(ctx.db)]);
     const entries = rows.map((r) => caseDocument(r, tags.get(r.id) ?? [], synonyms));
